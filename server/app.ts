@@ -1,0 +1,73 @@
+import path from 'node:path';
+import { existsSync } from 'node:fs';
+import cookieParser from 'cookie-parser';
+import express, { Router } from 'express';
+import helmet from 'helmet';
+import type { Env } from './config/env.ts';
+import { setConfig } from './config/runtime.ts';
+import { logger } from './lib/logger.ts';
+import { authenticate } from './middleware/authenticate.ts';
+import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
+import { requestContext, requireJsonForWrites } from './middleware/request-context.ts';
+import { authRoutes } from './modules/auth/auth.routes.ts';
+import { conversionsRoutes } from './modules/conversions/conversions.routes.ts';
+import { usersRoutes } from './modules/users/users.routes.ts';
+import { workshopRoutes } from './modules/workshop/workshop.routes.ts';
+
+export interface AppOptions {
+  env: Env;
+  /** Folder of the built client to serve; omitted in API tests. */
+  clientDir?: string;
+}
+
+/** Builds the Express app without listening, so tests can drive it with supertest. */
+export function createApp({ env, clientDir }: AppOptions) {
+  setConfig(env);
+  logger.level = env.LOG_LEVEL;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', env.TRUST_PROXY_HOPS);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'default-src': ["'self'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'font-src': ["'self'"],
+          'object-src': ["'none'"],
+          'frame-ancestors': ["'none'"],
+          'upgrade-insecure-requests': null,
+        },
+      },
+      strictTransportSecurity: { maxAge: 31_536_000, includeSubDomains: true },
+    }),
+  );
+  app.use(requestContext);
+
+  const api = Router();
+  api.use(requireJsonForWrites);
+  api.use(express.json({ limit: '100kb' }));
+  api.use(cookieParser());
+  api.get('/health', (_req, res) => {
+    res.json({ ok: true });
+  });
+  api.use('/auth', authRoutes(env));
+  // Everything below needs a session; the role checks sit on each route.
+  api.use('/workshop', authenticate, workshopRoutes);
+  api.use('/users', authenticate, usersRoutes);
+  api.use('/conversions', authenticate, conversionsRoutes);
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  if (clientDir && existsSync(clientDir)) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    // Client-side routes: every other GET gets the app shell.
+    app.get(/^\/(?!api\/).*/, (_req, res) => {
+      res.sendFile(path.join(clientDir, 'index.html'));
+    });
+  }
+
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,67 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { z } from 'zod';
+
+const flag = z
+  .enum(['1', '0', 'true', 'false', 'on', 'off', 'yes', 'no'])
+  .transform((v) => ['1', 'true', 'on', 'yes'].includes(v));
+
+/** Secrets people paste from examples; refused even when long enough. */
+const WEAK_SECRETS = new Set(['changeme', 'secret', 'password', 'loomwright', 'jwt-secret']);
+
+const EnvSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  HOST: z.string().default('0.0.0.0'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  DATABASE_PATH: z.string().min(1).default('data/loomwright.sqlite'),
+  JWT_SECRET: z
+    .string()
+    .refine((s) => !WEAK_SECRETS.has(s.toLowerCase()), 'is a well-known example value')
+    .refine((s) => s.length >= 43, 'must be at least 256 random bits (43+ characters)')
+    .optional(),
+  DEMO: flag.default(true),
+  DEMO_PASSWORD: z.string().min(8).max(72).default('loomwright-demo'),
+  /** One shift: a token outlives a working day by a little, no more. */
+  SESSION_HOURS: z.coerce.number().min(0.05).max(24).default(12),
+  /** Number of reverse proxies in front of the app; 0 means the socket address is the client. */
+  TRUST_PROXY_HOPS: z.coerce.number().int().min(0).max(5).default(0),
+  BCRYPT_COST: z.coerce.number().int().min(10).max(15).default(11),
+  /** Failed sign-ins allowed per client address per minute before 429. */
+  LOGIN_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(1000).default(10),
+  /** Public address of the app, used in links inside e-mails. */
+  PUBLIC_URL: z.string().url().optional(),
+  LOG_LEVEL: z.enum(['silent', 'fatal', 'error', 'warn', 'info', 'debug']).default('info'),
+});
+
+export type Env = z.infer<typeof EnvSchema> & { JWT_SECRET: string; DATA_DIR: string };
+
+export class EnvError extends Error {}
+
+/**
+ * Reads and validates the environment once at boot. Without JWT_SECRET a random 256-bit secret is
+ * generated on first start and kept beside the database (mode 0600), so restarts keep sessions.
+ */
+export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
+  const parsed = EnvSchema.safeParse(source);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new EnvError(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const env = parsed.data;
+  const dataDir = path.dirname(path.resolve(env.DATABASE_PATH));
+  const jwtSecret = env.JWT_SECRET ?? readOrCreateSecret(path.join(dataDir, 'jwt-secret'));
+  return { ...env, JWT_SECRET: jwtSecret, DATA_DIR: dataDir };
+}
+
+function readOrCreateSecret(file: string): string {
+  if (existsSync(file)) {
+    const secret = readFileSync(file, 'utf8').trim();
+    if (secret.length >= 43) return secret;
+    throw new EnvError(`${file} holds a secret that is too short; delete it to generate a new one`);
+  }
+  mkdirSync(path.dirname(file), { recursive: true });
+  const secret = randomBytes(32).toString('base64url');
+  writeFileSync(file, secret + '\n', { mode: 0o600 });
+  return secret;
+}

@@ -1,0 +1,26 @@
+import type { Sequelize } from 'sequelize';
+import { migrate } from './migrations/index.ts';
+import { initModels } from './models/index.ts';
+import { openDatabase } from './sequelize.ts';
+
+let current: Sequelize | null = null;
+
+/** Opens the database file, brings its schema up to date and binds the models to it. */
+export async function connectDatabase(storage: string): Promise<Sequelize> {
+  const sequelize = await openDatabase(storage);
+  await migrate(sequelize);
+  initModels(sequelize);
+  current = sequelize;
+  return sequelize;
+}
+
+/** The database this process works with. */
+export function db(): Sequelize {
+  if (!current) throw new Error('The database is not connected yet');
+  return current;
+}
+
+export async function closeDatabase(): Promise<void> {
+  if (current) await current.close();
+  current = null;
+}

@@ -1,0 +1,32 @@
+import type { Sequelize, Transaction } from 'sequelize';
+import { SequelizeStorage, Umzug } from 'umzug';
+import { foundation } from './0001-foundation.ts';
+
+/**
+ * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
+ * type (PRAGMA table_info), so dates are DATETIME and flags BOOLEAN, never plain TEXT/INTEGER.
+ */
+export interface Migration {
+  name: string;
+  /** Runs inside the migration's transaction: pass `{ transaction }` to every query. */
+  up: (sequelize: Sequelize, transaction: Transaction) => Promise<void>;
+}
+
+/** Every migration in order. Add new ones at the end; never edit one that has shipped. */
+export const MIGRATIONS: Migration[] = [foundation];
+
+export async function migrate(sequelize: Sequelize): Promise<void> {
+  const umzug = new Umzug<Sequelize>({
+    migrations: MIGRATIONS.map((m) => ({
+      name: m.name,
+      // Each migration is all-or-nothing.
+      up: async ({ context }: { context: Sequelize }) => {
+        await context.transaction((t) => m.up(context, t));
+      },
+    })),
+    context: sequelize,
+    storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
+    logger: undefined,
+  });
+  await umzug.up();
+}

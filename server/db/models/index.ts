@@ -1,0 +1,24 @@
+import type { Sequelize } from 'sequelize';
+import { AuditEvent } from './audit-event.model.ts';
+import { Conversion } from './conversion.model.ts';
+import { User } from './user.model.ts';
+import { Workshop } from './workshop.model.ts';
+
+export { AuditEvent, Conversion, User, Workshop };
+
+/**
+ * Binds the model classes to one database. Sequelize model classes are process-wide, so a process
+ * (and a test file) works with one database at a time.
+ */
+export function initModels(sequelize: Sequelize) {
+  Workshop.initModel(sequelize);
+  User.initModel(sequelize);
+  Conversion.initModel(sequelize);
+  AuditEvent.initModel(sequelize);
+
+  Workshop.hasMany(User, { foreignKey: 'workshopId' });
+  User.belongsTo(Workshop, { foreignKey: 'workshopId' });
+  Workshop.hasMany(Conversion, { foreignKey: 'workshopId' });
+  Conversion.belongsTo(Workshop, { foreignKey: 'workshopId' });
+  Conversion.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+}

@@ -1,0 +1,59 @@
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { DEMO_USERS } from '../seeds/demo-data.ts';
+import { isEmpty, seedDemo } from '../seeds/seed-demo.ts';
+import { createApp } from './app.ts';
+import { EnvError, loadEnv } from './config/env.ts';
+import { closeDatabase, connectDatabase } from './db/index.ts';
+import { logger } from './lib/logger.ts';
+
+const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+
+async function main() {
+  const env = loadEnv();
+  const sequelize = await connectDatabase(env.DATABASE_PATH);
+  const fresh = await isEmpty();
+  if (env.DEMO && fresh) {
+    await seedDemo(sequelize, { password: env.DEMO_PASSWORD, bcryptCost: env.BCRYPT_COST });
+    logger.info({ database: env.DATABASE_PATH }, 'seeded the demo workshop');
+  }
+  const app = createApp({ env, clientDir: path.join(projectRoot, 'dist') });
+  const server = app.listen(env.PORT, env.HOST, () => {
+    const url = `http://localhost:${env.PORT}`;
+    logger.info({ url, database: env.DATABASE_PATH }, 'Loomwright is listening');
+    if (env.DEMO) {
+      const lines = DEMO_USERS.map((u) => `  ${u.role.padEnd(11)} ${u.email}`).join('\n');
+      process.stdout.write(
+        `\nLoomwright is running at ${url}\nDemo workshop sign-ins (password "${env.DEMO_PASSWORD}"):\n${lines}\n\n`,
+      );
+    }
+  });
+
+  const shutdown = (signal: string) => {
+    logger.info({ signal }, 'shutting down');
+    server.close(() => {
+      void closeDatabase().finally(() => process.exit(0));
+    });
+    setTimeout(() => process.exit(0), 5000).unref();
+  };
+  process.on('SIGTERM', () => shutdown('SIGTERM'));
+  process.on('SIGINT', () => shutdown('SIGINT'));
+}
+
+process.on('uncaughtException', (err) => {
+  logger.fatal({ err }, 'uncaught exception; exiting');
+  process.exit(1);
+});
+process.on('unhandledRejection', (err) => {
+  logger.fatal({ err }, 'unhandled rejection; exiting');
+  process.exit(1);
+});
+
+main().catch((err: unknown) => {
+  if (err instanceof EnvError) {
+    process.stderr.write(`${err.message}\n`);
+  } else {
+    logger.fatal({ err }, 'failed to start');
+  }
+  process.exit(1);
+});

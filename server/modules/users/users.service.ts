@@ -1,0 +1,109 @@
+import { Op } from 'sequelize';
+import type {
+  CreateUserRequest,
+  UpdateUserRequest,
+  UserSummary,
+} from '#shared/schemas/users.schema.ts';
+import { db } from '../../db/index.ts';
+import { User } from '../../db/models/index.ts';
+import type { Actor } from '../../lib/actor.ts';
+import { AppError, badRequest, notFound } from '../../lib/errors.ts';
+import { inTransaction } from '../../lib/transaction.ts';
+import { changedFields, recordAudit } from '../audit/audit.service.ts';
+import { assertAcceptablePassword, hashPassword } from '../auth/passwords.ts';
+
+export function toUserSummary(user: User): UserSummary {
+  return {
+    id: user.id,
+    email: user.email,
+    name: user.name,
+    role: user.role,
+    active: user.active,
+    createdAt: user.createdAt.toISOString(),
+  };
+}
+
+export async function listUsers(actor: Actor): Promise<UserSummary[]> {
+  const users = await User.findAll({
+    where: { workshopId: actor.workshopId },
+    order: [['name', 'ASC']],
+  });
+  return users.map(toUserSummary);
+}
+
+export async function createUser(actor: Actor, input: CreateUserRequest): Promise<UserSummary> {
+  if (!input.password) {
+    throw badRequest('password: is required', [{ field: 'password', message: 'is required' }]);
+  }
+  assertAcceptablePassword(input.password);
+  const passwordHash = await hashPassword(input.password);
+  return inTransaction(db(), async (t) => {
+    const taken = await User.findOne({ where: { email: input.email }, transaction: t });
+    if (taken) throw new AppError(409, 'duplicate', 'A user with that e-mail already exists.');
+    const user = await User.create(
+      {
+        workshopId: actor.workshopId,
+        email: input.email,
+        name: input.name,
+        role: input.role,
+        passwordHash,
+      },
+      { transaction: t },
+    );
+    await recordAudit(t, actor, {
+      action: 'create',
+      entityType: 'user',
+      entityId: user.id,
+      summary: `Added ${user.name} (${user.email}) as ${user.role}`,
+      after: { email: user.email, name: user.name, role: user.role },
+    });
+    return toUserSummary(user);
+  });
+}
+
+export async function updateUser(
+  actor: Actor,
+  userId: number,
+  input: UpdateUserRequest,
+): Promise<UserSummary> {
+  return inTransaction(db(), async (t) => {
+    const user = await User.findOne({
+      where: { id: userId, workshopId: actor.workshopId },
+      transaction: t,
+    });
+    if (!user) throw notFound('That user');
+    const losesAdmin =
+      user.role === 'admin' &&
+      user.active &&
+      ((input.role !== undefined && input.role !== 'admin') || input.active === false);
+    if (losesAdmin) {
+      const otherAdmins = await User.count({
+        where: {
+          workshopId: actor.workshopId,
+          role: 'admin',
+          active: true,
+          id: { [Op.ne]: user.id },
+        },
+        transaction: t,
+      });
+      if (otherAdmins === 0) {
+        throw new AppError(409, 'last_admin', 'The workshop must keep at least one active admin.');
+      }
+    }
+    const before = { name: user.name, role: user.role, active: user.active };
+    const changes = changedFields(before, input);
+    user.set(input);
+    // A changed role or a deactivation ends the user's current sessions.
+    if (changes.role || input.active === false) user.tokenVersion = user.tokenVersion + 1;
+    await user.save({ transaction: t });
+    await recordAudit(t, actor, {
+      action: 'update',
+      entityType: 'user',
+      entityId: user.id,
+      summary: `Changed ${user.name}: ${Object.keys(changes).join(', ') || 'nothing'}`,
+      before,
+      after: { name: user.name, role: user.role, active: user.active },
+    });
+    return toUserSummary(user);
+  });
+}

@@ -1,0 +1,39 @@
+import { z } from 'zod';
+import { requiredText } from './common.schema.ts';
+import { SystemVoltage } from './conversions.schema.ts';
+
+export const PAPER_SIZES = ['A4', 'Letter'] as const;
+export const SIZE_UNITS = ['mm2', 'awg'] as const;
+export type PaperSize = (typeof PAPER_SIZES)[number];
+export type SizeUnit = (typeof SIZE_UNITS)[number];
+
+/** SAE J1128 insulation temperature ratings, °C: GPT 85, TWP 105, TXL/GXL/SXL 125. */
+export const INSULATION_RATINGS_C = [60, 75, 80, 85, 90, 105, 125, 200] as const;
+
+export const WorkshopSettings = z.object({
+  id: z.number(),
+  name: z.string(),
+  paperSize: z.enum(PAPER_SIZES),
+  sizeUnit: z.enum(SIZE_UNITS),
+  systemVoltage: z.number(),
+  defaultInsulationC: z.number(),
+  serviceAllowancePct: z.number(),
+  version: z.number(),
+});
+export type WorkshopSettings = z.infer<typeof WorkshopSettings>;
+
+export const UpdateWorkshopRequest = z.strictObject({
+  name: requiredText(120).optional(),
+  paperSize: z.enum(PAPER_SIZES).optional(),
+  sizeUnit: z.enum(SIZE_UNITS).optional(),
+  systemVoltage: SystemVoltage.optional(),
+  defaultInsulationC: z
+    .number()
+    .refine((v) => (INSULATION_RATINGS_C as readonly number[]).includes(v), {
+      message: `must be one of ${INSULATION_RATINGS_C.join(', ')}`,
+    })
+    .optional(),
+  serviceAllowancePct: z.number().min(0).max(100).optional(),
+  version: z.number().int().min(0),
+});
+export type UpdateWorkshopRequest = z.infer<typeof UpdateWorkshopRequest>;
