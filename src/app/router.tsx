@@ -1,0 +1,37 @@
+import { createBrowserRouter, Navigate, RouterProvider } from 'react-router';
+import { paths } from '@/config/paths.ts';
+import { RequireRight, RequireSession } from './layout/require-session.tsx';
+import { AccountRoute } from './routes/account.tsx';
+import { ConversionRoute } from './routes/conversion.tsx';
+import { ConversionsRoute } from './routes/conversions.tsx';
+import { NotFoundRoute, RouteError } from './routes/route-error.tsx';
+import { SettingsRoute } from './routes/settings.tsx';
+import { SignInRoute } from './routes/sign-in.tsx';
+import { UsersRoute } from './routes/users.tsx';
+
+const router = createBrowserRouter([
+  { path: paths.signIn.path, element: <SignInRoute />, errorElement: <RouteError /> },
+  {
+    element: <RequireSession />,
+    errorElement: <RouteError />,
+    children: [
+      { path: paths.home.path, element: <Navigate to={paths.conversions.getHref()} replace /> },
+      { path: paths.conversions.path, element: <ConversionsRoute /> },
+      { path: paths.conversion.path, element: <ConversionRoute /> },
+      { path: paths.account.path, element: <AccountRoute /> },
+      {
+        element: <RequireRight right="users:manage" />,
+        children: [{ path: paths.users.path, element: <UsersRoute /> }],
+      },
+      {
+        element: <RequireRight right="workshop:settings" />,
+        children: [{ path: paths.settings.path, element: <SettingsRoute /> }],
+      },
+      { path: '*', element: <NotFoundRoute /> },
+    ],
+  },
+]);
+
+export function AppRouter() {
+  return <RouterProvider router={router} />;
+}
