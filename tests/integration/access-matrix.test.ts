@@ -1,0 +1,69 @@
+/**
+ * Deny by default (ASVS 8.2.1): every API route × {anonymous, each role}. A route missing from
+ * this table fails the test, so a new route cannot ship without its access decided here.
+ */
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { ROLES, type Role } from '#shared/auth/roles.ts';
+import { createTestContext, type TestContext } from '../helpers/test-app.ts';
+import { listRoutes } from '../helpers/routes.ts';
+
+const ALL: Role[] = [...ROLES];
+const WRITERS: Role[] = ['builder', 'admin'];
+const PUBLIC = 'public' as const;
+
+/** Who may call each route; anyone else signed in gets 403, anonymous callers 401. */
+const ACCESS: Record<string, Role[] | typeof PUBLIC> = {
+  'GET /api/health': PUBLIC,
+  'POST /api/auth/login': PUBLIC,
+  'POST /api/auth/logout': ALL,
+  'GET /api/auth/me': ALL,
+  'POST /api/auth/password': ALL,
+  'GET /api/workshop': ALL,
+  'PATCH /api/workshop': ['admin'],
+  'GET /api/users': ['admin'],
+  'POST /api/users': ['admin'],
+  'PATCH /api/users/:id': ['admin'],
+  'GET /api/conversions': ALL,
+  'POST /api/conversions': WRITERS,
+  'GET /api/conversions/:id': ALL,
+  'PATCH /api/conversions/:id': WRITERS,
+};
+
+let ctx: TestContext;
+beforeAll(async () => {
+  ctx = await createTestContext();
+});
+afterAll(() => ctx.close());
+
+/** Fill every :param with an id that exists nowhere, so an allowed call ends in 400/404, never a change. */
+const concrete = (path: string) => path.replace(/:[A-Za-z]+/g, '999999');
+
+describe('access matrix', () => {
+  it('covers every route the app has', () => {
+    const routes = listRoutes(ctx.app);
+    expect(routes.filter((r) => !(r in ACCESS))).toEqual([]);
+    expect(Object.keys(ACCESS).filter((r) => !routes.includes(r))).toEqual([]);
+  });
+
+  for (const [route, allowed] of Object.entries(ACCESS)) {
+    if (allowed === PUBLIC || route === 'POST /api/auth/logout') continue;
+    const [method, path] = route.split(' ') as [string, string];
+    it(`${route}: anonymous 401, ${allowed.join('/')} allowed, others 403`, async () => {
+      const call = (auth?: string) => {
+        const req = request(ctx.app)[method.toLowerCase() as 'get'](concrete(path));
+        if (auth) req.set('Authorization', auth);
+        return method === 'GET' ? req : req.send({});
+      };
+      expect((await call()).status).toBe(401);
+      for (const role of ALL) {
+        const res = await call(await ctx.authFor(role));
+        if (allowed.includes(role)) {
+          expect([401, 403], `${role} should pass the guard`).not.toContain(res.status);
+        } else {
+          expect(res.status, `${role} should get 403`).toBe(403);
+        }
+      }
+    });
+  }
+});

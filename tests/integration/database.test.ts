@@ -1,0 +1,80 @@
+/** The SQLite settings that keep concurrent writers safe (docs/decisions/0002-sqlite-settings.md). */
+import { ForeignKeyConstraintError, QueryTypes } from 'sequelize';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { db } from '#server/db/index.ts';
+import { AuditEvent, Conversion } from '#server/db/models/index.ts';
+import { createTestContext, type TestContext } from '../helpers/test-app.ts';
+
+let ctx: TestContext;
+beforeAll(async () => {
+  ctx = await createTestContext();
+});
+afterAll(() => ctx.close());
+
+async function pragma(name: string, transaction?: import('sequelize').Transaction) {
+  const rows = await db().query<Record<string, unknown>>(`PRAGMA ${name}`, {
+    transaction,
+    type: QueryTypes.SELECT,
+  });
+  return Object.values(rows[0]!)[0];
+}
+
+describe('SQLite settings', () => {
+  it('uses WAL', async () => {
+    expect(await pragma('journal_mode')).toBe('wal');
+  });
+
+  it('sets busy_timeout 5000, synchronous FULL and foreign keys on inside a transaction', async () => {
+    await db().transaction(async (t) => {
+      expect(await pragma('busy_timeout', t)).toBe(5000);
+      expect(await pragma('synchronous', t)).toBe(2);
+      expect(await pragma('foreign_keys', t)).toBe(1);
+    });
+  });
+
+  it('refuses an orphan row', async () => {
+    await expect(
+      Conversion.create({
+        workshopId: 424242,
+        name: 'x',
+        donorEngine: 'x',
+        receivingVehicle: 'x',
+        systemVoltage: 12,
+      }),
+    ).rejects.toBeInstanceOf(ForeignKeyConstraintError);
+  });
+
+  it('keeps the audit trail append-only', async () => {
+    const event = await AuditEvent.findOne();
+    const row =
+      event ??
+      (await AuditEvent.create({
+        workshopId: 1,
+        actorId: null,
+        actorName: 't',
+        action: 'test',
+        entityType: 't',
+        entityId: null,
+        summary: 't',
+        conversionId: null,
+        beforeJson: null,
+        afterJson: null,
+        requestId: null,
+      }));
+    const refusal = (sql: string) =>
+      db()
+        .query(sql)
+        .then(
+          () => 'accepted',
+          (err: { parent?: Error }) => String(err.parent?.message),
+        );
+    expect(await refusal(`UPDATE audit_events SET summary = 'x' WHERE id = ${row.id}`)).toMatch(
+      /append-only/,
+    );
+    expect(await refusal(`DELETE FROM audit_events WHERE id = ${row.id}`)).toMatch(/append-only/);
+  });
+
+  it('passes the integrity check', async () => {
+    expect(await pragma('integrity_check')).toBe('ok');
+  });
+});
