@@ -1,7 +1,9 @@
 import bcrypt from 'bcryptjs';
 import type { Sequelize } from 'sequelize';
-import { Conversion, User, Workshop } from '../server/db/models/index.ts';
+import type { Transaction } from 'sequelize';
+import { Connector, Conversion, Pin, User, Workshop } from '../server/db/models/index.ts';
 import { DEMO_CONVERSIONS, DEMO_USERS, DEMO_WORKSHOP } from './demo-data.ts';
+import { DRAFT_CONNECTORS, SIGNED_OFF_CONNECTORS, type DemoConnector } from './pin-map-data.ts';
 
 export interface DemoSeedResult {
   workshopId: number;
@@ -42,10 +44,81 @@ export async function seedDemo(
       { ...DEMO_CONVERSIONS.draft, workshopId: workshop.id, createdById: builderId },
       { transaction },
     );
+    await seedPinMap(signedOff.id, SIGNED_OFF_CONNECTORS, transaction);
+    await seedPinMap(draft.id, DRAFT_CONNECTORS, transaction);
     return {
       workshopId: workshop.id,
       users,
       conversions: { signedOff: signedOff.id, draft: draft.id },
     };
   });
+}
+
+/**
+ * Creates the connectors and pins of one conversion. A destination written "V1-3" that names a
+ * cavity of a vehicle-side connector becomes a link to that pin.
+ */
+async function seedPinMap(
+  conversionId: number,
+  connectors: DemoConnector[],
+  transaction: Transaction,
+) {
+  const pinIds = new Map<string, number>();
+  const vehicleSide = new Set(connectors.filter((c) => c.side === 'vehicle').map((c) => c.label));
+  const created: Array<{ pin: Pin; destination: string }> = [];
+  for (const c of connectors) {
+    const connector = await Connector.create(
+      {
+        conversionId,
+        label: c.label,
+        side: c.side,
+        cavityCount: c.pins.length,
+        rows: c.rows,
+        columns: c.columns,
+        notes: c.notes,
+      },
+      { transaction },
+    );
+    for (const [position, p] of c.pins.entries()) {
+      const [
+        cavity,
+        fn,
+        signalClass,
+        colour,
+        sizeMm2,
+        disposition,
+        destination,
+        runLengthM,
+        loadCurrentA,
+      ] = p;
+      const pin = await Pin.create(
+        {
+          conversionId,
+          connectorId: connector.id,
+          cavity,
+          position,
+          function: fn,
+          signalClass,
+          colour,
+          sizeMm2,
+          insulationRatingC: sizeMm2 == null ? null : 105,
+          disposition,
+          destination,
+          runLengthM: runLengthM ?? null,
+          loadCurrentA: loadCurrentA ?? null,
+        },
+        { transaction },
+      );
+      pinIds.set(`${c.label}-${cavity}`, pin.id);
+      created.push({ pin, destination });
+    }
+  }
+  for (const { pin, destination } of created) {
+    const [label] = destination.split('-');
+    const target = pinIds.get(destination);
+    if (target && label && vehicleSide.has(label)) {
+      pin.set({ destinationPinId: target, destination: '' });
+      await pin.save({ transaction });
+    }
+  }
 }

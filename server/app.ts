@@ -11,6 +11,11 @@ import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
 import { requestContext, requireJsonForWrites } from './middleware/request-context.ts';
 import { authRoutes } from './modules/auth/auth.routes.ts';
 import { conversionsRoutes } from './modules/conversions/conversions.routes.ts';
+import {
+  connectorRoutes,
+  conversionPinMapRoutes,
+  pinRoutes,
+} from './modules/pin-map/pin-map.routes.ts';
 import { usersRoutes } from './modules/users/users.routes.ts';
 import { workshopRoutes } from './modules/workshop/workshop.routes.ts';
 
@@ -56,7 +61,9 @@ export function createApp({ env, clientDir }: AppOptions) {
   // Everything below needs a session; the role checks sit on each route.
   api.use('/workshop', authenticate, workshopRoutes);
   api.use('/users', authenticate, usersRoutes);
-  api.use('/conversions', authenticate, conversionsRoutes);
+  api.use('/conversions', authenticate, conversionsRoutes, conversionPinMapRoutes);
+  api.use('/connectors', authenticate, connectorRoutes);
+  api.use('/pins', authenticate, pinRoutes);
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -28,6 +28,14 @@ const ACCESS: Record<string, Role[] | typeof PUBLIC> = {
   'POST /api/conversions': WRITERS,
   'GET /api/conversions/:id': ALL,
   'PATCH /api/conversions/:id': WRITERS,
+  'GET /api/conversions/:id/connectors': ALL,
+  'POST /api/conversions/:id/connectors': WRITERS,
+  'GET /api/conversions/:id/pins': ALL,
+  'POST /api/conversions/:id/pins/bulk': WRITERS,
+  'POST /api/conversions/:id/pins/batch': WRITERS,
+  'PATCH /api/connectors/:id': WRITERS,
+  'DELETE /api/connectors/:id': WRITERS,
+  'PATCH /api/pins/:id': WRITERS,
 };
 
 let ctx: TestContext;

@@ -1,6 +1,7 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
 import { foundation } from './0001-foundation.ts';
+import { pinMap } from './0002-pin-map.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -13,7 +14,7 @@ export interface Migration {
 }
 
 /** Every migration in order. Add new ones at the end; never edit one that has shipped. */
-export const MIGRATIONS: Migration[] = [foundation];
+export const MIGRATIONS: Migration[] = [foundation, pinMap];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {
   const umzug = new Umzug<Sequelize>({

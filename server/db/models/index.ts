@@ -1,10 +1,12 @@
 import type { Sequelize } from 'sequelize';
 import { AuditEvent } from './audit-event.model.ts';
+import { Connector } from './connector.model.ts';
 import { Conversion } from './conversion.model.ts';
+import { Pin } from './pin.model.ts';
 import { User } from './user.model.ts';
 import { Workshop } from './workshop.model.ts';
 
-export { AuditEvent, Conversion, User, Workshop };
+export { AuditEvent, Connector, Conversion, Pin, User, Workshop };
 
 /**
  * Binds the model classes to one database. Sequelize model classes are process-wide, so a process
@@ -15,10 +17,17 @@ export function initModels(sequelize: Sequelize) {
   User.initModel(sequelize);
   Conversion.initModel(sequelize);
   AuditEvent.initModel(sequelize);
+  Connector.initModel(sequelize);
+  Pin.initModel(sequelize);
 
   Workshop.hasMany(User, { foreignKey: 'workshopId' });
   User.belongsTo(Workshop, { foreignKey: 'workshopId' });
   Workshop.hasMany(Conversion, { foreignKey: 'workshopId' });
   Conversion.belongsTo(Workshop, { foreignKey: 'workshopId' });
   Conversion.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+  Conversion.hasMany(Connector, { foreignKey: 'conversionId' });
+  Connector.belongsTo(Conversion, { foreignKey: 'conversionId' });
+  Connector.hasMany(Pin, { foreignKey: 'connectorId' });
+  Pin.belongsTo(Connector, { foreignKey: 'connectorId' });
+  Pin.belongsTo(Conversion, { foreignKey: 'conversionId' });
 }
