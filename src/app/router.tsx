@@ -2,7 +2,9 @@ import { createBrowserRouter, Navigate, RouterProvider } from 'react-router';
 import { paths } from '@/config/paths.ts';
 import { RequireRight, RequireSession } from './layout/require-session.tsx';
 import { AccountRoute } from './routes/account.tsx';
-import { ConversionRoute } from './routes/conversion.tsx';
+import { ConversionLayout } from './routes/conversion/layout.tsx';
+import { ConversionOverviewRoute } from './routes/conversion/overview.tsx';
+import { ConversionPinMapRoute } from './routes/conversion/pin-map.tsx';
 import { ConversionsRoute } from './routes/conversions.tsx';
 import { NotFoundRoute, RouteError } from './routes/route-error.tsx';
 import { SettingsRoute } from './routes/settings.tsx';
@@ -17,7 +19,14 @@ const router = createBrowserRouter([
     children: [
       { path: paths.home.path, element: <Navigate to={paths.conversions.getHref()} replace /> },
       { path: paths.conversions.path, element: <ConversionsRoute /> },
-      { path: paths.conversion.path, element: <ConversionRoute /> },
+      {
+        path: paths.conversion.path,
+        element: <ConversionLayout />,
+        children: [
+          { index: true, element: <ConversionOverviewRoute /> },
+          { path: 'pins', element: <ConversionPinMapRoute /> },
+        ],
+      },
       { path: paths.account.path, element: <AccountRoute /> },
       {
         element: <RequireRight right="users:manage" />,

@@ -10,6 +10,10 @@ export const paths = {
     path: '/conversions/:conversionId',
     getHref: (id: number | string) => `/conversions/${id}`,
   },
+  conversionPins: {
+    path: '/conversions/:conversionId/pins',
+    getHref: (id: number | string) => `/conversions/${id}/pins`,
+  },
   users: { path: '/admin/users', getHref: () => '/admin/users' },
   settings: { path: '/admin/settings', getHref: () => '/admin/settings' },
   account: { path: '/account', getHref: () => '/account' },
