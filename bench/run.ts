@@ -4,6 +4,7 @@
  * `npm run bench -- <name>` runs only the cases whose name contains <name>.
  */
 import { conversionsList } from './cases/conversions-list.ts';
+import { pinsList } from './cases/pins-list.ts';
 import { printRows, type BenchRow } from './lib/report.ts';
 
 const seconds = Number(process.env.BENCH_SECONDS ?? 5);
@@ -11,6 +12,7 @@ const only = process.argv[2];
 
 const CASES: Record<string, () => Promise<BenchRow[]>> = {
   'conversions-list': () => conversionsList(seconds),
+  'pins-list': () => pinsList(seconds),
 };
 
 const rows: BenchRow[] = [];
