@@ -1,8 +1,17 @@
 import bcrypt from 'bcryptjs';
 import type { Sequelize } from 'sequelize';
 import type { Transaction } from 'sequelize';
-import { Connector, Conversion, Pin, User, Workshop } from '../server/db/models/index.ts';
+import {
+  Connector,
+  Conversion,
+  Feed,
+  FeedLoad,
+  Pin,
+  User,
+  Workshop,
+} from '../server/db/models/index.ts';
 import { DEMO_CONVERSIONS, DEMO_USERS, DEMO_WORKSHOP } from './demo-data.ts';
+import { DRAFT_FEEDS, SIGNED_OFF_FEEDS, type DemoFeed } from './feeds-data.ts';
 import { DRAFT_CONNECTORS, SIGNED_OFF_CONNECTORS, type DemoConnector } from './pin-map-data.ts';
 
 export interface DemoSeedResult {
@@ -44,8 +53,10 @@ export async function seedDemo(
       { ...DEMO_CONVERSIONS.draft, workshopId: workshop.id, createdById: builderId },
       { transaction },
     );
-    await seedPinMap(signedOff.id, SIGNED_OFF_CONNECTORS, transaction);
-    await seedPinMap(draft.id, DRAFT_CONNECTORS, transaction);
+    const signedOffPins = await seedPinMap(signedOff.id, SIGNED_OFF_CONNECTORS, transaction);
+    await seedFeeds(signedOff.id, SIGNED_OFF_FEEDS, signedOffPins, transaction);
+    const draftPins = await seedPinMap(draft.id, DRAFT_CONNECTORS, transaction);
+    await seedFeeds(draft.id, DRAFT_FEEDS, draftPins, transaction);
     return {
       workshopId: workshop.id,
       users,
@@ -119,6 +130,67 @@ async function seedPinMap(
     if (target && label && vehicleSide.has(label)) {
       pin.set({ destinationPinId: target, destination: '' });
       await pin.save({ transaction });
+    }
+  }
+  return pinIds;
+}
+
+/** Creates the feeds of one conversion and joins the pins that feed them. */
+async function seedFeeds(
+  conversionId: number,
+  feeds: DemoFeed[],
+  pinIds: Map<string, number>,
+  transaction: Transaction,
+) {
+  const pinId = (name: string | null) => {
+    if (name === null) return null;
+    const id = pinIds.get(name);
+    if (id === undefined) throw new Error(`demo feed refers to unknown pin ${name}`);
+    return id;
+  };
+  const feedIds = new Map<string, number>();
+  for (const f of feeds) {
+    const feed = await Feed.create(
+      {
+        conversionId,
+        name: f.name,
+        source: f.source,
+        sourceFeedId: f.sourceFeed ? feedIds.get(f.sourceFeed)! : null,
+        fuseA: f.fuseA,
+        hasRelay: f.relay !== null,
+        relayContactRatingA: f.relay?.contactRatingA ?? null,
+        relayCoilCurrentA: f.relay?.coilCurrentA ?? null,
+        relayCoilPinId: pinId(f.relay?.coilPin ?? null),
+        wireSizeMm2: f.wire.sizeMm2,
+        wireInsulationRatingC: f.wire.insulationRatingC,
+        wireLengthM: f.wire.lengthM,
+        wireZone: f.wire.zone,
+        wireBundled: f.wire.bundled,
+        wireReturnPath: f.wire.returnPath,
+        wireColour: f.wire.colour,
+        dropClass: f.dropClass,
+        dropLimitPct: f.dropLimitPct,
+        notes: f.notes,
+      },
+      { transaction },
+    );
+    feedIds.set(f.name, feed.id);
+    await FeedLoad.bulkCreate(
+      f.loads.map((l, position) => ({
+        feedId: feed.id,
+        pinId: pinId(l.pin),
+        name: l.name,
+        currentA: l.currentA,
+        continuous: l.continuous,
+        position,
+      })),
+      { transaction },
+    );
+    for (const name of f.joinedPins) {
+      await Pin.update(
+        { destinationFeedId: feed.id, destination: '' },
+        { where: { id: pinId(name)! }, transaction },
+      );
     }
   }
 }

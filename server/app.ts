@@ -11,6 +11,7 @@ import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
 import { requestContext, requireJsonForWrites } from './middleware/request-context.ts';
 import { authRoutes } from './modules/auth/auth.routes.ts';
 import { conversionsRoutes } from './modules/conversions/conversions.routes.ts';
+import { feedsRoutes } from './modules/feeds/feeds.routes.ts';
 import {
   connectorRoutes,
   conversionPinMapRoutes,
@@ -61,7 +62,7 @@ export function createApp({ env, clientDir }: AppOptions) {
   // Everything below needs a session; the role checks sit on each route.
   api.use('/workshop', authenticate, workshopRoutes);
   api.use('/users', authenticate, usersRoutes);
-  api.use('/conversions', authenticate, conversionsRoutes, conversionPinMapRoutes);
+  api.use('/conversions', authenticate, conversionsRoutes, conversionPinMapRoutes, feedsRoutes);
   api.use('/connectors', authenticate, connectorRoutes);
   api.use('/pins', authenticate, pinRoutes);
   api.use(apiNotFound);

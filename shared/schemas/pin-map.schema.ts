@@ -64,6 +64,8 @@ export const PinFields = z.strictObject({
   destination: optionalText(200),
   /** A cavity of a vehicle-side connector of the same conversion. */
   destinationPinId: z.number().int().positive().nullable(),
+  /** A new fused feed of the same conversion this pin is joined to. */
+  destinationFeedId: z.number().int().positive().nullable(),
   runLengthM: z.number().min(0).max(100).nullable(),
   loadCurrentA: z.number().min(0).max(200).nullable(),
   notes: optionalText(2000),

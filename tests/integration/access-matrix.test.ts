@@ -36,6 +36,11 @@ const ACCESS: Record<string, Role[] | typeof PUBLIC> = {
   'PATCH /api/connectors/:id': WRITERS,
   'DELETE /api/connectors/:id': WRITERS,
   'PATCH /api/pins/:id': WRITERS,
+  'GET /api/conversions/:id/feeds': ALL,
+  'POST /api/conversions/:id/feeds': WRITERS,
+  'GET /api/conversions/:id/feeds/:feedId': ALL,
+  'PATCH /api/conversions/:id/feeds/:feedId': WRITERS,
+  'DELETE /api/conversions/:id/feeds/:feedId': WRITERS,
 };
 
 let ctx: TestContext;

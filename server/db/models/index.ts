@@ -2,11 +2,12 @@ import type { Sequelize } from 'sequelize';
 import { AuditEvent } from './audit-event.model.ts';
 import { Connector } from './connector.model.ts';
 import { Conversion } from './conversion.model.ts';
+import { Feed, FeedLoad } from './feed.model.ts';
 import { Pin } from './pin.model.ts';
 import { User } from './user.model.ts';
 import { Workshop } from './workshop.model.ts';
 
-export { AuditEvent, Connector, Conversion, Pin, User, Workshop };
+export { AuditEvent, Connector, Conversion, Feed, FeedLoad, Pin, User, Workshop };
 
 /**
  * Binds the model classes to one database. Sequelize model classes are process-wide, so a process
@@ -19,6 +20,8 @@ export function initModels(sequelize: Sequelize) {
   AuditEvent.initModel(sequelize);
   Connector.initModel(sequelize);
   Pin.initModel(sequelize);
+  Feed.initModel(sequelize);
+  FeedLoad.initModel(sequelize);
 
   Workshop.hasMany(User, { foreignKey: 'workshopId' });
   User.belongsTo(Workshop, { foreignKey: 'workshopId' });
@@ -30,4 +33,8 @@ export function initModels(sequelize: Sequelize) {
   Connector.hasMany(Pin, { foreignKey: 'connectorId' });
   Pin.belongsTo(Connector, { foreignKey: 'connectorId' });
   Pin.belongsTo(Conversion, { foreignKey: 'conversionId' });
+  Conversion.hasMany(Feed, { foreignKey: 'conversionId' });
+  Feed.belongsTo(Conversion, { foreignKey: 'conversionId' });
+  Feed.hasMany(FeedLoad, { as: 'loads', foreignKey: 'feedId' });
+  FeedLoad.belongsTo(Feed, { foreignKey: 'feedId' });
 }

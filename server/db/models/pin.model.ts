@@ -27,6 +27,7 @@ export class Pin extends Model<InferAttributes<Pin>, InferCreationAttributes<Pin
   declare disposition: CreationOptional<Disposition>;
   declare destination: CreationOptional<string>;
   declare destinationPinId: CreationOptional<number | null>;
+  declare destinationFeedId: CreationOptional<number | null>;
   declare runLengthM: CreationOptional<number | null>;
   declare loadCurrentA: CreationOptional<number | null>;
   declare notes: CreationOptional<string>;
@@ -48,6 +49,7 @@ export class Pin extends Model<InferAttributes<Pin>, InferCreationAttributes<Pin
         disposition: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'undecided' },
         destination: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         destinationPinId: { type: DataTypes.INTEGER, allowNull: true },
+        destinationFeedId: { type: DataTypes.INTEGER, allowNull: true },
         runLengthM: { type: DataTypes.REAL, allowNull: true },
         loadCurrentA: { type: DataTypes.REAL, allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },

@@ -16,6 +16,7 @@ type PinRow = Pick<
   | 'disposition'
   | 'destination'
   | 'destinationPinId'
+  | 'destinationFeedId'
   | 'runLengthM'
   | 'loadCurrentA'
   | 'notes'
@@ -39,6 +40,7 @@ export function toPinDto(pin: PinRow): PinDto {
     disposition: pin.disposition,
     destination: pin.destination,
     destinationPinId: pin.destinationPinId,
+    destinationFeedId: pin.destinationFeedId,
     runLengthM: pin.runLengthM,
     loadCurrentA: pin.loadCurrentA,
     notes: pin.notes,

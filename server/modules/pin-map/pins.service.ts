@@ -7,7 +7,7 @@ import type {
   UpdatePinRequest,
 } from '#shared/schemas/pin-map.schema.ts';
 import { db } from '../../db/index.ts';
-import { Connector, Conversion, Pin } from '../../db/models/index.ts';
+import { Connector, Conversion, Feed, Pin } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
@@ -93,6 +93,25 @@ async function assertDestinationPins(
   }
 }
 
+/** A feed destination must be a feed of the same conversion. */
+async function assertDestinationFeeds(
+  conversionId: number,
+  feedIds: Array<number | null | undefined>,
+  transaction: Transaction,
+): Promise<void> {
+  const wanted = [...new Set(feedIds.filter((v): v is number => v != null))];
+  if (wanted.length === 0) return;
+  const found = await Feed.count({ where: { id: wanted, conversionId }, transaction });
+  if (found !== wanted.length) {
+    throw new AppError(
+      400,
+      'validation_failed',
+      'destinationFeedId: must be a feed of this conversion',
+      [{ field: 'destinationFeedId', message: 'must be a feed of this conversion' }],
+    );
+  }
+}
+
 function changedOnly(pin: Pin, set: PinChanges): PinChanges {
   const changes: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(set)) {
@@ -123,6 +142,7 @@ export async function updatePin(
       [{ pinId, destinationPinId: set.destinationPinId }],
       t,
     );
+    await assertDestinationFeeds(pin.conversionId, [set.destinationFeedId], t);
     const changes = changedOnly(pin, set);
     const before = beforeOf(pin, changes);
     pin.set(set);
@@ -177,6 +197,7 @@ export async function bulkUpdatePins(
       [...pins.keys()].map((pinId) => ({ pinId, destinationPinId: input.set.destinationPinId })),
       t,
     );
+    await assertDestinationFeeds(conversionId, [input.set.destinationFeedId], t);
     const before: Record<number, Record<string, unknown>> = {};
     for (const pin of pins.values()) {
       before[pin.id] = beforeOf(pin, input.set);
@@ -225,6 +246,11 @@ export async function batchUpdatePins(
       input.changes.map((c) => ({ pinId: c.id, destinationPinId: c.set.destinationPinId })),
       t,
     );
+    await assertDestinationFeeds(
+      conversionId,
+      input.changes.map((c) => c.set.destinationFeedId),
+      t,
+    );
     const before: Record<number, Record<string, unknown>> = {};
     const after: Record<number, Record<string, unknown>> = {};
     const saved = new Map<number, Pin>();
@@ -258,6 +284,7 @@ export function isBlankPin(pin: Pin): boolean {
     pin.sizeMm2 == null &&
     !pin.destination &&
     pin.destinationPinId == null &&
+    pin.destinationFeedId == null &&
     !pin.notes
   );
 }

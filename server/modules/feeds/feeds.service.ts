@@ -1,0 +1,298 @@
+import type { Transaction } from 'sequelize';
+import type {
+  CreateFeedRequest,
+  Feed as FeedDto,
+  UpdateFeedRequest,
+} from '#shared/schemas/feeds.schema.ts';
+import { db } from '../../db/index.ts';
+import { Feed, FeedLoad, Pin } from '../../db/models/index.ts';
+import type { Actor } from '../../lib/actor.ts';
+import { AppError, notFound, versionConflict } from '../../lib/errors.ts';
+import { inTransaction } from '../../lib/transaction.ts';
+import { recordAudit } from '../audit/audit.service.ts';
+import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
+
+type FeedWithLoads = Feed & { loads?: FeedLoad[] };
+
+export function toFeedDto(feed: FeedWithLoads): FeedDto {
+  return {
+    id: feed.id,
+    conversionId: feed.conversionId,
+    name: feed.name,
+    source: feed.source,
+    sourceFeedId: feed.sourceFeedId,
+    fuseA: feed.fuseA,
+    relay: feed.hasRelay
+      ? {
+          contactRatingA: feed.relayContactRatingA ?? 0,
+          coilCurrentA: feed.relayCoilCurrentA ?? 0,
+          coilPinId: feed.relayCoilPinId,
+        }
+      : null,
+    wire: {
+      sizeMm2: feed.wireSizeMm2,
+      insulationRatingC: feed.wireInsulationRatingC,
+      lengthM: feed.wireLengthM,
+      zone: feed.wireZone,
+      bundled: feed.wireBundled,
+      returnPath: feed.wireReturnPath,
+      colour: feed.wireColour,
+    },
+    loads: [...(feed.loads ?? [])]
+      .sort((a, b) => a.position - b.position)
+      .map((l) => ({
+        id: l.id,
+        pinId: l.pinId,
+        name: l.name,
+        currentA: l.currentA,
+        continuous: l.continuous,
+      })),
+    dropClass: feed.dropClass,
+    dropLimitPct: feed.dropLimitPct,
+    notes: feed.notes,
+    version: feed.version,
+  };
+}
+
+/** The columns of a feed row from the API's nested shape. */
+function columnsOf(input: Partial<CreateFeedRequest>) {
+  const columns: Partial<Feed['_creationAttributes']> = {};
+  if (input.name !== undefined) columns.name = input.name;
+  if (input.source !== undefined) columns.source = input.source;
+  if (input.sourceFeedId !== undefined) columns.sourceFeedId = input.sourceFeedId;
+  if (input.fuseA !== undefined) columns.fuseA = input.fuseA;
+  if (input.relay !== undefined) {
+    columns.hasRelay = input.relay !== null;
+    columns.relayContactRatingA = input.relay?.contactRatingA ?? null;
+    columns.relayCoilCurrentA = input.relay?.coilCurrentA ?? null;
+    columns.relayCoilPinId = input.relay?.coilPinId ?? null;
+  }
+  if (input.wire !== undefined) {
+    columns.wireSizeMm2 = input.wire.sizeMm2;
+    columns.wireInsulationRatingC = input.wire.insulationRatingC;
+    columns.wireLengthM = input.wire.lengthM;
+    columns.wireZone = input.wire.zone;
+    columns.wireBundled = input.wire.bundled;
+    columns.wireReturnPath = input.wire.returnPath;
+    columns.wireColour = input.wire.colour;
+  }
+  if (input.dropClass !== undefined) columns.dropClass = input.dropClass;
+  if (input.dropLimitPct !== undefined) columns.dropLimitPct = input.dropLimitPct;
+  if (input.notes !== undefined) columns.notes = input.notes;
+  return columns;
+}
+
+const invalid = (field: string, message: string) =>
+  new AppError(400, 'validation_failed', `${field}: ${message}`, [{ field, message }]);
+
+/**
+ * References must stay inside the conversion: the source feed (and no loop of relay outputs), the
+ * relay's coil pin and each load's pin. The name must be unique in the conversion.
+ */
+async function assertReferences(
+  conversionId: number,
+  feedId: number | null,
+  feed: { name: string; sourceFeedId: number | null; relayCoilPinId: number | null },
+  loads: Array<{ pinId: number | null }>,
+  t: Transaction,
+) {
+  const clash = await Feed.findOne({ where: { conversionId, name: feed.name }, transaction: t });
+  if (clash && clash.id !== feedId) {
+    throw new AppError(
+      409,
+      'duplicate',
+      `This conversion already has a feed named "${feed.name}".`,
+      [{ field: 'name', message: 'is already used in this conversion' }],
+    );
+  }
+  if (feed.sourceFeedId != null) {
+    const all = await Feed.findAll({
+      where: { conversionId },
+      attributes: ['id', 'sourceFeedId'],
+      transaction: t,
+    });
+    const byId = new Map(all.map((f) => [f.id, f]));
+    if (!byId.has(feed.sourceFeedId))
+      throw invalid('sourceFeedId', 'must be a feed of this conversion');
+    // Walk up the chain of relay outputs: it must not come back to this feed.
+    const seen = new Set<number>();
+    for (
+      let at: number | null = feed.sourceFeedId;
+      at != null;
+      at = byId.get(at)?.sourceFeedId ?? null
+    ) {
+      if (at === feedId || seen.has(at))
+        throw invalid('sourceFeedId', 'would make a loop of feeds powering each other');
+      seen.add(at);
+    }
+  }
+  const pinIds = [
+    ...new Set(
+      [feed.relayCoilPinId, ...loads.map((l) => l.pinId)].filter((v): v is number => v != null),
+    ),
+  ];
+  if (pinIds.length) {
+    const found = await Pin.count({ where: { id: pinIds, conversionId }, transaction: t });
+    if (found !== pinIds.length)
+      throw invalid('loads', 'every pin must be a pin of this conversion');
+  }
+}
+
+async function findFeed(
+  actor: Actor,
+  conversionId: number,
+  feedId: number,
+  t?: Transaction,
+): Promise<FeedWithLoads> {
+  await findConversionInWorkshop(actor, conversionId, t);
+  const feed = await Feed.findOne({
+    where: { id: feedId, conversionId },
+    include: [{ model: FeedLoad, as: 'loads' }],
+    transaction: t,
+  });
+  if (!feed) throw notFound('That feed');
+  return feed;
+}
+
+async function replaceLoads(feedId: number, loads: CreateFeedRequest['loads'], t: Transaction) {
+  await FeedLoad.destroy({ where: { feedId }, transaction: t });
+  await FeedLoad.bulkCreate(
+    loads.map((l, position) => ({ ...l, feedId, position })),
+    { transaction: t },
+  );
+}
+
+export async function listFeeds(actor: Actor, conversionId: number): Promise<FeedDto[]> {
+  await findConversionInWorkshop(actor, conversionId);
+  const feeds = await Feed.findAll({
+    where: { conversionId },
+    include: [{ model: FeedLoad, as: 'loads' }],
+    order: [['id', 'ASC']],
+  });
+  return feeds.map(toFeedDto);
+}
+
+export async function getFeed(
+  actor: Actor,
+  conversionId: number,
+  feedId: number,
+): Promise<FeedDto> {
+  return toFeedDto(await findFeed(actor, conversionId, feedId));
+}
+
+export async function createFeed(
+  actor: Actor,
+  conversionId: number,
+  input: CreateFeedRequest,
+  transaction?: Transaction,
+): Promise<FeedDto> {
+  const work = async (t: Transaction) => {
+    await findConversionInWorkshop(actor, conversionId, t);
+    await assertReferences(
+      conversionId,
+      null,
+      {
+        name: input.name,
+        sourceFeedId: input.sourceFeedId,
+        relayCoilPinId: input.relay?.coilPinId ?? null,
+      },
+      input.loads,
+      t,
+    );
+    const feed = await Feed.create(
+      { ...(columnsOf(input) as Feed['_creationAttributes']), conversionId },
+      { transaction: t },
+    );
+    await replaceLoads(feed.id, input.loads, t);
+    const created = await findFeed(actor, conversionId, feed.id, t);
+    await recordAudit(t, actor, {
+      conversionId,
+      action: 'create',
+      entityType: 'feed',
+      entityId: feed.id,
+      summary: `Added feed "${feed.name}"`,
+      after: toFeedDto(created),
+    });
+    return toFeedDto(created);
+  };
+  return transaction ? work(transaction) : inTransaction(db(), work);
+}
+
+export async function updateFeed(
+  actor: Actor,
+  conversionId: number,
+  feedId: number,
+  input: UpdateFeedRequest,
+): Promise<FeedDto> {
+  return inTransaction(db(), async (t) => {
+    const feed = await findFeed(actor, conversionId, feedId, t);
+    if (feed.version !== input.version) throw versionConflict(toFeedDto(feed));
+    const before = toFeedDto(feed);
+    const { version: _version, loads, ...fields } = input;
+    const merged = { ...before, ...fields };
+    if ((merged.source === 'relay_output') !== (merged.sourceFeedId != null)) {
+      throw invalid(
+        'sourceFeedId',
+        'give the source feed when, and only when, the source is a relay output',
+      );
+    }
+    await assertReferences(
+      conversionId,
+      feedId,
+      {
+        name: merged.name,
+        sourceFeedId: merged.sourceFeedId,
+        relayCoilPinId: merged.relay?.coilPinId ?? null,
+      },
+      loads ?? before.loads,
+      t,
+    );
+    feed.set(columnsOf(fields));
+    // Loads live in their own table: the version must move even when only they change.
+    feed.changed('updatedAt', true);
+    await feed.save({ transaction: t });
+    if (loads) await replaceLoads(feedId, loads, t);
+    const after = toFeedDto(await findFeed(actor, conversionId, feedId, t));
+    await recordAudit(t, actor, {
+      conversionId,
+      action: 'update',
+      entityType: 'feed',
+      entityId: feedId,
+      summary: `Changed feed "${after.name}"`,
+      before,
+      after,
+    });
+    return after;
+  });
+}
+
+export async function deleteFeed(
+  actor: Actor,
+  conversionId: number,
+  feedId: number,
+): Promise<void> {
+  await inTransaction(db(), async (t) => {
+    const feed = await findFeed(actor, conversionId, feedId, t);
+    const downstream = await Feed.findAll({
+      where: { conversionId, sourceFeedId: feedId },
+      transaction: t,
+    });
+    if (downstream.length) {
+      throw new AppError(
+        409,
+        'in_use',
+        `${downstream.map((f) => `"${f.name}"`).join(', ')} take their power from this feed's relay; change them first.`,
+      );
+    }
+    const before = toFeedDto(feed);
+    await feed.destroy({ transaction: t });
+    await recordAudit(t, actor, {
+      conversionId,
+      action: 'delete',
+      entityType: 'feed',
+      entityId: feedId,
+      summary: `Removed feed "${before.name}"`,
+      before,
+    });
+  });
+}

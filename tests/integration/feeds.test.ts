@@ -1,0 +1,204 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { AuditEvent, Feed, Pin } from '#server/db/models/index.ts';
+import { createOtherWorkshop } from '../factories/workshop.factory.ts';
+import { createTestContext, type TestContext } from '../helpers/test-app.ts';
+
+let ctx: TestContext;
+let builder: string;
+let draftId: number;
+
+const feedBody = (over: Record<string, unknown> = {}) => ({
+  name: 'Horn',
+  source: 'battery',
+  sourceFeedId: null,
+  fuseA: 15,
+  relay: { contactRatingA: 30, coilCurrentA: 0.15, coilPinId: null },
+  wire: {
+    sizeMm2: 1.5,
+    insulationRatingC: 105,
+    lengthM: 2,
+    zone: 'cabin',
+    bundled: 1,
+    returnPath: 'chassis',
+    colour: 'bu/wh',
+  },
+  loads: [{ pinId: null, name: 'Twin horns', currentA: 8, continuous: false }],
+  dropClass: 'general',
+  dropLimitPct: null,
+  notes: '',
+  ...over,
+});
+
+beforeAll(async () => {
+  ctx = await createTestContext();
+  builder = await ctx.authFor('builder');
+  draftId = ctx.demo.conversions.draft;
+});
+afterAll(() => ctx.close());
+
+describe('feeds', () => {
+  it('lists the demo feeds with their loads to every role', async () => {
+    const res = await request(ctx.app)
+      .get(`/api/conversions/${draftId}/feeds`)
+      .set('Authorization', await ctx.authFor('technician'));
+    expect(res.status).toBe(200);
+    expect(res.body.feeds.map((f: { name: string }) => f.name)).toEqual([
+      'ECU main',
+      'Ignition coils',
+      'Fuel pump',
+      'Cooling fan',
+      'Diagnostic and memory',
+    ]);
+    const fan = res.body.feeds.find((f: { name: string }) => f.name === 'Cooling fan');
+    expect(fan).toMatchObject({
+      fuseA: 30,
+      wire: { sizeMm2: 1, zone: 'engine_bay' },
+      relay: { contactRatingA: 40 },
+    });
+    expect(fan.loads[0]).toMatchObject({ currentA: 20, continuous: true });
+  });
+
+  it('creates, reads, updates with a version check and deletes a feed, auditing each', async () => {
+    const created = await request(ctx.app)
+      .post(`/api/conversions/${draftId}/feeds`)
+      .set('Authorization', builder)
+      .send(feedBody());
+    expect(created.status).toBe(201);
+    const feed = created.body.feed;
+    expect(feed.wire.colour).toBe('BU/WH');
+    const got = await request(ctx.app)
+      .get(`/api/conversions/${draftId}/feeds/${feed.id}`)
+      .set('Authorization', builder);
+    expect(got.body.feed.loads).toHaveLength(1);
+    const updated = await request(ctx.app)
+      .patch(`/api/conversions/${draftId}/feeds/${feed.id}`)
+      .set('Authorization', builder)
+      .send({
+        loads: [{ pinId: null, name: 'Single horn', currentA: 4, continuous: false }],
+        version: feed.version,
+      });
+    expect(updated.status).toBe(200);
+    expect(updated.body.feed.loads).toEqual([
+      expect.objectContaining({ name: 'Single horn', currentA: 4 }),
+    ]);
+    expect(updated.body.feed.version).toBe(feed.version + 1);
+    const stale = await request(ctx.app)
+      .patch(`/api/conversions/${draftId}/feeds/${feed.id}`)
+      .set('Authorization', builder)
+      .send({ fuseA: 40, version: feed.version });
+    expect(stale.status).toBe(409);
+    expect((await Feed.findByPk(feed.id))!.fuseA).toBe(15);
+    const removed = await request(ctx.app)
+      .delete(`/api/conversions/${draftId}/feeds/${feed.id}`)
+      .set('Authorization', builder);
+    expect(removed.status).toBe(204);
+    const audit = await AuditEvent.findAll({ where: { entityType: 'feed', entityId: feed.id } });
+    expect(audit.map((a) => a.action)).toEqual(['create', 'update', 'delete']);
+  });
+
+  it('unlinks pins joined to a deleted feed', async () => {
+    const created = await request(ctx.app)
+      .post(`/api/conversions/${draftId}/feeds`)
+      .set('Authorization', builder)
+      .send(feedBody({ name: 'Spare' }));
+    const pin = await Pin.findOne({ where: { conversionId: draftId, disposition: 'undecided' } });
+    await request(ctx.app)
+      .patch(`/api/pins/${pin!.id}`)
+      .set('Authorization', builder)
+      .send({ destinationFeedId: created.body.feed.id, version: pin!.version })
+      .expect(200);
+    await request(ctx.app)
+      .delete(`/api/conversions/${draftId}/feeds/${created.body.feed.id}`)
+      .set('Authorization', builder)
+      .expect(204);
+    expect((await Pin.findByPk(pin!.id))!.destinationFeedId).toBeNull();
+  });
+
+  it.each([
+    [
+      {
+        wire: {
+          sizeMm2: 0.8,
+          insulationRatingC: 105,
+          lengthM: 2,
+          zone: 'cabin',
+          bundled: 1,
+          returnPath: 'wire',
+          colour: '',
+        },
+      },
+      'wire.sizeMm2',
+    ],
+    [{ source: 'relay_output', sourceFeedId: null }, 'sourceFeedId'],
+    [{ fuseA: -5 }, 'fuseA'],
+    [{ dropClass: 'tight' }, 'dropClass'],
+    [{ loads: [{ pinId: null, name: 'x', currentA: -1, continuous: true }] }, 'loads.0.currentA'],
+    [{ colour: 'RD' }, '(body)'],
+  ])('answers 400 naming the field for %j', async (over, field) => {
+    const res = await request(ctx.app)
+      .post(`/api/conversions/${draftId}/feeds`)
+      .set('Authorization', builder)
+      .send(feedBody(over));
+    expect(res.status).toBe(400);
+    expect(res.body.error.details.map((d: { field: string }) => d.field)).toContain(field);
+  });
+
+  it('refuses references outside the conversion and loops of relay outputs', async () => {
+    const foreignPin = await Pin.findOne({
+      where: { conversionId: ctx.demo.conversions.signedOff },
+    });
+    const foreign = await request(ctx.app)
+      .post(`/api/conversions/${draftId}/feeds`)
+      .set('Authorization', builder)
+      .send(
+        feedBody({
+          name: 'Foreign',
+          loads: [{ pinId: foreignPin!.id, name: '', currentA: 1, continuous: true }],
+        }),
+      );
+    expect(foreign.status).toBe(400);
+    const a = (
+      await request(ctx.app)
+        .post(`/api/conversions/${draftId}/feeds`)
+        .set('Authorization', builder)
+        .send(feedBody({ name: 'Loop A' }))
+    ).body.feed;
+    const b = (
+      await request(ctx.app)
+        .post(`/api/conversions/${draftId}/feeds`)
+        .set('Authorization', builder)
+        .send(feedBody({ name: 'Loop B', source: 'relay_output', sourceFeedId: a.id }))
+    ).body.feed;
+    const loop = await request(ctx.app)
+      .patch(`/api/conversions/${draftId}/feeds/${a.id}`)
+      .set('Authorization', builder)
+      .send({ source: 'relay_output', sourceFeedId: b.id, version: a.version });
+    expect(loop.status).toBe(400);
+    expect(loop.body.error.message).toMatch(/loop/);
+    const inUse = await request(ctx.app)
+      .delete(`/api/conversions/${draftId}/feeds/${a.id}`)
+      .set('Authorization', builder);
+    expect(inUse.status).toBe(409);
+    const duplicate = await request(ctx.app)
+      .post(`/api/conversions/${draftId}/feeds`)
+      .set('Authorization', builder)
+      .send(feedBody({ name: 'Loop A' }));
+    expect(duplicate.status).toBe(409);
+  });
+
+  it('refuses the technician and reviewer (403) and other workshops (404)', async () => {
+    for (const role of ['technician', 'reviewer'] as const) {
+      const res = await request(ctx.app)
+        .post(`/api/conversions/${draftId}/feeds`)
+        .set('Authorization', await ctx.authFor(role))
+        .send(feedBody({ name: 'No' }));
+      expect(res.status).toBe(403);
+    }
+    const other = await createOtherWorkshop();
+    const res = await request(ctx.app)
+      .get(`/api/conversions/${draftId}/feeds`)
+      .set('Authorization', other.authFor('builder'));
+    expect(res.status).toBe(404);
+  });
+});
