@@ -23,15 +23,15 @@ const ECU_MAIN: DemoFeed = {
   wire: {
     sizeMm2: 1.5,
     insulationRatingC: 105,
-    lengthM: 1.5,
+    lengthM: 1,
     zone: 'engine_bay',
     bundled: 1,
     returnPath: 'wire',
     colour: 'RD',
   },
   loads: [
-    { pin: 'E2-2', name: 'ECU main feed 1', currentA: 4, continuous: true },
-    { pin: 'E2-3', name: 'ECU main feed 2', currentA: 4, continuous: true },
+    { pin: 'E2-2', name: 'ECU main feed 1', currentA: 5, continuous: true },
+    { pin: 'E2-3', name: 'ECU main feed 2', currentA: 5, continuous: true },
   ],
   dropClass: 'critical',
   dropLimitPct: null,
@@ -54,7 +54,9 @@ const IGNITION_COILS: DemoFeed = {
     returnPath: 'chassis',
     colour: 'RD/GN',
   },
-  loads: [{ pin: 'E1-37', name: 'Coil-on-plug supply, four coils', currentA: 8, continuous: true }],
+  loads: [
+    { pin: 'E1-37', name: 'Coil-on-plug supply, four coils', currentA: 10, continuous: true },
+  ],
   dropClass: 'general',
   dropLimitPct: null,
   notes: '',
@@ -99,7 +101,7 @@ const COOLING_FAN: DemoFeed = {
     colour: 'BU',
   },
   loads: [
-    { pin: null, name: 'Electric cooling fan (from the donor)', currentA: 20, continuous: true },
+    { pin: null, name: 'Electric cooling fan (from the donor)', currentA: 22, continuous: true },
   ],
   dropClass: 'general',
   dropLimitPct: null,
@@ -123,7 +125,12 @@ const DIAGNOSTIC: DemoFeed = {
     colour: 'RD/WH',
   },
   loads: [
-    { pin: 'DLC-16', name: 'Diagnostic connector battery +', currentA: 1, continuous: false },
+    {
+      pin: 'DLC-16',
+      name: 'Diagnostic connector battery +, tools plugged in',
+      currentA: 8,
+      continuous: false,
+    },
     { pin: 'E2-5', name: 'ECU memory', currentA: 0.2, continuous: true },
   ],
   dropClass: 'general',

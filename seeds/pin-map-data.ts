@@ -82,7 +82,7 @@ const E1: DemoConnector = {
       'join',
       'Feed: Ignition coils',
       1.2,
-      8,
+      10,
     ],
     ['38', '', 'none', '', null, 'empty', ''],
     ['39', '', 'none', '', null, 'empty', ''],
@@ -115,7 +115,7 @@ const E2: DemoConnector = {
       'join',
       'Feed: ECU main',
       1.5,
-      4,
+      5,
     ],
     [
       '3',
@@ -126,7 +126,7 @@ const E2: DemoConnector = {
       'join',
       'Feed: ECU main',
       1.5,
-      4,
+      5,
     ],
     ['4', 'Ignition switched input', 'switched_input', 'RD/BK', 0.5, 'join', 'V1-1'],
     [
@@ -287,7 +287,7 @@ const DLC: DemoConnector = {
       'join',
       'Feed: Diagnostic and memory',
       2.5,
-      1,
+      8,
     ],
   ],
 };

@@ -10,6 +10,8 @@ import { authenticate } from './middleware/authenticate.ts';
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
 import { requestContext, requireJsonForWrites } from './middleware/request-context.ts';
 import { authRoutes } from './modules/auth/auth.routes.ts';
+import { calcRoutes } from './modules/calc/calc.routes.ts';
+import { checksRoutes } from './modules/checks/checks.routes.ts';
 import { conversionsRoutes } from './modules/conversions/conversions.routes.ts';
 import { feedsRoutes } from './modules/feeds/feeds.routes.ts';
 import {
@@ -62,7 +64,15 @@ export function createApp({ env, clientDir }: AppOptions) {
   // Everything below needs a session; the role checks sit on each route.
   api.use('/workshop', authenticate, workshopRoutes);
   api.use('/users', authenticate, usersRoutes);
-  api.use('/conversions', authenticate, conversionsRoutes, conversionPinMapRoutes, feedsRoutes);
+  api.use(
+    '/conversions',
+    authenticate,
+    conversionsRoutes,
+    conversionPinMapRoutes,
+    feedsRoutes,
+    checksRoutes,
+  );
+  api.use('/calc', authenticate, calcRoutes);
   api.use('/connectors', authenticate, connectorRoutes);
   api.use('/pins', authenticate, pinRoutes);
   api.use(apiNotFound);

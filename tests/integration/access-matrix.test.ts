@@ -41,6 +41,8 @@ const ACCESS: Record<string, Role[] | typeof PUBLIC> = {
   'GET /api/conversions/:id/feeds/:feedId': ALL,
   'PATCH /api/conversions/:id/feeds/:feedId': WRITERS,
   'DELETE /api/conversions/:id/feeds/:feedId': WRITERS,
+  'POST /api/conversions/:id/checks': ALL,
+  'POST /api/calc/run': ALL,
 };
 
 let ctx: TestContext;

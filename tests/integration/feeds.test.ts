@@ -56,7 +56,7 @@ describe('feeds', () => {
       wire: { sizeMm2: 1, zone: 'engine_bay' },
       relay: { contactRatingA: 40 },
     });
-    expect(fan.loads[0]).toMatchObject({ currentA: 20, continuous: true });
+    expect(fan.loads[0]).toMatchObject({ currentA: 22, continuous: true });
   });
 
   it('creates, reads, updates with a version check and deletes a feed, auditing each', async () => {

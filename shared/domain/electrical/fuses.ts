@@ -87,6 +87,8 @@ export interface SmallestWireForFuseInput {
   bundled?: number;
   applyBundleDerating?: boolean;
   series: WireSeries;
+  /** False to skip sizes rated outside Table 5's rows (thinner than 18 AWG): what to suggest to a builder. */
+  allowExtrapolated?: boolean;
 }
 
 export interface WireForFuse extends SeriesSize {
@@ -100,11 +102,13 @@ export interface WireForFuse extends SeriesSize {
 export function smallestWireForFuse({
   fuseA,
   series,
+  allowExtrapolated = true,
   ...conditions
 }: SmallestWireForFuseInput): WireForFuse | null {
   requirePositive('fuseA', fuseA);
   for (const size of seriesSizes(series)) {
     const rating = wireAmpacity({ ...conditions, areaMm2: size.areaMm2 });
+    if (rating.extrapolated && !allowExtrapolated) continue;
     if (fuseProtectsWire(fuseA, rating.ampacityA)) {
       return {
         ...size,

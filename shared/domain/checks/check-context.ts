@@ -1,0 +1,141 @@
+/**
+ * Lookups the rules share: pins, connectors and feeds by id, which fuse protects each feed, and the
+ * current each feed carries (its own loads and those of the feeds its relay powers).
+ */
+import type { Finding, FindingValue } from '../../schemas/checks.schema.ts';
+import type { SizeUnit } from '../../schemas/workshop.schema.ts';
+import type {
+  ConversionSnapshot,
+  SnapshotConnector,
+  SnapshotFeed,
+  SnapshotPin,
+} from '../../schemas/snapshot.schema.ts';
+import { citeSources, type SourceId } from '../electrical/sources.ts';
+import { formatWireSize } from '../wire-sizes.ts';
+
+export interface CheckOptions {
+  /** The workshop's unit for sizes in messages and suggestions. */
+  sizeUnit: SizeUnit;
+}
+
+export interface FeedCurrent {
+  continuousA: number;
+  nonContinuousA: number;
+  totalA: number;
+  /** Feeds (this one first) whose loads make up the total. */
+  feedIds: number[];
+}
+
+export interface ProtectingFuse {
+  fuseA: number;
+  /** The feed whose fuse it is: this feed, or one up the chain of relay outputs. */
+  feedId: number;
+}
+
+/**
+ * Conductor temperature for voltage drop: the ambient the ampacity table assumes, 30 °C outside
+ * engine spaces and 50 °C inside (33 CFR 183.425 Table 5 and its note 1). A loaded wire runs warmer;
+ * the critical 3 % limit leaves room for that.
+ */
+export const CONDUCTOR_TEMP_C = { cabin: 30, engine_bay: 50 } as const;
+
+export class CheckContext {
+  readonly pins = new Map<number, SnapshotPin>();
+  readonly connectors = new Map<number, SnapshotConnector>();
+  readonly feeds = new Map<number, SnapshotFeed>();
+  private readonly feedsPoweredBy = new Map<number, SnapshotFeed[]>();
+
+  constructor(
+    readonly snapshot: ConversionSnapshot,
+    readonly options: CheckOptions,
+  ) {
+    for (const c of snapshot.connectors) this.connectors.set(c.id, c);
+    for (const p of snapshot.pins) this.pins.set(p.id, p);
+    for (const f of snapshot.feeds) this.feeds.set(f.id, f);
+    for (const f of snapshot.feeds) {
+      if (f.source === 'relay_output' && f.sourceFeedId != null) {
+        const list = this.feedsPoweredBy.get(f.sourceFeedId) ?? [];
+        list.push(f);
+        this.feedsPoweredBy.set(f.sourceFeedId, list);
+      }
+    }
+  }
+
+  get systemV(): number {
+    return this.snapshot.conversion.systemVoltage;
+  }
+
+  /** "E2-5": connector label and cavity. */
+  pinName(pinOrId: SnapshotPin | number): string {
+    const pin = typeof pinOrId === 'number' ? this.pins.get(pinOrId) : pinOrId;
+    if (!pin) return `pin ${String(pinOrId)}`;
+    return `${this.connectors.get(pin.connectorId)?.label ?? '?'}-${pin.cavity}`;
+  }
+
+  size(areaMm2: number): string {
+    return formatWireSize(areaMm2, this.options.sizeUnit);
+  }
+
+  /**
+   * The fuse that protects a feed's wire: its own, else the nearest one up the chain of relay
+   * outputs. Null when the chain reaches the battery or ignition without a fuse.
+   */
+  protectingFuse(feed: SnapshotFeed): ProtectingFuse | null {
+    const seen = new Set<number>();
+    for (let at: SnapshotFeed | undefined = feed; at && !seen.has(at.id);) {
+      seen.add(at.id);
+      if (at.fuseA != null) return { fuseA: at.fuseA, feedId: at.id };
+      if (at.source !== 'relay_output' || at.sourceFeedId == null) return null;
+      at = this.feeds.get(at.sourceFeedId);
+    }
+    return null;
+  }
+
+  /** The current through a feed's fuse and wire: its loads plus those of every feed it powers. */
+  current(feed: SnapshotFeed): FeedCurrent {
+    const result: FeedCurrent = { continuousA: 0, nonContinuousA: 0, totalA: 0, feedIds: [] };
+    const visit = (f: SnapshotFeed) => {
+      if (result.feedIds.includes(f.id)) return;
+      result.feedIds.push(f.id);
+      for (const load of f.loads) {
+        if (load.continuous) result.continuousA += load.currentA;
+        else result.nonContinuousA += load.currentA;
+      }
+      for (const downstream of this.feedsPoweredBy.get(f.id) ?? []) visit(downstream);
+    };
+    visit(feed);
+    result.totalA = result.continuousA + result.nonContinuousA;
+    return result;
+  }
+}
+
+const round = (n: number, places = 2) => Number(n.toFixed(places));
+
+export function value(
+  label: string,
+  v: number | string | boolean | null,
+  unit?: string,
+  places = 2,
+): FindingValue {
+  return { label, value: typeof v === 'number' ? round(v, places) : v, ...(unit ? { unit } : {}) };
+}
+
+/** Builds a finding with its sources cited once and joined into one line. */
+export function finding(
+  f: Omit<Finding, 'id' | 'source' | 'sources'> & { sourceIds: SourceId[] },
+): Finding {
+  const { sourceIds, ...rest } = f;
+  const sources = citeSources(sourceIds);
+  const subjectKey =
+    rest.subject.feedId != null
+      ? `feed-${rest.subject.feedId}`
+      : `pins-${(rest.subject.pinIds ?? []).join('.')}`;
+  return {
+    id: `${rest.rule}:${subjectKey}`,
+    ...rest,
+    source: sources.map((s) => s.citation).join('; '),
+    sources,
+  };
+}
+
+export const fmt = (n: number, places = 2) => String(round(n, places));

@@ -1,0 +1,50 @@
+import type { SourceRef } from '../domain/electrical/sources.ts';
+
+export const SEVERITIES = ['error', 'warning', 'note'] as const;
+export type Severity = (typeof SEVERITIES)[number];
+
+export const CHECK_RULES = [
+  'unfused_feed',
+  'fuse_protects_wire',
+  'load_within_fuse',
+  'fuse_larger_than_load_needs',
+  'feed_without_loads',
+  'relay_contact_load',
+  'voltage_drop',
+  'joined_wire_smaller_than_fuse_allows',
+  'joined_wire_size_missing',
+  'power_pin_unfused',
+  'sensor_ground_extra_ground',
+  'undecided_pins',
+  'destination_used_twice',
+] as const;
+export type CheckRule = (typeof CHECK_RULES)[number];
+
+/** One number (or word) of a finding's working, with its unit. */
+export interface FindingValue {
+  label: string;
+  value: number | string | boolean | null;
+  unit?: string;
+}
+
+export interface Finding {
+  /** Stable across runs for the same rule and subject. */
+  id: string;
+  rule: CheckRule;
+  severity: Severity;
+  subject: { pinIds?: number[]; feedId?: number };
+  title: string;
+  message: string;
+  values: Record<string, FindingValue>;
+  /** The working, one line per step, with the numbers put in. */
+  working: string[];
+  /** The published sources (or "common practice, no source"), as one line. */
+  source: string;
+  sources: SourceRef[];
+}
+
+export interface CheckReport {
+  findings: Finding[];
+  counts: Record<Severity, number>;
+  checkedAt: string;
+}

@@ -1,0 +1,87 @@
+import type { Feed } from '#shared/schemas/feeds.schema.ts';
+import type { ConversionSnapshot, SnapshotPin } from '#shared/schemas/snapshot.schema.ts';
+
+/** A small conversion for rule tests: one ECU connector (id 1) and one vehicle connector (id 2). */
+export function snapshot(
+  parts: { pins?: Partial<SnapshotPin>[]; feeds?: Partial<Omit<Feed, 'version'>>[] } = {},
+): ConversionSnapshot {
+  const pins: SnapshotPin[] = (parts.pins ?? []).map((p, i) => ({
+    id: i + 1,
+    connectorId: 1,
+    conversionId: 1,
+    cavity: String(i + 1),
+    position: i,
+    function: `Pin ${i + 1}`,
+    signalClass: 'none',
+    colour: '',
+    sizeMm2: 0.5,
+    insulationRatingC: 105,
+    disposition: 'keep',
+    destination: '',
+    destinationPinId: null,
+    destinationFeedId: null,
+    runLengthM: null,
+    loadCurrentA: null,
+    notes: '',
+    ...p,
+  }));
+  const feeds = (parts.feeds ?? []).map((f, i) => ({
+    id: i + 1,
+    conversionId: 1,
+    name: `Feed ${i + 1}`,
+    source: 'battery' as const,
+    sourceFeedId: null,
+    fuseA: 15,
+    relay: null,
+    wire: {
+      sizeMm2: 1.5,
+      insulationRatingC: 105,
+      lengthM: 1,
+      zone: 'cabin' as const,
+      bundled: 1,
+      returnPath: 'wire' as const,
+      colour: '',
+    },
+    loads: [{ id: i + 1, pinId: null, name: 'Load', currentA: 8, continuous: true }],
+    dropClass: 'general' as const,
+    dropLimitPct: null,
+    notes: '',
+    ...f,
+  }));
+  return {
+    format: 1,
+    conversion: {
+      id: 1,
+      name: 'Test',
+      donorEngine: 'KT-20',
+      receivingVehicle: 'Corran 100',
+      systemVoltage: 12,
+      notes: '',
+    },
+    workshop: { id: 1, name: 'Harrow Lane Engine Works' },
+    connectors: [
+      {
+        id: 1,
+        conversionId: 1,
+        label: 'E1',
+        side: 'ecu',
+        cavityCount: 40,
+        rows: 2,
+        columns: 20,
+        notes: '',
+      },
+      {
+        id: 2,
+        conversionId: 1,
+        label: 'V1',
+        side: 'vehicle',
+        cavityCount: 12,
+        rows: 2,
+        columns: 6,
+        notes: '',
+      },
+    ],
+    pins,
+    feeds,
+  };
+}
