@@ -4,7 +4,14 @@ import { RequireRight, RequireSession } from './layout/require-session.tsx';
 import { AccountRoute } from './routes/account.tsx';
 import { ConversionLayout } from './routes/conversion/layout.tsx';
 import { ConversionOverviewRoute } from './routes/conversion/overview.tsx';
+import { ConversionChecksRoute } from './routes/conversion/checks.tsx';
+import { ConversionFeedsRoute } from './routes/conversion/feeds.tsx';
+import { ConversionFilesRoute } from './routes/conversion/files.tsx';
+import { ConversionHistoryRoute } from './routes/conversion/history.tsx';
 import { ConversionPinMapRoute } from './routes/conversion/pin-map.tsx';
+import { ConversionRevisionsRoute } from './routes/conversion/revisions.tsx';
+import { CalculatorRoute } from './routes/calculator.tsx';
+import { LibraryRoute } from './routes/library.tsx';
 import { ConversionsRoute } from './routes/conversions.tsx';
 import { NotFoundRoute, RouteError } from './routes/route-error.tsx';
 import { SettingsRoute } from './routes/settings.tsx';
@@ -25,9 +32,16 @@ const router = createBrowserRouter([
         children: [
           { index: true, element: <ConversionOverviewRoute /> },
           { path: 'pins', element: <ConversionPinMapRoute /> },
+          { path: 'feeds', element: <ConversionFeedsRoute /> },
+          { path: 'checks', element: <ConversionChecksRoute /> },
+          { path: 'files', element: <ConversionFilesRoute /> },
+          { path: 'revisions/*', element: <ConversionRevisionsRoute /> },
+          { path: 'history', element: <ConversionHistoryRoute /> },
         ],
       },
       { path: paths.account.path, element: <AccountRoute /> },
+      { path: paths.calculator.path, element: <CalculatorRoute /> },
+      { path: paths.library.path, element: <LibraryRoute /> },
       {
         element: <RequireRight right="users:manage" />,
         children: [{ path: paths.users.path, element: <UsersRoute /> }],

@@ -14,6 +14,35 @@ export const paths = {
     path: '/conversions/:conversionId/pins',
     getHref: (id: number | string) => `/conversions/${id}/pins`,
   },
+  conversionFeeds: {
+    path: '/conversions/:conversionId/feeds',
+    getHref: (id: number | string) => `/conversions/${id}/feeds`,
+  },
+  conversionChecks: {
+    path: '/conversions/:conversionId/checks',
+    getHref: (id: number | string, focus?: string) =>
+      `/conversions/${id}/checks${focus ? `#${encodeURIComponent(focus)}` : ''}`,
+  },
+  conversionFiles: {
+    path: '/conversions/:conversionId/files',
+    getHref: (id: number | string) => `/conversions/${id}/files`,
+  },
+  conversionRevisions: {
+    path: '/conversions/:conversionId/revisions',
+    getHref: (id: number | string) => `/conversions/${id}/revisions`,
+  },
+  conversionRevision: {
+    path: '/conversions/:conversionId/revisions/:number',
+    getHref: (id: number | string, number: number | string) =>
+      `/conversions/${id}/revisions/${number}`,
+  },
+  conversionHistory: {
+    path: '/conversions/:conversionId/history',
+    getHref: (id: number | string) => `/conversions/${id}/history`,
+  },
+  calculator: { path: '/calculator', getHref: () => '/calculator' },
+  library: { path: '/library', getHref: () => '/library' },
+  outbox: { path: '/admin/outbox', getHref: () => '/admin/outbox' },
   users: { path: '/admin/users', getHref: () => '/admin/users' },
   settings: { path: '/admin/settings', getHref: () => '/admin/settings' },
   account: { path: '/account', getHref: () => '/account' },

@@ -38,6 +38,8 @@ export function AppShell({ user, children }: { user: SessionUser; children: Reac
           </a>
           <nav aria-label="Main" className="flex flex-wrap gap-1">
             <NavItem to={paths.conversions.getHref()}>Conversions</NavItem>
+            <NavItem to={paths.library.getHref()}>Pinout library</NavItem>
+            <NavItem to={paths.calculator.getHref()}>Calculator</NavItem>
             {can(user.role, 'users:manage') ? (
               <NavItem to={paths.users.getHref()}>People</NavItem>
             ) : null}

@@ -72,6 +72,11 @@ export function ConversionLayout() {
           Overview
         </SectionLink>
         <SectionLink to={paths.conversionPins.getHref(id)}>Pin map</SectionLink>
+        <SectionLink to={paths.conversionFeeds.getHref(id)}>Feeds</SectionLink>
+        <SectionLink to={paths.conversionChecks.getHref(id)}>Checks</SectionLink>
+        <SectionLink to={paths.conversionRevisions.getHref(id)}>Revisions</SectionLink>
+        <SectionLink to={paths.conversionFiles.getHref(id)}>Import &amp; files</SectionLink>
+        <SectionLink to={paths.conversionHistory.getHref(id)}>History</SectionLink>
       </nav>
       <Outlet context={c} />
     </>

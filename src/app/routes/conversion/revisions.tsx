@@ -1,0 +1,7 @@
+import { useOutletContext } from 'react-router';
+import type { Conversion } from '#shared/schemas/conversions.schema.ts';
+
+export function ConversionRevisionsRoute() {
+  const c = useOutletContext<Conversion>();
+  return <p className="text-ink-soft">{c.name}: this section is being built.</p>;
+}
