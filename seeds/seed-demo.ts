@@ -1,15 +1,18 @@
 import bcrypt from 'bcryptjs';
-import type { Sequelize } from 'sequelize';
-import type { Transaction } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
+import { checkReport } from '#shared/domain/checks/run-checks.ts';
+import { revisionHash } from '#shared/domain/revisions/content-hash.ts';
 import {
   Connector,
   Conversion,
   Feed,
   FeedLoad,
   Pin,
+  Revision,
   User,
   Workshop,
 } from '../server/db/models/index.ts';
+import { loadConversionSnapshot } from '../server/modules/checks/snapshot.service.ts';
 import { DEMO_CONVERSIONS, DEMO_USERS, DEMO_WORKSHOP } from './demo-data.ts';
 import { DRAFT_FEEDS, SIGNED_OFF_FEEDS, type DemoFeed } from './feeds-data.ts';
 import { DRAFT_CONNECTORS, SIGNED_OFF_CONNECTORS, type DemoConnector } from './pin-map-data.ts';
@@ -55,6 +58,7 @@ export async function seedDemo(
     );
     const signedOffPins = await seedPinMap(signedOff.id, SIGNED_OFF_CONNECTORS, transaction);
     await seedFeeds(signedOff.id, SIGNED_OFF_FEEDS, signedOffPins, transaction);
+    await seedSignedOffRevision(workshop.id, signedOff.id, users, transaction);
     const draftPins = await seedPinMap(draft.id, DRAFT_CONNECTORS, transaction);
     await seedFeeds(draft.id, DRAFT_FEEDS, draftPins, transaction);
     return {
@@ -193,4 +197,45 @@ async function seedFeeds(
       );
     }
   }
+}
+
+/**
+ * Revision 1 of the signed-off conversion: submitted by the builder a week ago and signed off by the
+ * reviewer two days later, frozen with its findings and hash exactly as the review service does.
+ */
+async function seedSignedOffRevision(
+  workshopId: number,
+  conversionId: number,
+  users: Record<string, number>,
+  transaction: Transaction,
+) {
+  const snapshot = await loadConversionSnapshot({ workshopId }, conversionId, transaction);
+  const { findings } = checkReport(snapshot, { sizeUnit: 'mm2' });
+  if (findings.some((f) => f.severity === 'error')) {
+    throw new Error('the signed-off demo conversion must pass its checks');
+  }
+  const builder = await User.findByPk(users.builder!, { transaction });
+  const reviewer = await User.findByPk(users.reviewer!, { transaction });
+  const submittedAt = new Date(Date.now() - 7 * 86_400_000);
+  const signedAt = new Date(Date.now() - 5 * 86_400_000);
+  await Revision.create(
+    {
+      conversionId,
+      number: 1,
+      status: 'signed_off',
+      snapshotJson: JSON.stringify(snapshot),
+      findingsJson: JSON.stringify(findings),
+      hash: await revisionHash(snapshot, findings),
+      submittedById: builder!.id,
+      submittedByName: builder!.name,
+      submittedAt,
+      reviewedById: reviewer!.id,
+      reviewedByName: reviewer!.name,
+      reviewedAt: signedAt,
+      signedAt,
+      reviewComment:
+        'Checked against the donor pinout sheet. Fuel pump wire upsized to 4 mm² as discussed.',
+    },
+    { transaction },
+  );
 }

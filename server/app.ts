@@ -10,15 +10,18 @@ import { authenticate } from './middleware/authenticate.ts';
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
 import { requestContext, requireJsonForWrites } from './middleware/request-context.ts';
 import { authRoutes } from './modules/auth/auth.routes.ts';
+import { auditRoutes } from './modules/audit/audit.routes.ts';
 import { calcRoutes } from './modules/calc/calc.routes.ts';
 import { checksRoutes } from './modules/checks/checks.routes.ts';
 import { conversionsRoutes } from './modules/conversions/conversions.routes.ts';
 import { feedsRoutes } from './modules/feeds/feeds.routes.ts';
+import { mailRoutes } from './modules/mail/mail.routes.ts';
 import {
   connectorRoutes,
   conversionPinMapRoutes,
   pinRoutes,
 } from './modules/pin-map/pin-map.routes.ts';
+import { revisionsRoutes } from './modules/revisions/revisions.routes.ts';
 import { usersRoutes } from './modules/users/users.routes.ts';
 import { workshopRoutes } from './modules/workshop/workshop.routes.ts';
 
@@ -71,7 +74,10 @@ export function createApp({ env, clientDir }: AppOptions) {
     conversionPinMapRoutes,
     feedsRoutes,
     checksRoutes,
+    revisionsRoutes,
+    auditRoutes,
   );
+  api.use('/admin', authenticate, mailRoutes);
   api.use('/calc', authenticate, calcRoutes);
   api.use('/connectors', authenticate, connectorRoutes);
   api.use('/pins', authenticate, pinRoutes);

@@ -6,6 +6,7 @@ import { createApp } from './app.ts';
 import { EnvError, loadEnv } from './config/env.ts';
 import { closeDatabase, connectDatabase } from './db/index.ts';
 import { logger } from './lib/logger.ts';
+import { startMail } from './modules/mail/mail-setup.ts';
 
 const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -17,6 +18,7 @@ async function main() {
     await seedDemo(sequelize, { password: env.DEMO_PASSWORD, bcryptCost: env.BCRYPT_COST });
     logger.info({ database: env.DATABASE_PATH }, 'seeded the demo workshop');
   }
+  const stopMail = await startMail(env);
   const app = createApp({ env, clientDir: path.join(projectRoot, 'dist') });
   const server = app.listen(env.PORT, env.HOST, () => {
     const url = `http://localhost:${env.PORT}`;
@@ -32,7 +34,9 @@ async function main() {
   const shutdown = (signal: string) => {
     logger.info({ signal }, 'shutting down');
     server.close(() => {
-      void closeDatabase().finally(() => process.exit(0));
+      void stopMail()
+        .then(closeDatabase)
+        .finally(() => process.exit(0));
     });
     setTimeout(() => process.exit(0), 5000).unref();
   };

@@ -31,6 +31,17 @@ const EnvSchema = z.object({
   LOGIN_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).max(1000).default(10),
   /** Public address of the app, used in links inside e-mails. */
   PUBLIC_URL: z.string().url().optional(),
+  /** Outgoing mail. Without SMTP_HOST, demo mode starts a local fake SMTP server instead. */
+  SMTP_HOST: z.string().min(1).optional(),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
+  SMTP_SECURE: flag.default(false),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASS: z.string().optional(),
+  MAIL_FROM: z.string().min(3).default('Loomwright <loomwright@localhost>'),
+  /** Port of the local fake SMTP server in demo mode (0 picks a free one). */
+  FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  /** How often queued notices are sent, ms. */
+  OUTBOX_INTERVAL_MS: z.coerce.number().int().min(200).max(600_000).default(3000),
   LOG_LEVEL: z.enum(['silent', 'fatal', 'error', 'warn', 'info', 'debug']).default('info'),
 });
 

@@ -37,3 +37,9 @@ export const ChangePasswordRequest = z.strictObject({
   newPassword: z.string().min(1, 'is required').max(1024),
 });
 export type ChangePasswordRequest = z.infer<typeof ChangePasswordRequest>;
+
+export const SetPasswordRequest = z.strictObject({
+  token: z.string().min(20).max(200),
+  password: z.string().min(1, 'is required').max(1024),
+});
+export type SetPasswordRequest = z.infer<typeof SetPasswordRequest>;

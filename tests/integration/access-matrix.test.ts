@@ -43,6 +43,19 @@ const ACCESS: Record<string, Role[] | typeof PUBLIC> = {
   'DELETE /api/conversions/:id/feeds/:feedId': WRITERS,
   'POST /api/conversions/:id/checks': ALL,
   'POST /api/calc/run': ALL,
+  'POST /api/auth/set-password': PUBLIC,
+  'GET /api/conversions/:id/revisions': ALL,
+  'POST /api/conversions/:id/revisions': WRITERS,
+  'GET /api/conversions/:id/revisions/:number': ALL,
+  'PUT /api/conversions/:id/revisions/:number': ALL,
+  'PATCH /api/conversions/:id/revisions/:number': ALL,
+  'DELETE /api/conversions/:id/revisions/:number': ALL,
+  'GET /api/conversions/:id/revisions/:number/verify': ALL,
+  'POST /api/conversions/:id/revisions/:number/sign-off': ['reviewer'],
+  'POST /api/conversions/:id/revisions/:number/send-back': ['reviewer'],
+  'POST /api/conversions/:id/revisions/:number/comments': ['reviewer', 'builder', 'admin'],
+  'GET /api/conversions/:id/audit': ['admin', 'reviewer', 'builder'],
+  'GET /api/admin/outbox': ['admin'],
 };
 
 let ctx: TestContext;

@@ -3,6 +3,7 @@ import { SequelizeStorage, Umzug } from 'umzug';
 import { foundation } from './0001-foundation.ts';
 import { pinMap } from './0002-pin-map.ts';
 import { feeds } from './0003-feeds.ts';
+import { reviews } from './0005-reviews.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -15,7 +16,7 @@ export interface Migration {
 }
 
 /** Every migration in order. Add new ones at the end; never edit one that has shipped. */
-export const MIGRATIONS: Migration[] = [foundation, pinMap, feeds];
+export const MIGRATIONS: Migration[] = [foundation, pinMap, feeds, reviews];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {
   const umzug = new Umzug<Sequelize>({

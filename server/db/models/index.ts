@@ -3,11 +3,26 @@ import { AuditEvent } from './audit-event.model.ts';
 import { Connector } from './connector.model.ts';
 import { Conversion } from './conversion.model.ts';
 import { Feed, FeedLoad } from './feed.model.ts';
+import { Invitation, MailOutbox } from './mail.model.ts';
+import { ReviewComment, Revision } from './revision.model.ts';
 import { Pin } from './pin.model.ts';
 import { User } from './user.model.ts';
 import { Workshop } from './workshop.model.ts';
 
-export { AuditEvent, Connector, Conversion, Feed, FeedLoad, Pin, User, Workshop };
+export {
+  AuditEvent,
+  Connector,
+  Conversion,
+  Feed,
+  FeedLoad,
+  Invitation,
+  MailOutbox,
+  Pin,
+  ReviewComment,
+  Revision,
+  User,
+  Workshop,
+};
 
 /**
  * Binds the model classes to one database. Sequelize model classes are process-wide, so a process
@@ -22,6 +37,10 @@ export function initModels(sequelize: Sequelize) {
   Pin.initModel(sequelize);
   Feed.initModel(sequelize);
   FeedLoad.initModel(sequelize);
+  Revision.initModel(sequelize);
+  ReviewComment.initModel(sequelize);
+  MailOutbox.initModel(sequelize);
+  Invitation.initModel(sequelize);
 
   Workshop.hasMany(User, { foreignKey: 'workshopId' });
   User.belongsTo(Workshop, { foreignKey: 'workshopId' });
@@ -37,4 +56,5 @@ export function initModels(sequelize: Sequelize) {
   Feed.belongsTo(Conversion, { foreignKey: 'conversionId' });
   Feed.hasMany(FeedLoad, { as: 'loads', foreignKey: 'feedId' });
   FeedLoad.belongsTo(Feed, { foreignKey: 'feedId' });
+  Revision.hasMany(ReviewComment, { as: 'comments', foreignKey: 'revisionId' });
 }

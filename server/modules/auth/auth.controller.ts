@@ -1,9 +1,14 @@
 import type { CookieOptions, Request, Response } from 'express';
-import type { ChangePasswordRequest, LoginRequest } from '#shared/schemas/auth.schema.ts';
+import type {
+  ChangePasswordRequest,
+  LoginRequest,
+  SetPasswordRequest,
+} from '#shared/schemas/auth.schema.ts';
 import { config } from '../../config/runtime.ts';
 import { actorOf } from '../../lib/actor.ts';
 import { logger } from '../../lib/logger.ts';
 import * as authService from './auth.service.ts';
+import { acceptInvitation } from './invitations.service.ts';
 import { SECURE_SESSION_COOKIE, SESSION_COOKIE } from './tokens.ts';
 
 function cookieFor(req: Request): { name: string; options: CookieOptions } {
@@ -61,4 +66,12 @@ export async function changePassword(req: Request, res: Response) {
   const { token } = await authService.changePassword(actorOf(req), currentPassword, newPassword);
   setSessionCookie(req, res, token);
   res.json({ token });
+}
+
+export async function setPassword(req: Request, res: Response) {
+  const { token, password } = req.body as SetPasswordRequest;
+  const session = await acceptInvitation(token, password);
+  logger.info({ requestId: req.requestId, userId: session.user.id }, 'invitation accepted');
+  setSessionCookie(req, res, session.token);
+  res.json(session);
 }

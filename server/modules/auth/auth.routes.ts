@@ -1,6 +1,10 @@
 import { Router } from 'express';
 import { ipKeyGenerator, rateLimit, type Options } from 'express-rate-limit';
-import { ChangePasswordRequest, LoginRequest } from '#shared/schemas/auth.schema.ts';
+import {
+  ChangePasswordRequest,
+  LoginRequest,
+  SetPasswordRequest,
+} from '#shared/schemas/auth.schema.ts';
 import type { Env } from '../../config/env.ts';
 import { AppError } from '../../lib/errors.ts';
 import { authenticate } from '../../middleware/authenticate.ts';
@@ -66,6 +70,12 @@ export function authRoutes(env: Env): Router {
     failedByEmail,
     validate({ body: LoginRequest }),
     controller.login,
+  );
+  router.post(
+    '/set-password',
+    failedByAddress,
+    validate({ body: SetPasswordRequest }),
+    controller.setPassword,
   );
   router.post('/logout', authenticate, controller.logout);
   router.get('/me', authenticate, controller.me);

@@ -7,10 +7,12 @@ import type {
 import { db } from '../../db/index.ts';
 import { User } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
-import { AppError, badRequest, notFound } from '../../lib/errors.ts';
+import { AppError, notFound } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { changedFields, recordAudit } from '../audit/audit.service.ts';
+import { inviteUser } from '../auth/invitations.service.ts';
 import { assertAcceptablePassword, hashPassword } from '../auth/passwords.ts';
+import { kickMail } from '../mail/outbox.service.ts';
 
 export function toUserSummary(user: User): UserSummary {
   return {
@@ -31,13 +33,14 @@ export async function listUsers(actor: Actor): Promise<UserSummary[]> {
   return users.map(toUserSummary);
 }
 
+/**
+ * Adds a person. With a first password they can sign in at once; without one they get an e-mailed
+ * invitation with a one-time link to set their own (the e-mail goes through the outbox).
+ */
 export async function createUser(actor: Actor, input: CreateUserRequest): Promise<UserSummary> {
-  if (!input.password) {
-    throw badRequest('password: is required', [{ field: 'password', message: 'is required' }]);
-  }
-  assertAcceptablePassword(input.password);
-  const passwordHash = await hashPassword(input.password);
-  return inTransaction(db(), async (t) => {
+  if (input.password) assertAcceptablePassword(input.password);
+  const passwordHash = input.password ? await hashPassword(input.password) : null;
+  const created = await inTransaction(db(), async (t) => {
     const taken = await User.findOne({ where: { email: input.email }, transaction: t });
     if (taken) throw new AppError(409, 'duplicate', 'A user with that e-mail already exists.');
     const user = await User.create(
@@ -55,10 +58,13 @@ export async function createUser(actor: Actor, input: CreateUserRequest): Promis
       entityType: 'user',
       entityId: user.id,
       summary: `Added ${user.name} (${user.email}) as ${user.role}`,
-      after: { email: user.email, name: user.name, role: user.role },
+      after: { email: user.email, name: user.name, role: user.role, invited: !passwordHash },
     });
+    if (!passwordHash) await inviteUser(t, actor, user);
     return toUserSummary(user);
   });
+  kickMail();
+  return created;
 }
 
 export async function updateUser(

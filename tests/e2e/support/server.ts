@@ -9,6 +9,8 @@ process.env.PORT = process.env.E2E_PORT ?? '3100';
 process.env.DEMO = 'true';
 process.env.NODE_ENV = 'production';
 process.env.LOG_LEVEL = 'warn';
+process.env.FAKE_SMTP_PORT ??= '0';
+process.env.OUTBOX_INTERVAL_MS ??= '500';
 // Sign-ins in the suite come from one address; the limit itself is covered by the API tests.
 process.env.LOGIN_LIMIT_PER_MINUTE = '200';
 await import('../../../server/index.ts');

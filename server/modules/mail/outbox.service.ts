@@ -1,0 +1,170 @@
+import nodemailer, { type Transporter } from 'nodemailer';
+import { Op, type Transaction } from 'sequelize';
+import { EmailSchema } from '#shared/schemas/auth.schema.ts';
+import { MailOutbox } from '../../db/models/index.ts';
+import { logger } from '../../lib/logger.ts';
+import type { FakeSmtp } from './fake-smtp.ts';
+
+export interface MailSettings {
+  host: string;
+  port: number;
+  secure: boolean;
+  user?: string;
+  pass?: string;
+  from: string;
+}
+
+const MAX_ATTEMPTS = 12;
+
+let transport: Transporter | null = null;
+let fromAddress = 'Loomwright <loomwright@localhost>';
+let fakeSmtp: FakeSmtp | null = null;
+
+/** Points the outbox at an SMTP server (real, or the local fake in demo mode and tests). */
+export function configureMail(settings: MailSettings | null, fake: FakeSmtp | null = null): void {
+  transport?.close();
+  transport = settings
+    ? nodemailer.createTransport({
+        host: settings.host,
+        port: settings.port,
+        secure: settings.secure,
+        auth: settings.user ? { user: settings.user, pass: settings.pass ?? '' } : undefined,
+        // A local fake speaks plain SMTP; real servers negotiate TLS as usual.
+        ignoreTLS: fake !== null,
+        connectionTimeout: 5000,
+        greetingTimeout: 5000,
+        socketTimeout: 10000,
+      })
+    : null;
+  if (settings) fromAddress = settings.from;
+  fakeSmtp = fake;
+}
+
+export function fakeInbox(): FakeSmtp | null {
+  return fakeSmtp;
+}
+
+export interface Notice {
+  workshopId: number;
+  kind: string;
+  to: string;
+  subject: string;
+  text: string;
+}
+
+/**
+ * Queues a notice in the caller's transaction, so it exists exactly when the event does. The
+ * address must be one plain address: no display name, CR, LF, comma or semicolon.
+ */
+export async function queueMail(t: Transaction, notice: Notice): Promise<void> {
+  const to = EmailSchema.parse(notice.to);
+  await MailOutbox.create(
+    {
+      workshopId: notice.workshopId,
+      kind: notice.kind,
+      toAddress: to,
+      subject: notice.subject.replace(/[\r\n]+/g, ' ').slice(0, 200),
+      textBody: notice.text,
+      nextAttemptAt: new Date(),
+    },
+    { transaction: t },
+  );
+}
+
+let queue: Promise<unknown> = Promise.resolve();
+
+/**
+ * Sends every due notice once: a row is claimed (pending → sending) before it goes out, marked sent
+ * after, and put back with a later attempt time when the server is unreachable. Returns how many
+ * went out. Runs one at a time: a call made during a run gets its own pass after it, so a notice
+ * queued meanwhile is not missed.
+ */
+export function deliverDueMail(): Promise<number> {
+  const pass = queue.then(deliver, deliver);
+  queue = pass.catch(() => undefined);
+  return pass;
+}
+
+async function deliver(): Promise<number> {
+  if (!transport) return 0;
+  const due = await MailOutbox.findAll({
+    where: { status: 'pending', nextAttemptAt: { [Op.lte]: new Date() } },
+    order: [['id', 'ASC']],
+    limit: 50,
+  });
+  let sent = 0;
+  for (const row of due) {
+    const [claimed] = await MailOutbox.update(
+      { status: 'sending' },
+      { where: { id: row.id, status: 'pending' } },
+    );
+    if (claimed !== 1) continue;
+    try {
+      const info = await transport.sendMail({
+        from: fromAddress,
+        to: row.toAddress,
+        subject: row.subject,
+        text: row.textBody,
+      });
+      await MailOutbox.update(
+        {
+          status: 'sent',
+          sentAt: new Date(),
+          messageId: String(info.messageId ?? ''),
+          attempts: row.attempts + 1,
+          // A sent invitation's one-time link is not kept anywhere.
+          ...(row.kind === 'invitation'
+            ? { textBody: '[sent; the one-time link is not kept]' }
+            : {}),
+        },
+        { where: { id: row.id } },
+      );
+      sent += 1;
+    } catch (err) {
+      const attempts = row.attempts + 1;
+      const delayS = Math.min(15 * 60, 5 * 2 ** (attempts - 1));
+      await MailOutbox.update(
+        {
+          status: attempts >= MAX_ATTEMPTS ? 'failed' : 'pending',
+          attempts,
+          lastError: (err as Error).message.slice(0, 300),
+          nextAttemptAt: new Date(Date.now() + delayS * 1000),
+        },
+        { where: { id: row.id } },
+      );
+      logger.warn(
+        { outboxId: row.id, attempts, err: (err as Error).message },
+        'mail not sent; will retry',
+      );
+    }
+  }
+  return sent;
+}
+
+let timer: NodeJS.Timeout | null = null;
+
+/** Sends due mail every `intervalMs`; `kickMail()` sends at once after a commit. */
+export function startOutboxWorker(intervalMs: number): void {
+  stopOutboxWorker();
+  timer = setInterval(
+    () => void deliverDueMail().catch((err) => logger.error({ err }, 'outbox run failed')),
+    intervalMs,
+  );
+  timer.unref();
+}
+
+export function stopOutboxWorker(): void {
+  if (timer) clearInterval(timer);
+  timer = null;
+}
+
+export function kickMail(): void {
+  setImmediate(
+    () => void deliverDueMail().catch((err) => logger.error({ err }, 'outbox run failed')),
+  );
+}
+
+/** Rows stuck in 'sending' after a crash go back to pending at start. */
+export async function recoverOutbox(): Promise<void> {
+  await MailOutbox.update({ status: 'pending' }, { where: { status: 'sending' } });
+}

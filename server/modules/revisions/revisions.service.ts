@@ -1,0 +1,444 @@
+import { Op, type Transaction } from 'sequelize';
+import { checkReport } from '#shared/domain/checks/run-checks.ts';
+import {
+  canonicalRevisionContent,
+  revisionHash,
+  sha256Hex,
+} from '#shared/domain/revisions/content-hash.ts';
+import { diffSnapshots } from '#shared/domain/revisions/diff.ts';
+import type { CheckReport, Finding } from '#shared/schemas/checks.schema.ts';
+import {
+  REVISION_STATUS_LABELS,
+  type ReviewComment as ReviewCommentDto,
+  type ReviewCommentRequest,
+  type RevisionDetail,
+  type RevisionSummary,
+  type SendBackRequest,
+  type SignOffRequest,
+  type SubmitRevisionRequest,
+} from '#shared/schemas/revisions.schema.ts';
+import type { ConversionSnapshot } from '#shared/schemas/snapshot.schema.ts';
+import { config } from '../../config/runtime.ts';
+import { db } from '../../db/index.ts';
+import { Conversion, ReviewComment, Revision, User, Workshop } from '../../db/models/index.ts';
+import type { Actor } from '../../lib/actor.ts';
+import { AppError, forbidden, notFound, unprocessable } from '../../lib/errors.ts';
+import { inTransaction } from '../../lib/transaction.ts';
+import { recordAudit } from '../audit/audit.service.ts';
+import { loadConversionSnapshot } from '../checks/snapshot.service.ts';
+import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
+import { kickMail, queueMail } from '../mail/outbox.service.ts';
+
+function countsOf(findings: Finding[]): CheckReport['counts'] {
+  const counts = { error: 0, warning: 0, note: 0 };
+  for (const f of findings) counts[f.severity] += 1;
+  return counts;
+}
+
+const iso = (d: Date | null | undefined) => (d ? new Date(d).toISOString() : null);
+
+function toSummary(r: Revision): RevisionSummary {
+  return {
+    number: r.number,
+    status: r.status,
+    hash: r.hash,
+    submittedBy: r.submittedByName,
+    submittedAt: iso(r.submittedAt)!,
+    reviewedBy: r.reviewedByName ?? null,
+    reviewedAt: iso(r.reviewedAt),
+    signedAt: iso(r.signedAt),
+    reviewComment: r.reviewComment,
+    counts: countsOf(JSON.parse(r.findingsJson) as Finding[]),
+    version: r.version,
+  };
+}
+
+function link(conversionId: number, number: number): string {
+  const base = config().PUBLIC_URL ?? `http://localhost:${config().PORT}`;
+  return `${base.replace(/\/$/, '')}/conversions/${conversionId}/revisions/${number}`;
+}
+
+async function findRevision(
+  actor: Actor,
+  conversionId: number,
+  number: number,
+  t?: Transaction,
+): Promise<Revision> {
+  await findConversionInWorkshop(actor, conversionId, t);
+  const revision = await Revision.findOne({ where: { conversionId, number }, transaction: t });
+  if (!revision) throw notFound(`Revision ${number}`);
+  return revision;
+}
+
+export async function listRevisions(
+  actor: Actor,
+  conversionId: number,
+): Promise<RevisionSummary[]> {
+  await findConversionInWorkshop(actor, conversionId);
+  const revisions = await Revision.findAll({
+    where: { conversionId },
+    order: [['number', 'DESC']],
+  });
+  return revisions.map(toSummary);
+}
+
+/**
+ * Freezes the plan as revision N for review. Refused with 422 and the reasons while any pin is
+ * undecided or any check finding is an error, and with 409 while another revision awaits review.
+ */
+export async function submitRevision(
+  actor: Actor,
+  conversionId: number,
+  input: SubmitRevisionRequest,
+): Promise<RevisionSummary> {
+  const summary = await inTransaction(db(), async (t) => {
+    const conversion = await findConversionInWorkshop(actor, conversionId, t);
+    const waiting = await Revision.findOne({
+      where: { conversionId, status: 'in_review' },
+      transaction: t,
+    });
+    if (waiting) {
+      throw new AppError(
+        409,
+        'review_pending',
+        `Revision ${waiting.number} is still waiting for review. It must be signed off or sent back before another is submitted.`,
+      );
+    }
+    const snapshot = await loadConversionSnapshot(actor, conversionId, t);
+    const workshop = await Workshop.findByPk(actor.workshopId, { transaction: t });
+    const { findings } = checkReport(snapshot, { sizeUnit: workshop?.sizeUnit ?? 'mm2' });
+    const errors = findings.filter((f) => f.severity === 'error');
+    if (errors.length) {
+      throw unprocessable(
+        'checks_failed',
+        `This plan cannot go for review yet: ${errors.length} ${errors.length === 1 ? 'problem' : 'problems'} must be fixed first.`,
+        errors.map((f) => ({ rule: f.rule, message: f.message, subject: f.subject })),
+      );
+    }
+    const last = await Revision.max<number, Revision>('number', {
+      where: { conversionId },
+      transaction: t,
+    });
+    const number = (last ?? 0) + 1;
+    const hash = await revisionHash(snapshot, findings);
+    const now = new Date();
+    const revision = await Revision.create(
+      {
+        conversionId,
+        number,
+        status: 'in_review',
+        snapshotJson: JSON.stringify(snapshot),
+        findingsJson: JSON.stringify(findings),
+        hash,
+        submittedById: actor.id,
+        submittedByName: actor.name,
+        submittedAt: now,
+        reviewComment: input.note ?? '',
+      },
+      { transaction: t },
+    );
+    await recordAudit(t, actor, {
+      conversionId,
+      action: 'submit',
+      entityType: 'revision',
+      entityId: revision.id,
+      summary: `Submitted revision ${number} for review (hash ${hash.slice(0, 12)})`,
+      after: { number, hash, warnings: countsOf(findings).warning },
+    });
+    const reviewers = await User.findAll({
+      where: {
+        workshopId: actor.workshopId,
+        role: 'reviewer',
+        active: true,
+        id: { [Op.ne]: actor.id },
+      },
+      transaction: t,
+    });
+    for (const reviewer of reviewers) {
+      await queueMail(t, {
+        workshopId: actor.workshopId,
+        kind: 'review_requested',
+        to: reviewer.email,
+        subject: `Review requested: ${conversion.name}, revision ${number}`,
+        text:
+          `${actor.name} has submitted revision ${number} of "${conversion.name}" (${conversion.donorEngine} into ${conversion.receivingVehicle}) for review.\n\n` +
+          (input.note ? `Their note: ${input.note}\n\n` : '') +
+          `Open it: ${link(conversionId, number)}\nContent hash: ${hash}\n\n— Loomwright`,
+      });
+    }
+    return toSummary(revision);
+  });
+  kickMail();
+  return summary;
+}
+
+async function assertReviewable(actor: Actor, revision: Revision, version: number | undefined) {
+  // Separation of duties: nobody reviews their own submission.
+  if (revision.submittedById === actor.id) {
+    throw forbidden('You submitted this revision; another reviewer must review it.');
+  }
+  if (revision.status !== 'in_review') {
+    throw new AppError(
+      409,
+      'not_in_review',
+      `Revision ${revision.number} is ${REVISION_STATUS_LABELS[revision.status].toLowerCase()}; only a revision in review can be signed off or sent back.`,
+    );
+  }
+  if (version !== undefined && version !== revision.version) {
+    throw new AppError(
+      409,
+      'version_conflict',
+      `Revision ${revision.number} changed since you opened it; reload it.`,
+    );
+  }
+}
+
+/**
+ * Signs off a revision in review: one conditional UPDATE (status still in review, version as read),
+ * so of two sign-offs at once exactly one succeeds. The trigger then refuses any later change.
+ */
+export async function signOff(
+  actor: Actor,
+  conversionId: number,
+  number: number,
+  input: SignOffRequest,
+): Promise<RevisionSummary> {
+  const summary = await inTransaction(db(), async (t) => {
+    const revision = await findRevision(actor, conversionId, number, t);
+    await assertReviewable(actor, revision, input.version);
+    const now = new Date();
+    const [updated] = await Revision.update(
+      {
+        status: 'signed_off',
+        reviewedById: actor.id,
+        reviewedByName: actor.name,
+        reviewedAt: now,
+        signedAt: now,
+        version: revision.version + 1,
+      },
+      {
+        where: { id: revision.id, status: 'in_review', version: revision.version },
+        transaction: t,
+      },
+    );
+    if (updated !== 1)
+      throw new AppError(
+        409,
+        'not_in_review',
+        `Revision ${number} was reviewed by someone else just now.`,
+      );
+    await revision.reload({ transaction: t });
+    await recordAudit(t, actor, {
+      conversionId,
+      action: 'sign_off',
+      entityType: 'revision',
+      entityId: revision.id,
+      summary: `Signed off revision ${number} (hash ${revision.hash.slice(0, 12)})`,
+      after: { number, hash: revision.hash, signedAt: now.toISOString() },
+    });
+    await notifySubmitter(t, actor, revision, 'signed_off', '');
+    return toSummary(revision);
+  });
+  kickMail();
+  return summary;
+}
+
+export async function sendBack(
+  actor: Actor,
+  conversionId: number,
+  number: number,
+  input: SendBackRequest,
+): Promise<RevisionSummary> {
+  const summary = await inTransaction(db(), async (t) => {
+    const revision = await findRevision(actor, conversionId, number, t);
+    await assertReviewable(actor, revision, input.version);
+    const [updated] = await Revision.update(
+      {
+        status: 'changes_requested',
+        reviewedById: actor.id,
+        reviewedByName: actor.name,
+        reviewedAt: new Date(),
+        reviewComment: input.comment,
+        version: revision.version + 1,
+      },
+      {
+        where: { id: revision.id, status: 'in_review', version: revision.version },
+        transaction: t,
+      },
+    );
+    if (updated !== 1)
+      throw new AppError(
+        409,
+        'not_in_review',
+        `Revision ${number} was reviewed by someone else just now.`,
+      );
+    await revision.reload({ transaction: t });
+    await recordAudit(t, actor, {
+      conversionId,
+      action: 'send_back',
+      entityType: 'revision',
+      entityId: revision.id,
+      summary: `Sent revision ${number} back: ${input.comment.slice(0, 120)}`,
+      after: { number, comment: input.comment },
+    });
+    await notifySubmitter(t, actor, revision, 'changes_requested', input.comment);
+    return toSummary(revision);
+  });
+  kickMail();
+  return summary;
+}
+
+async function notifySubmitter(
+  t: Transaction,
+  actor: Actor,
+  revision: Revision,
+  kind: 'signed_off' | 'changes_requested',
+  comment: string,
+) {
+  if (revision.submittedById == null) return;
+  const submitter = await User.findByPk(revision.submittedById, { transaction: t });
+  const conversion = await Conversion.findByPk(revision.conversionId, { transaction: t });
+  if (!submitter || !submitter.active || !conversion) return;
+  const what = kind === 'signed_off' ? 'signed off' : 'sent back for changes';
+  await queueMail(t, {
+    workshopId: actor.workshopId,
+    kind,
+    to: submitter.email,
+    subject: `Revision ${revision.number} of ${conversion.name} ${what}`,
+    text:
+      `${actor.name} ${what} revision ${revision.number} of "${conversion.name}".\n\n` +
+      (comment ? `Their comment: ${comment}\n\n` : '') +
+      (kind === 'signed_off'
+        ? `It is now the revision the bench works from. Content hash: ${revision.hash}\n\n`
+        : '') +
+      `Open it: ${link(revision.conversionId, revision.number)}\n\n— Loomwright`,
+  });
+}
+
+function subjectLabel(snapshot: ConversionSnapshot, input: ReviewCommentRequest): string {
+  if (input.pinId != null) {
+    const pin = snapshot.pins.find((p) => p.id === input.pinId);
+    if (!pin)
+      throw new AppError(400, 'validation_failed', 'pinId: not a pin of this revision', [
+        { field: 'pinId', message: 'is not a pin of this revision' },
+      ]);
+    const label = snapshot.connectors.find((c) => c.id === pin.connectorId)?.label ?? '?';
+    return `${label}-${pin.cavity}`;
+  }
+  if (input.feedId != null) {
+    const feed = snapshot.feeds.find((f) => f.id === input.feedId);
+    if (!feed)
+      throw new AppError(400, 'validation_failed', 'feedId: not a feed of this revision', [
+        { field: 'feedId', message: 'is not a feed of this revision' },
+      ]);
+    return `Feed: ${feed.name}`;
+  }
+  return '';
+}
+
+function toCommentDto(c: ReviewComment): ReviewCommentDto {
+  return {
+    id: c.id,
+    authorName: c.authorName,
+    pinId: c.pinId,
+    feedId: c.feedId,
+    subjectLabel: c.subjectLabel,
+    body: c.body,
+    createdAt: iso(c.createdAt)!,
+  };
+}
+
+export async function addComment(
+  actor: Actor,
+  conversionId: number,
+  number: number,
+  input: ReviewCommentRequest,
+): Promise<ReviewCommentDto> {
+  return inTransaction(db(), async (t) => {
+    const revision = await findRevision(actor, conversionId, number, t);
+    const snapshot = JSON.parse(revision.snapshotJson) as ConversionSnapshot;
+    const label = subjectLabel(snapshot, input);
+    const comment = await ReviewComment.create(
+      {
+        revisionId: revision.id,
+        authorId: actor.id,
+        authorName: actor.name,
+        pinId: input.pinId ?? null,
+        feedId: input.feedId ?? null,
+        subjectLabel: label,
+        body: input.body,
+      },
+      { transaction: t },
+    );
+    await recordAudit(t, actor, {
+      conversionId,
+      action: 'comment',
+      entityType: 'revision',
+      entityId: revision.id,
+      summary: `Commented on revision ${number}${label ? ` (${label})` : ''}`,
+      after: { body: input.body },
+    });
+    return toCommentDto(comment);
+  });
+}
+
+export async function getRevision(
+  actor: Actor,
+  conversionId: number,
+  number: number,
+): Promise<RevisionDetail> {
+  const revision = await findRevision(actor, conversionId, number);
+  const snapshot = JSON.parse(revision.snapshotJson) as ConversionSnapshot;
+  const comments = await ReviewComment.findAll({
+    where: { revisionId: revision.id },
+    order: [['id', 'ASC']],
+  });
+  const previous = await Revision.findOne({
+    where: { conversionId, status: 'signed_off', number: { [Op.lt]: number } },
+    order: [['number', 'DESC']],
+  });
+  return {
+    ...toSummary(revision),
+    snapshot,
+    findings: JSON.parse(revision.findingsJson) as Finding[],
+    comments: comments.map(toCommentDto),
+    changes: previous
+      ? diffSnapshots(JSON.parse(previous.snapshotJson) as ConversionSnapshot, snapshot)
+      : null,
+    comparedWith: previous?.number ?? null,
+  };
+}
+
+/** Recomputes the content hash from the stored snapshot and findings. */
+export async function verifyRevision(actor: Actor, conversionId: number, number: number) {
+  const revision = await findRevision(actor, conversionId, number);
+  const recomputed = await sha256Hex(
+    canonicalRevisionContent(
+      JSON.parse(revision.snapshotJson) as ConversionSnapshot,
+      JSON.parse(revision.findingsJson) as Finding[],
+    ),
+  );
+  return { ok: recomputed === revision.hash, hash: recomputed, storedHash: revision.hash };
+}
+
+/** The revision a worksheet or the bench prints: its frozen snapshot, findings and sign-off. */
+export async function revisionForPrint(actor: Actor, conversionId: number, number: number) {
+  const revision = await findRevision(actor, conversionId, number);
+  return {
+    revision,
+    snapshot: JSON.parse(revision.snapshotJson) as ConversionSnapshot,
+    findings: JSON.parse(revision.findingsJson) as Finding[],
+  };
+}
+
+/** The latest signed-off revision: the one technicians work from. */
+export async function currentSignedOff(
+  actor: Actor,
+  conversionId: number,
+): Promise<Revision | null> {
+  await findConversionInWorkshop(actor, conversionId);
+  return Revision.findOne({
+    where: { conversionId, status: 'signed_off' },
+    order: [['number', 'DESC']],
+  });
+}

@@ -1,0 +1,154 @@
+/**
+ * What changed between two snapshots of a conversion: pins matched by connector label and cavity
+ * (what a person calls them), feeds by id with their name, connectors by label; field by field.
+ */
+import type { FieldChange, RevisionChanges } from '../../schemas/revisions.schema.ts';
+import type {
+  ConversionSnapshot,
+  SnapshotFeed,
+  SnapshotPin,
+} from '../../schemas/snapshot.schema.ts';
+
+const PIN_FIELDS: Array<keyof SnapshotPin> = [
+  'function',
+  'signalClass',
+  'colour',
+  'sizeMm2',
+  'insulationRatingC',
+  'disposition',
+  'destination',
+  'destinationPinId',
+  'destinationFeedId',
+  'runLengthM',
+  'loadCurrentA',
+  'notes',
+];
+
+function same(a: unknown, b: unknown): boolean {
+  return JSON.stringify(a) === JSON.stringify(b);
+}
+
+function fieldChanges<T extends object>(
+  before: T,
+  after: T,
+  fields: Array<keyof T>,
+): FieldChange[] {
+  return fields
+    .filter((f) => !same(before[f], after[f]))
+    .map((f) => ({ field: String(f), before: before[f], after: after[f] }));
+}
+
+function pinsByName(s: ConversionSnapshot): Map<string, SnapshotPin> {
+  const labels = new Map(s.connectors.map((c) => [c.id, c.label]));
+  return new Map(s.pins.map((p) => [`${labels.get(p.connectorId) ?? '?'}-${p.cavity}`, p]));
+}
+
+/** Linked destinations compare by the name of what they point at, not by database id. */
+function describePinLinks(s: ConversionSnapshot) {
+  const labels = new Map(s.connectors.map((c) => [c.id, c.label]));
+  const pinName = new Map(
+    s.pins.map((p) => [p.id, `${labels.get(p.connectorId) ?? '?'}-${p.cavity}`]),
+  );
+  const feedName = new Map(s.feeds.map((f) => [f.id, f.name]));
+  return (p: SnapshotPin) => ({
+    ...p,
+    destinationPinId:
+      p.destinationPinId == null ? null : (pinName.get(p.destinationPinId) ?? p.destinationPinId),
+    destinationFeedId:
+      p.destinationFeedId == null
+        ? null
+        : (feedName.get(p.destinationFeedId) ?? p.destinationFeedId),
+  });
+}
+
+function comparableFeed(f: SnapshotFeed) {
+  return {
+    name: f.name,
+    source: f.source,
+    sourceFeedId: f.sourceFeedId,
+    fuseA: f.fuseA,
+    relay: f.relay,
+    wire: f.wire,
+    loads: f.loads.map(({ id: _id, ...l }) => l),
+    dropClass: f.dropClass,
+    dropLimitPct: f.dropLimitPct,
+    notes: f.notes,
+  };
+}
+
+export function diffSnapshots(
+  before: ConversionSnapshot,
+  after: ConversionSnapshot,
+): RevisionChanges {
+  const oldPins = pinsByName(before);
+  const newPins = pinsByName(after);
+  const describeOld = describePinLinks(before);
+  const describeNew = describePinLinks(after);
+  const pins: RevisionChanges['pins'] = { added: [], removed: [], changed: [] };
+  for (const [name, pin] of newPins) {
+    const old = oldPins.get(name);
+    if (!old) {
+      pins.added.push({ name, pinId: pin.id });
+      continue;
+    }
+    const fields = fieldChanges(describeOld(old), describeNew(pin), PIN_FIELDS);
+    if (fields.length) pins.changed.push({ name, pinId: pin.id, fields });
+  }
+  for (const [name, pin] of oldPins)
+    if (!newPins.has(name)) pins.removed.push({ name, pinId: pin.id });
+
+  const oldFeeds = new Map(before.feeds.map((f) => [f.id, f]));
+  const newFeeds = new Map(after.feeds.map((f) => [f.id, f]));
+  const feeds: RevisionChanges['feeds'] = { added: [], removed: [], changed: [] };
+  for (const [id, feed] of newFeeds) {
+    const old = oldFeeds.get(id);
+    if (!old) {
+      feeds.added.push({ name: feed.name, feedId: id });
+      continue;
+    }
+    const a = comparableFeed(old);
+    const b = comparableFeed(feed);
+    const fields = fieldChanges(a, b, Object.keys(b) as Array<keyof typeof b>);
+    if (fields.length) feeds.changed.push({ name: feed.name, feedId: id, fields });
+  }
+  for (const [id, feed] of oldFeeds)
+    if (!newFeeds.has(id)) feeds.removed.push({ name: feed.name, feedId: id });
+
+  const oldConnectors = new Map(before.connectors.map((c) => [c.label, c]));
+  const newConnectors = new Map(after.connectors.map((c) => [c.label, c]));
+  const connectors: RevisionChanges['connectors'] = { added: [], removed: [], changed: [] };
+  for (const [label, c] of newConnectors) {
+    const old = oldConnectors.get(label);
+    if (!old) connectors.added.push(label);
+    else {
+      const fields = fieldChanges(old, c, ['side', 'cavityCount', 'rows', 'columns', 'notes']);
+      if (fields.length) connectors.changed.push({ label, fields });
+    }
+  }
+  for (const label of oldConnectors.keys())
+    if (!newConnectors.has(label)) connectors.removed.push(label);
+
+  const conversion = fieldChanges(before.conversion, after.conversion, [
+    'name',
+    'donorEngine',
+    'receivingVehicle',
+    'systemVoltage',
+    'notes',
+  ]);
+  return { pins, feeds, connectors, conversion };
+}
+
+export function countChanges(c: RevisionChanges): number {
+  return (
+    c.pins.added.length +
+    c.pins.removed.length +
+    c.pins.changed.length +
+    c.feeds.added.length +
+    c.feeds.removed.length +
+    c.feeds.changed.length +
+    c.connectors.added.length +
+    c.connectors.removed.length +
+    c.connectors.changed.length +
+    c.conversion.length
+  );
+}

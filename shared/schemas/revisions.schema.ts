@@ -1,0 +1,107 @@
+import { z } from 'zod';
+import type { CheckReport, Finding } from './checks.schema.ts';
+import { optionalText, requiredText } from './common.schema.ts';
+import type { ConversionSnapshot } from './snapshot.schema.ts';
+
+export const REVISION_STATUSES = ['in_review', 'changes_requested', 'signed_off'] as const;
+export type RevisionStatus = (typeof REVISION_STATUSES)[number];
+export const REVISION_STATUS_LABELS: Record<RevisionStatus, string> = {
+  in_review: 'In review',
+  changes_requested: 'Changes requested',
+  signed_off: 'Signed off',
+};
+
+const digits = z
+  .string()
+  .regex(/^[1-9][0-9]{0,15}$/, 'must be a positive whole number')
+  .transform(Number);
+export const RevisionParams = z.strictObject({ id: digits, number: digits });
+export type RevisionParams = z.output<typeof RevisionParams>;
+
+export const SubmitRevisionRequest = z.strictObject({
+  /** A line for the reviewer about what changed. */
+  note: optionalText(2000).optional(),
+});
+export type SubmitRevisionRequest = z.infer<typeof SubmitRevisionRequest>;
+
+export const SignOffRequest = z.strictObject({
+  /** The revision's version the reviewer read; a changed revision is a 409. */
+  version: z.number().int().min(0).optional(),
+});
+export type SignOffRequest = z.infer<typeof SignOffRequest>;
+
+export const SendBackRequest = z.strictObject({
+  comment: requiredText(4000),
+  version: z.number().int().min(0).optional(),
+});
+export type SendBackRequest = z.infer<typeof SendBackRequest>;
+
+export const ReviewCommentRequest = z
+  .strictObject({
+    body: requiredText(4000),
+    pinId: z.number().int().positive().nullable().optional(),
+    feedId: z.number().int().positive().nullable().optional(),
+  })
+  .refine((v) => v.pinId == null || v.feedId == null, {
+    message: 'comment on a pin or on a feed, not both',
+    path: ['feedId'],
+  });
+export type ReviewCommentRequest = z.infer<typeof ReviewCommentRequest>;
+
+export interface RevisionSummary {
+  number: number;
+  status: RevisionStatus;
+  hash: string;
+  submittedBy: string;
+  submittedAt: string;
+  reviewedBy: string | null;
+  reviewedAt: string | null;
+  signedAt: string | null;
+  reviewComment: string;
+  counts: CheckReport['counts'];
+  version: number;
+}
+
+export interface ReviewComment {
+  id: number;
+  authorName: string;
+  pinId: number | null;
+  feedId: number | null;
+  subjectLabel: string;
+  body: string;
+  createdAt: string;
+}
+
+export interface RevisionDetail extends RevisionSummary {
+  snapshot: ConversionSnapshot;
+  findings: Finding[];
+  comments: ReviewComment[];
+  /** Differences from the last signed-off revision before this one; null for the first. */
+  changes: RevisionChanges | null;
+  comparedWith: number | null;
+}
+
+export interface FieldChange {
+  field: string;
+  before: unknown;
+  after: unknown;
+}
+
+export interface RevisionChanges {
+  pins: {
+    added: Array<{ name: string; pinId: number }>;
+    removed: Array<{ name: string; pinId: number }>;
+    changed: Array<{ name: string; pinId: number; fields: FieldChange[] }>;
+  };
+  feeds: {
+    added: Array<{ name: string; feedId: number }>;
+    removed: Array<{ name: string; feedId: number }>;
+    changed: Array<{ name: string; feedId: number; fields: FieldChange[] }>;
+  };
+  connectors: {
+    added: string[];
+    removed: string[];
+    changed: Array<{ label: string; fields: FieldChange[] }>;
+  };
+  conversion: FieldChange[];
+}
