@@ -9,17 +9,21 @@ import { ConversionFeedsRoute } from './routes/conversion/feeds.tsx';
 import { ConversionFilesRoute } from './routes/conversion/files.tsx';
 import { ConversionHistoryRoute } from './routes/conversion/history.tsx';
 import { ConversionPinMapRoute } from './routes/conversion/pin-map.tsx';
+import { ConversionRevisionRoute } from './routes/conversion/revision.tsx';
 import { ConversionRevisionsRoute } from './routes/conversion/revisions.tsx';
 import { CalculatorRoute } from './routes/calculator.tsx';
 import { LibraryRoute } from './routes/library.tsx';
 import { ConversionsRoute } from './routes/conversions.tsx';
 import { NotFoundRoute, RouteError } from './routes/route-error.tsx';
+import { OutboxRoute } from './routes/outbox.tsx';
+import { SetPasswordRoute } from './routes/set-password.tsx';
 import { SettingsRoute } from './routes/settings.tsx';
 import { SignInRoute } from './routes/sign-in.tsx';
 import { UsersRoute } from './routes/users.tsx';
 
 const router = createBrowserRouter([
   { path: paths.signIn.path, element: <SignInRoute />, errorElement: <RouteError /> },
+  { path: paths.setPassword.path, element: <SetPasswordRoute />, errorElement: <RouteError /> },
   {
     element: <RequireSession />,
     errorElement: <RouteError />,
@@ -35,7 +39,8 @@ const router = createBrowserRouter([
           { path: 'feeds', element: <ConversionFeedsRoute /> },
           { path: 'checks', element: <ConversionChecksRoute /> },
           { path: 'files', element: <ConversionFilesRoute /> },
-          { path: 'revisions/*', element: <ConversionRevisionsRoute /> },
+          { path: 'revisions', element: <ConversionRevisionsRoute /> },
+          { path: 'revisions/:number', element: <ConversionRevisionRoute /> },
           { path: 'history', element: <ConversionHistoryRoute /> },
         ],
       },
@@ -49,6 +54,10 @@ const router = createBrowserRouter([
       {
         element: <RequireRight right="workshop:settings" />,
         children: [{ path: paths.settings.path, element: <SettingsRoute /> }],
+      },
+      {
+        element: <RequireRight right="outbox:read" />,
+        children: [{ path: paths.outbox.path, element: <OutboxRoute /> }],
       },
       { path: '*', element: <NotFoundRoute /> },
     ],

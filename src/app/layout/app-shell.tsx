@@ -46,6 +46,9 @@ export function AppShell({ user, children }: { user: SessionUser; children: Reac
             {can(user.role, 'workshop:settings') ? (
               <NavItem to={paths.settings.getHref()}>Workshop settings</NavItem>
             ) : null}
+            {can(user.role, 'outbox:read') ? (
+              <NavItem to={paths.outbox.getHref()}>Mail</NavItem>
+            ) : null}
           </nav>
           <div className="ml-auto flex items-center gap-3">
             <NavLink

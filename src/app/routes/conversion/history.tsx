@@ -1,7 +1,18 @@
 import { useOutletContext } from 'react-router';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
+import { Notice } from '@/components/ui/notice.tsx';
+import { AuditTrail } from '@/features/audit/components/audit-trail.tsx';
+import { useCan } from '@/features/auth/hooks/use-can.ts';
 
 export function ConversionHistoryRoute() {
-  const c = useOutletContext<Conversion>();
-  return <p className="text-ink-soft">{c.name}: this section is being built.</p>;
+  const conversion = useOutletContext<Conversion>();
+  const mayRead = useCan('audit:read');
+  if (!mayRead) {
+    return (
+      <Notice tone="caution" title="Not available to your role">
+        The history is kept for builders, reviewers and the admin.
+      </Notice>
+    );
+  }
+  return <AuditTrail conversionId={conversion.id} />;
 }

@@ -30,7 +30,11 @@ export function CreateUserForm() {
     setErrors({});
     create.mutate(parsed.data, {
       onSuccess: ({ user }) => {
-        setAdded(`${user.name} can now sign in as ${ROLE_LABELS[user.role].toLowerCase()}.`);
+        setAdded(
+          parsed.data.password
+            ? `${user.name} can now sign in as ${ROLE_LABELS[user.role].toLowerCase()}.`
+            : `${user.name} has been e-mailed an invitation to set a password.`,
+        );
         formElement.reset();
       },
       onError: (err) => err instanceof ApiError && setErrors(err.fieldIssues()),
@@ -61,12 +65,12 @@ export function CreateUserForm() {
         ))}
       </SelectField>
       <TextField
-        label="First password"
+        label="First password (optional)"
         name="password"
         type="password"
         autoComplete="new-password"
         error={errors.password}
-        hint={`At least ${PASSWORD_MIN_CHARS} characters, ${PASSWORD_RECOMMENDED_CHARS} or more recommended. They can change it after signing in.`}
+        hint={`Leave empty to e-mail them an invitation to set their own. Otherwise at least ${PASSWORD_MIN_CHARS} characters, ${PASSWORD_RECOMMENDED_CHARS} or more recommended.`}
       />
       {create.error &&
       !(create.error instanceof ApiError && Object.keys(create.error.fieldIssues()).length) ? (

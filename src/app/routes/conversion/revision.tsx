@@ -1,0 +1,109 @@
+import { Link, useOutletContext, useParams } from 'react-router';
+import type { Conversion } from '#shared/schemas/conversions.schema.ts';
+import { Button } from '@/components/ui/button.tsx';
+import { Loading } from '@/components/ui/loading.tsx';
+import { Notice } from '@/components/ui/notice.tsx';
+import { paths } from '@/config/paths.ts';
+import { useSession } from '@/features/auth/api/get-session.ts';
+import { useCan } from '@/features/auth/hooks/use-can.ts';
+import {
+  revisionWorksheetHref,
+  useRevision,
+  useVerifyRevision,
+} from '@/features/revisions/api/revisions.ts';
+import { ChangesView } from '@/features/revisions/components/changes-view.tsx';
+import { CommentsPanel } from '@/features/revisions/components/comments-panel.tsx';
+import { FrozenFindings } from '@/features/revisions/components/frozen-findings.tsx';
+import { ReviewActions } from '@/features/revisions/components/review-actions.tsx';
+import { RevisionStatusBadge } from '@/features/revisions/components/revision-status.tsx';
+import { useWorkshop } from '@/features/workshop/api/workshop.ts';
+
+export function ConversionRevisionRoute() {
+  const conversion = useOutletContext<Conversion>();
+  const number = Number(useParams().number);
+  const revision = useRevision(conversion.id, number);
+  const verify = useVerifyRevision(conversion.id, number);
+  const session = useSession();
+  const workshop = useWorkshop();
+  const mayReview = useCan('revision:review');
+  const mayComment = useCan('revision:comment');
+
+  if (revision.isPending) return <Loading what={`Loading revision ${number}`} />;
+  if (revision.isError) {
+    return (
+      <Notice tone="fault" title={`Revision ${number} could not be loaded`}>
+        {revision.error.message}
+      </Notice>
+    );
+  }
+  const r = revision.data;
+  return (
+    <div className="flex flex-col gap-6">
+      <p>
+        <Link className="text-sm underline" to={paths.conversionRevisions.getHref(conversion.id)}>
+          ← All revisions
+        </Link>
+      </p>
+      <section className="flex flex-wrap items-start justify-between gap-4 rounded-lg border border-rule bg-paper-raised p-5">
+        <div>
+          <h2 className="flex items-center gap-3 text-xl font-semibold">
+            Revision {r.number} <RevisionStatusBadge status={r.status} />
+          </h2>
+          <p className="mt-1 text-sm text-ink-soft">
+            Submitted by {r.submittedBy} on {new Date(r.submittedAt).toLocaleString()}
+            {r.reviewedBy
+              ? ` · reviewed by ${r.reviewedBy} on ${new Date(r.reviewedAt!).toLocaleString()}`
+              : ''}
+          </p>
+          {r.reviewComment ? (
+            <p className="mt-2 max-w-2xl whitespace-pre-wrap border-l-2 border-rule-strong pl-3 text-sm">
+              {r.reviewComment}
+            </p>
+          ) : null}
+          <p className="mt-3 break-all font-mono text-xs text-ink-soft">SHA-256 {r.hash}</p>
+          <div className="mt-2 flex flex-wrap items-center gap-3">
+            <Button size="sm" busy={verify.isFetching} onClick={() => void verify.refetch()}>
+              Verify content hash
+            </Button>
+            {verify.data ? (
+              verify.data.ok ? (
+                <span className="text-sm text-sound">
+                  <span aria-hidden>✓ </span>The stored content still hashes to this value.
+                </span>
+              ) : (
+                <span className="text-sm text-fault">
+                  <span aria-hidden>✕ </span>Mismatch: the content hashes to{' '}
+                  {verify.data.hash.slice(0, 12)}.
+                </span>
+              )
+            ) : null}
+          </div>
+        </div>
+        <a
+          className="rounded-md border border-rule-strong bg-paper px-4 py-2 font-medium hover:bg-paper-sunk"
+          href={revisionWorksheetHref(conversion.id, r.number)}
+          target="_blank"
+          rel="noopener"
+        >
+          Print worksheet
+        </a>
+      </section>
+      {mayReview && session.data ? (
+        <ReviewActions conversionId={conversion.id} revision={r} reviewerName={session.data.name} />
+      ) : null}
+      {r.changes && r.comparedWith ? (
+        <ChangesView
+          changes={r.changes}
+          comparedWith={r.comparedWith}
+          unit={workshop.data?.sizeUnit ?? 'mm2'}
+        />
+      ) : (
+        <Notice tone="info" title="First revision for review">
+          There is no earlier signed-off revision to compare with: review the whole plan.
+        </Notice>
+      )}
+      <FrozenFindings findings={r.findings} />
+      <CommentsPanel conversionId={conversion.id} revision={r} canComment={mayComment} />
+    </div>
+  );
+}

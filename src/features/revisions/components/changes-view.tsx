@@ -1,0 +1,173 @@
+import { DISPOSITION_INFO, type Disposition } from '#shared/domain/dispositions.ts';
+import { SIGNAL_CLASS_LABELS, type SignalClass } from '#shared/domain/signal-classes.ts';
+import { formatWireSize } from '#shared/domain/wire-sizes.ts';
+import type { FieldChange, RevisionChanges } from '#shared/schemas/revisions.schema.ts';
+import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
+
+const FIELD_LABELS: Record<string, string> = {
+  function: 'Function',
+  signalClass: 'Signal class',
+  colour: 'Colour',
+  sizeMm2: 'Size',
+  insulationRatingC: 'Insulation',
+  disposition: 'Disposition',
+  destination: 'Destination',
+  destinationPinId: 'Linked cavity',
+  destinationFeedId: 'Joined feed',
+  runLengthM: 'Run length',
+  loadCurrentA: 'Load',
+  notes: 'Notes',
+  fuseA: 'Fuse',
+  relay: 'Relay',
+  wire: 'Wire',
+  loads: 'Loads',
+  dropClass: 'Drop class',
+  dropLimitPct: 'Drop limit',
+  source: 'Source',
+  sourceFeedId: 'Source feed',
+  name: 'Name',
+  donorEngine: 'Donor engine',
+  receivingVehicle: 'Receiving vehicle',
+  systemVoltage: 'System voltage',
+  side: 'Side',
+  cavityCount: 'Cavities',
+  rows: 'Rows',
+  columns: 'Columns',
+};
+
+function show(field: string, value: unknown, unit: SizeUnit): string {
+  if (value === null || value === undefined || value === '') return '—';
+  if (field === 'sizeMm2' && typeof value === 'number') return formatWireSize(value, unit);
+  if (field === 'disposition')
+    return DISPOSITION_INFO[value as Disposition]?.label ?? String(value);
+  if (field === 'signalClass') return SIGNAL_CLASS_LABELS[value as SignalClass] ?? String(value);
+  if (field === 'insulationRatingC') return `${String(value)} °C`;
+  if (field === 'runLengthM') return `${String(value)} m`;
+  if (field === 'loadCurrentA' || field === 'fuseA') return `${String(value)} A`;
+  if (field === 'wire' && typeof value === 'object') {
+    const w = value as {
+      sizeMm2: number;
+      lengthM: number;
+      zone: string;
+      returnPath: string;
+      colour: string;
+    };
+    return `${formatWireSize(w.sizeMm2, unit)}, ${w.lengthM} m, ${w.zone === 'engine_bay' ? 'engine bay' : 'outside engine bay'}, ${w.returnPath} return${w.colour ? `, ${w.colour}` : ''}`;
+  }
+  if (typeof value === 'object') return JSON.stringify(value);
+  return String(value);
+}
+
+function ChangeRows({
+  subject,
+  fields,
+  unit,
+}: {
+  subject: string;
+  fields: FieldChange[];
+  unit: SizeUnit;
+}) {
+  return (
+    <>
+      {fields.map((f, i) => (
+        <tr key={f.field} className="border-b border-rule/60 align-top">
+          <th scope="row" className="px-3 py-2 font-mono text-sm font-semibold">
+            {i === 0 ? subject : ''}
+          </th>
+          <td className="px-3 py-2 text-sm text-ink-soft">{FIELD_LABELS[f.field] ?? f.field}</td>
+          <td className="px-3 py-2 text-sm">
+            <del className="text-ink-faint decoration-fault/60">
+              {show(f.field, f.before, unit)}
+            </del>
+          </td>
+          <td className="px-3 py-2 text-sm">
+            <ins className="no-underline font-medium">{show(f.field, f.after, unit)}</ins>
+          </td>
+        </tr>
+      ))}
+    </>
+  );
+}
+
+function NameList({ label, glyph, names }: { label: string; glyph: string; names: string[] }) {
+  if (!names.length) return null;
+  return (
+    <p className="text-sm">
+      <span className="font-semibold">
+        <span aria-hidden>{glyph} </span>
+        {label}:
+      </span>{' '}
+      <span className="font-mono">{names.join(', ')}</span>
+    </p>
+  );
+}
+
+/** Field-by-field differences from the last signed-off revision. */
+export function ChangesView({
+  changes,
+  comparedWith,
+  unit,
+}: {
+  changes: RevisionChanges;
+  comparedWith: number;
+  unit: SizeUnit;
+}) {
+  const rows = [
+    ...changes.conversion.map((f) => ({ subject: 'Conversion', fields: [f] })),
+    ...changes.connectors.changed.map((c) => ({
+      subject: `Connector ${c.label}`,
+      fields: c.fields,
+    })),
+    ...changes.pins.changed.map((p) => ({ subject: p.name, fields: p.fields })),
+    ...changes.feeds.changed.map((f) => ({ subject: `Feed: ${f.name}`, fields: f.fields })),
+  ];
+  const nothing =
+    !rows.length &&
+    !changes.pins.added.length &&
+    !changes.pins.removed.length &&
+    !changes.feeds.added.length &&
+    !changes.feeds.removed.length &&
+    !changes.connectors.added.length &&
+    !changes.connectors.removed.length;
+  return (
+    <section
+      aria-labelledby="changes-heading"
+      className="rounded-lg border border-rule bg-paper-raised p-5"
+    >
+      <h2 id="changes-heading" className="text-lg font-semibold">
+        Changes since revision {comparedWith}
+      </h2>
+      {nothing ? <p className="mt-2 text-ink-soft">Nothing changed.</p> : null}
+      <div className="mt-2 flex flex-col gap-1">
+        <NameList label="Connectors added" glyph="+" names={changes.connectors.added} />
+        <NameList label="Connectors removed" glyph="−" names={changes.connectors.removed} />
+        <NameList label="Pins added" glyph="+" names={changes.pins.added.map((p) => p.name)} />
+        <NameList label="Pins removed" glyph="−" names={changes.pins.removed.map((p) => p.name)} />
+        <NameList label="Feeds added" glyph="+" names={changes.feeds.added.map((f) => f.name)} />
+        <NameList
+          label="Feeds removed"
+          glyph="−"
+          names={changes.feeds.removed.map((f) => f.name)}
+        />
+      </div>
+      {rows.length ? (
+        <table className="lw-table mt-3 w-full border-collapse">
+          <caption className="sr-only">Changed fields</caption>
+          <thead className="border-b border-rule">
+            <tr>
+              <th className="px-3 py-2">What</th>
+              <th className="px-3 py-2">Field</th>
+              <th className="px-3 py-2">Was</th>
+              <th className="px-3 py-2">Now</th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((r, i) => (
+              <ChangeRows key={i} subject={r.subject} fields={r.fields} unit={unit} />
+            ))}
+          </tbody>
+        </table>
+      ) : null}
+    </section>
+  );
+}
