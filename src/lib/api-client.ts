@@ -80,7 +80,7 @@ async function request<T>(
 
 export const api = {
   get: <T>(url: string, init?: RequestInit) => request<T>('GET', url, undefined, init),
-  post: <T>(url: string, body?: unknown) => request<T>('POST', url, body),
+  post: <T>(url: string, body?: unknown, init?: RequestInit) => request<T>('POST', url, body, init),
   patch: <T>(url: string, body: unknown) => request<T>('PATCH', url, body),
   put: <T>(url: string, body: unknown) => request<T>('PUT', url, body),
   delete: <T>(url: string, body?: unknown) => request<T>('DELETE', url, body),

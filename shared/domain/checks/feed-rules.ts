@@ -25,7 +25,9 @@ export function ampacityOf(
     insulationRatingC,
     zone: feed.wire.zone,
     bundled: feed.wire.bundled,
-    applyBundleDerating: false,
+    // Three or more current-carrying conductors together: the USCG bundle factors, a conservative
+    // choice at 12 V (33 CFR 183.435 requires them only at 50 V or more); the result says so.
+    applyBundleDerating: feed.wire.bundled >= 3,
   });
 }
 

@@ -82,6 +82,28 @@ describe('fuse protects wire', () => {
   });
 });
 
+describe('bundled wires', () => {
+  it('apply the USCG bundle factor from three conductors up, as a conservative choice at 12 V', () => {
+    // 1.5 mm² → 16 AWG row, 105 °C: 25 A (Table 5); four bundled × 0.60 (33 CFR 183.435) = 15 A < 20 A [C].
+    const s = snapshot({
+      feeds: [
+        {
+          fuseA: 20,
+          wire: wire({ sizeMm2: 1.5, bundled: 4 }),
+          loads: [{ id: 1, pinId: null, name: 'x', currentA: 10, continuous: true }],
+        },
+      ],
+    });
+    const [f] = only(s, 'fuse_protects_wire');
+    expect(f?.values.ampacityA?.value).toBeCloseTo(15, 1);
+    expect(f?.values.deratingFactor?.value).toBe(0.6);
+    expect(f?.working.join(' ')).toMatch(/conservative choice/);
+    // Two conductors: no factor, 25 A ≥ 20 A.
+    s.feeds[0]!.wire.bundled = 2;
+    expect(only(s, 'fuse_protects_wire')).toHaveLength(0);
+  });
+});
+
 describe('unfused feeds', () => {
   it('flags a battery feed with no fuse as an error and a fire risk', () => {
     const [f] = only(snapshot({ feeds: [{ fuseA: null }] }), 'unfused_feed');

@@ -1,7 +1,9 @@
 import { useOutletContext } from 'react-router';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
+import { ChecksPanel } from '@/features/checks/components/checks-panel.tsx';
 
+/** The checks section: every finding on the conversion, each linked to its pins or feed. */
 export function ConversionChecksRoute() {
-  const c = useOutletContext<Conversion>();
-  return <p className="text-ink-soft">{c.name}: this section is being built.</p>;
+  const conversion = useOutletContext<Conversion>();
+  return <ChecksPanel key={conversion.id} conversionId={conversion.id} />;
 }

@@ -1,0 +1,155 @@
+import { Button } from '@/components/ui/button.tsx';
+import { newLoadRow, type FieldErrors, type LoadRow } from '../lib/feed-form.ts';
+import type { PinChoice } from '../lib/feed-display.ts';
+import { PinOptions } from './pin-options.tsx';
+
+const CELL =
+  'w-full rounded-md border border-rule-strong bg-paper-raised px-2.5 py-1.5 text-ink aria-[invalid=true]:border-fault disabled:bg-paper-sunk/40';
+
+function CellError({ id, message }: { id: string; message?: string }) {
+  if (!message) return null;
+  return (
+    <p id={id} className="mt-1 text-xs text-fault">
+      <span aria-hidden>✕ </span>
+      {message}
+    </p>
+  );
+}
+
+/** The loads on a feed: a pin of the map or a named device, its current, continuous or not. */
+export function LoadsEditor({
+  loads,
+  pins,
+  errors,
+  readOnly,
+  onChange,
+}: {
+  loads: LoadRow[];
+  pins: PinChoice[];
+  errors: FieldErrors;
+  readOnly: boolean;
+  onChange: (loads: LoadRow[]) => void;
+}) {
+  const update = (index: number, patch: Partial<LoadRow>) =>
+    onChange(loads.map((l, i) => (i === index ? { ...l, ...patch } : l)));
+
+  return (
+    <div>
+      <div className="overflow-x-auto rounded-md border border-rule">
+        <table className="lw-table w-full border-collapse text-sm">
+          <caption className="sr-only">Loads on this feed</caption>
+          <thead className="bg-paper-sunk/60">
+            <tr>
+              <th scope="col" className="w-[38%] px-2 py-1.5">
+                Pin
+              </th>
+              <th scope="col" className="px-2 py-1.5">
+                Device
+              </th>
+              <th scope="col" className="w-24 px-2 py-1.5">
+                Current (A)
+              </th>
+              <th scope="col" className="w-28 px-2 py-1.5">
+                Continuous
+              </th>
+              {readOnly ? null : (
+                <th scope="col" className="w-10 px-2 py-1.5">
+                  <span className="sr-only">Remove</span>
+                </th>
+              )}
+            </tr>
+          </thead>
+          <tbody>
+            {loads.length === 0 ? (
+              <tr>
+                <td colSpan={5} className="px-2 py-3 text-center text-ink-faint">
+                  No loads yet.
+                </td>
+              </tr>
+            ) : null}
+            {loads.map((load, i) => {
+              const n = i + 1;
+              const nameError = errors[`loads.${i}.name`] ?? errors[`loads.${i}.pinId`];
+              const currentError = errors[`loads.${i}.currentA`];
+              return (
+                <tr key={load.key} className="border-t border-rule/70 align-top">
+                  <td className="px-2 py-1.5">
+                    <select
+                      aria-label={`Load ${n} pin`}
+                      className={`${CELL} min-w-[9rem]`}
+                      value={load.pinId}
+                      onChange={(e) => update(i, { pinId: e.target.value })}
+                    >
+                      <option value="">— a named device —</option>
+                      <PinOptions pins={pins} />
+                    </select>
+                  </td>
+                  <td className="px-2 py-1.5">
+                    <input
+                      aria-label={`Load ${n} device`}
+                      aria-invalid={nameError ? true : undefined}
+                      aria-describedby={nameError ? `load-${load.key}-name-error` : undefined}
+                      className={`${CELL} min-w-[10rem]`}
+                      value={load.name}
+                      maxLength={80}
+                      placeholder={load.pinId ? 'optional' : 'e.g. Electric cooling fan'}
+                      onChange={(e) => update(i, { name: e.target.value })}
+                    />
+                    <CellError id={`load-${load.key}-name-error`} message={nameError} />
+                  </td>
+                  <td className="px-2 py-1.5">
+                    <input
+                      aria-label={`Load ${n} current (A)`}
+                      aria-invalid={currentError ? true : undefined}
+                      aria-describedby={currentError ? `load-${load.key}-current-error` : undefined}
+                      inputMode="decimal"
+                      className={`${CELL} font-mono`}
+                      value={load.currentA}
+                      onChange={(e) => update(i, { currentA: e.target.value })}
+                    />
+                    <CellError id={`load-${load.key}-current-error`} message={currentError} />
+                  </td>
+                  <td className="px-2 py-1.5">
+                    <label className="inline-flex items-center gap-2 py-1.5">
+                      <input
+                        type="checkbox"
+                        className="size-4 accent-copper"
+                        checked={load.continuous}
+                        onChange={(e) => update(i, { continuous: e.target.checked })}
+                        aria-label={`Load ${n} continuous`}
+                      />
+                      <span aria-hidden>{load.continuous ? 'Yes' : 'No'}</span>
+                    </label>
+                  </td>
+                  {readOnly ? null : (
+                    <td className="px-2 py-1.5">
+                      <Button
+                        variant="quiet"
+                        size="sm"
+                        aria-label={`Remove load ${n}`}
+                        onClick={() => onChange(loads.filter((_, j) => j !== i))}
+                      >
+                        ✕
+                      </Button>
+                    </td>
+                  )}
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      {errors.loads ? (
+        <p className="mt-1 text-sm text-fault">
+          <span aria-hidden>✕ </span>
+          {errors.loads}
+        </p>
+      ) : null}
+      {readOnly ? null : (
+        <Button size="sm" className="mt-2" onClick={() => onChange([...loads, newLoadRow()])}>
+          Add a load
+        </Button>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,386 @@
+/**
+ * The feed form's values (text as typed) and their mapping to and from the API's shapes. Pure, so
+ * the mapping is unit-tested in node.
+ */
+import { CONDUCTOR_TEMP_C } from '#shared/domain/checks/check-context.ts';
+import { DROP_LIMIT_PCT } from '#shared/domain/electrical/voltage-drop.ts';
+import {
+  exactAwg,
+  exactIsoSize,
+  formatAwgGauge,
+  formatWireSize,
+  parseWireSize,
+} from '#shared/domain/wire-sizes.ts';
+import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
+import {
+  CreateFeedRequest,
+  type DropClass,
+  type Feed,
+  type FeedSource,
+  type ReturnPath,
+  type WireZone,
+} from '#shared/schemas/feeds.schema.ts';
+import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
+
+export interface LoadRow {
+  /** React key: the load's id once saved, a counter before. */
+  key: string;
+  pinId: string;
+  name: string;
+  currentA: string;
+  continuous: boolean;
+}
+
+export interface FeedFormValues {
+  name: string;
+  source: FeedSource;
+  sourceFeedId: string;
+  /** A rating; NO_FUSE, chosen on purpose; or '' before anything is chosen. */
+  fuseA: string;
+  hasRelay: boolean;
+  relayContactRatingA: string;
+  relayCoilCurrentA: string;
+  relayCoilPinId: string;
+  /** As typed, in the workshop's unit (or with an explicit "mm²" / "AWG"). */
+  wireSize: string;
+  insulationRatingC: string;
+  lengthM: string;
+  zone: WireZone;
+  bundled: string;
+  returnPath: ReturnPath;
+  colour: string;
+  loads: LoadRow[];
+  dropClass: DropClass;
+  /** '' uses the class's limit. */
+  dropLimitPct: string;
+  notes: string;
+}
+
+/** Field errors keyed by the request's path, as the server names them ("wire.sizeMm2", "loads.0.currentA"). */
+export type FieldErrors = Record<string, string>;
+
+/** The form's word for a feed deliberately left without a fuse (a fire risk the checks report). */
+export const NO_FUSE = 'none';
+
+const FORM_FIELDS =
+  /^(name|source|sourceFeedId|fuseA|relay\.(contactRatingA|coilCurrentA|coilPinId)|wire\.(sizeMm2|insulationRatingC|lengthM|zone|bundled|returnPath|colour)|loads(\.\d+\.(name|pinId|currentA))?|dropClass|dropLimitPct|notes)$/;
+
+/** Whether the form shows an error under this request path; others are told in words above Save. */
+export function isFormField(path: string): boolean {
+  return FORM_FIELDS.test(path);
+}
+
+let loadCounter = 0;
+export function newLoadRow(): LoadRow {
+  loadCounter += 1;
+  return { key: `new-${loadCounter}`, pinId: '', name: '', currentA: '', continuous: true };
+}
+
+export function emptyFeedForm(defaults: { insulationRatingC: number }): FeedFormValues {
+  return {
+    name: '',
+    source: 'battery',
+    sourceFeedId: '',
+    fuseA: '',
+    hasRelay: false,
+    relayContactRatingA: '30',
+    relayCoilCurrentA: '0.15',
+    relayCoilPinId: '',
+    wireSize: '',
+    insulationRatingC: String(defaults.insulationRatingC),
+    lengthM: '',
+    zone: 'cabin',
+    bundled: '1',
+    returnPath: 'wire',
+    colour: '',
+    loads: [newLoadRow()],
+    dropClass: 'general',
+    dropLimitPct: '',
+    notes: '',
+  };
+}
+
+/**
+ * A stored size as editable text. In the workshop's unit when the size is one of that series;
+ * otherwise with its own unit spelled out ("4 mm²" in an AWG workshop), so saving the form unchanged
+ * never moves the wire to the nearest size of the other series.
+ */
+export function editableSize(areaMm2: number, unit: SizeUnit): string {
+  const gauge = exactAwg(areaMm2);
+  const iso = exactIsoSize(areaMm2);
+  if (unit === 'awg') {
+    if (gauge !== null) return formatAwgGauge(gauge);
+    return formatWireSize(areaMm2, 'mm2');
+  }
+  if (iso !== null) return String(iso);
+  if (gauge !== null) return `${formatAwgGauge(gauge)} AWG`;
+  return formatWireSize(areaMm2, 'mm2');
+}
+
+export function feedToForm(feed: Feed, unit: SizeUnit): FeedFormValues {
+  return {
+    name: feed.name,
+    source: feed.source,
+    sourceFeedId: feed.sourceFeedId == null ? '' : String(feed.sourceFeedId),
+    fuseA: feed.fuseA == null ? NO_FUSE : String(feed.fuseA),
+    hasRelay: feed.relay !== null,
+    relayContactRatingA: feed.relay ? String(feed.relay.contactRatingA) : '30',
+    relayCoilCurrentA: feed.relay ? String(feed.relay.coilCurrentA) : '0.15',
+    relayCoilPinId: feed.relay?.coilPinId == null ? '' : String(feed.relay.coilPinId),
+    wireSize: editableSize(feed.wire.sizeMm2, unit),
+    insulationRatingC: String(feed.wire.insulationRatingC),
+    lengthM: String(feed.wire.lengthM),
+    zone: feed.wire.zone,
+    bundled: String(feed.wire.bundled),
+    returnPath: feed.wire.returnPath,
+    colour: feed.wire.colour,
+    loads: feed.loads.map((l) => ({
+      key: `load-${l.id}`,
+      pinId: l.pinId == null ? '' : String(l.pinId),
+      name: l.name,
+      currentA: String(l.currentA),
+      continuous: l.continuous,
+    })),
+    dropClass: feed.dropClass,
+    dropLimitPct: feed.dropLimitPct == null ? '' : String(feed.dropLimitPct),
+    notes: feed.notes,
+  };
+}
+
+type NumberRead = { ok: true; value: number | null } | { ok: false; error: string };
+
+/** A number as typed: "" is null, a decimal comma is accepted. */
+export function readNumber(text: string): NumberRead {
+  const t = text.trim().replace(',', '.');
+  if (t === '') return { ok: true, value: null };
+  const n = Number(t);
+  return Number.isFinite(n) ? { ok: true, value: n } : { ok: false, error: 'must be a number' };
+}
+
+const readId = (text: string): number | null => (text === '' ? null : Number(text));
+
+export type FormToRequest =
+  { ok: true; request: CreateFeedRequest } | { ok: false; errors: FieldErrors };
+
+/**
+ * Reads the form into a create request, checked by the same zod schema the server uses. Errors are
+ * keyed by the request's path so the server's 400 lands beside the same fields.
+ */
+export function formToRequest(values: FeedFormValues, unit: SizeUnit): FormToRequest {
+  const errors: FieldErrors = {};
+  const number = (key: string, text: string, required: boolean): number | null => {
+    const read = readNumber(text);
+    if (!read.ok) {
+      errors[key] = read.error;
+      return null;
+    }
+    if (read.value === null && required) {
+      errors[key] = key === 'fuseA' ? 'choose a rating, or “No fuse”' : 'is required';
+    }
+    return read.value;
+  };
+
+  const size = parseWireSize(values.wireSize, unit);
+  let sizeMm2: number | null = null;
+  if (!size.ok) errors['wire.sizeMm2'] = size.error;
+  else if (size.areaMm2 === null) errors['wire.sizeMm2'] = 'is required';
+  else sizeMm2 = size.areaMm2;
+
+  const candidate = {
+    name: values.name,
+    source: values.source,
+    sourceFeedId: values.source === 'relay_output' ? readId(values.sourceFeedId) : null,
+    fuseA: values.fuseA === NO_FUSE ? null : number('fuseA', values.fuseA, true),
+    relay: values.hasRelay
+      ? {
+          contactRatingA: number('relay.contactRatingA', values.relayContactRatingA, true),
+          coilCurrentA: number('relay.coilCurrentA', values.relayCoilCurrentA, true),
+          coilPinId: readId(values.relayCoilPinId),
+        }
+      : null,
+    wire: {
+      sizeMm2,
+      insulationRatingC: Number(values.insulationRatingC),
+      lengthM: number('wire.lengthM', values.lengthM, true),
+      zone: values.zone,
+      bundled: number('wire.bundled', values.bundled, true),
+      returnPath: values.returnPath,
+      colour: values.colour,
+    },
+    loads: values.loads.map((l, i) => {
+      if (l.pinId === '' && l.name.trim() === '') {
+        errors[`loads.${i}.name`] = 'name the device or pick a pin';
+      }
+      return {
+        pinId: readId(l.pinId),
+        name: l.name,
+        currentA: number(`loads.${i}.currentA`, l.currentA, true),
+        continuous: l.continuous,
+      };
+    }),
+    dropClass: values.dropClass,
+    dropLimitPct: number('dropLimitPct', values.dropLimitPct, false),
+    notes: values.notes,
+  };
+
+  const parsed = CreateFeedRequest.safeParse(candidate);
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) {
+      const key = issue.path.length ? issue.path.join('.') : '(form)';
+      // Our own message (e.g. "is required") says more than the schema's type error.
+      errors[key] ??= issue.message;
+    }
+  }
+  if (Object.keys(errors).length || !parsed.success) return { ok: false, errors };
+  return { ok: true, request: parsed.data };
+}
+
+/** A feed as the live calculation needs it: its loads, wire, fuse and who powers whom. */
+export interface FeedLike {
+  id: number;
+  name: string;
+  source: FeedSource;
+  sourceFeedId: number | null;
+  fuseA: number | null;
+  loads: Array<{ currentA: number; continuous: boolean }>;
+}
+
+export interface LoadTotals {
+  continuousA: number;
+  nonContinuousA: number;
+  totalA: number;
+}
+
+/** Sums the load rows that hold a number; unreadable rows count as nothing. */
+export function loadTotals(loads: Array<{ currentA: string; continuous: boolean }>): LoadTotals {
+  let continuousA = 0;
+  let nonContinuousA = 0;
+  for (const l of loads) {
+    const read = readNumber(l.currentA);
+    if (!read.ok || read.value === null || read.value < 0) continue;
+    if (l.continuous) continuousA += read.value;
+    else nonContinuousA += read.value;
+  }
+  return { continuousA, nonContinuousA, totalA: continuousA + nonContinuousA };
+}
+
+/** The loads of every feed a feed's relay powers, down the chain (as the checks count them). */
+export function downstreamTotals(feedId: number | null, feeds: readonly FeedLike[]): LoadTotals {
+  const totals = { continuousA: 0, nonContinuousA: 0, totalA: 0 };
+  if (feedId === null) return totals;
+  const seen = new Set<number>([feedId]);
+  const queue = [feedId];
+  while (queue.length) {
+    const at = queue.shift()!;
+    for (const f of feeds) {
+      if (f.source !== 'relay_output' || f.sourceFeedId !== at || seen.has(f.id)) continue;
+      seen.add(f.id);
+      queue.push(f.id);
+      for (const l of f.loads) {
+        if (l.continuous) totals.continuousA += l.currentA;
+        else totals.nonContinuousA += l.currentA;
+      }
+    }
+  }
+  totals.totalA = totals.continuousA + totals.nonContinuousA;
+  return totals;
+}
+
+/** The fuse that protects the wire: the feed's own, else the nearest up its chain of relay outputs. */
+export function upstreamFuse(
+  sourceFeedId: number | null,
+  feeds: readonly FeedLike[],
+): { fuseA: number; feedName: string } | null {
+  const byId = new Map(feeds.map((f) => [f.id, f]));
+  const seen = new Set<number>();
+  for (
+    let at = sourceFeedId == null ? undefined : byId.get(sourceFeedId);
+    at && !seen.has(at.id);
+  ) {
+    seen.add(at.id);
+    if (at.fuseA != null) return { fuseA: at.fuseA, feedName: at.name };
+    if (at.source !== 'relay_output' || at.sourceFeedId == null) return null;
+    at = byId.get(at.sourceFeedId);
+  }
+  return null;
+}
+
+export type LiveCalc =
+  | {
+      ok: true;
+      request: CalcRequestInput;
+      totals: LoadTotals;
+      /** Set when the fuse is another feed's, up the chain. */
+      fuseFrom: string | null;
+    }
+  | { ok: false; missing: string };
+
+/**
+ * The calculator request that mirrors what the checks will compute for this feed: the current of
+ * its loads and of the feeds its relay powers, the conductor at the ambient Table 5 assumes for the
+ * zone, the protecting fuse, the drop limit of its class, and the bundle count (both apply the
+ * bundle factors from three conductors up).
+ */
+export function formToCalcRequest(
+  values: FeedFormValues,
+  unit: SizeUnit,
+  context: { systemV: number; feedId: number | null; feeds: readonly FeedLike[] },
+): LiveCalc {
+  const own = loadTotals(values.loads);
+  const below = downstreamTotals(context.feedId, context.feeds);
+  const totals = {
+    continuousA: own.continuousA + below.continuousA,
+    nonContinuousA: own.nonContinuousA + below.nonContinuousA,
+    totalA: own.totalA + below.totalA,
+  };
+  if (!(totals.totalA > 0)) return { ok: false, missing: 'Add a load with its current.' };
+
+  const size = parseWireSize(values.wireSize, unit);
+  if (!size.ok || size.areaMm2 === null) return { ok: false, missing: 'Enter the wire size.' };
+  const iso = exactIsoSize(size.areaMm2);
+  const gauge = exactAwg(size.areaMm2);
+
+  const length = readNumber(values.lengthM);
+  if (!length.ok || length.value === null || !(length.value > 0)) {
+    return { ok: false, missing: 'Enter the one-way length of the run.' };
+  }
+
+  const ownFuse = readNumber(values.fuseA === NO_FUSE ? '' : values.fuseA);
+  let fuseA: number | undefined =
+    ownFuse.ok && ownFuse.value !== null && ownFuse.value > 0 ? ownFuse.value : undefined;
+  let fuseFrom: string | null = null;
+  if (fuseA === undefined && values.source === 'relay_output') {
+    const upstream = upstreamFuse(readId(values.sourceFeedId), context.feeds);
+    if (upstream) {
+      fuseA = upstream.fuseA;
+      fuseFrom = upstream.feedName;
+    }
+  }
+
+  const override = readNumber(values.dropLimitPct);
+  const dropLimitPct =
+    override.ok && override.value !== null && override.value > 0
+      ? override.value
+      : DROP_LIMIT_PCT[values.dropClass];
+
+  const bundled = readNumber(values.bundled);
+  const request: CalcRequestInput = {
+    currentA: Number(totals.totalA.toFixed(4)),
+    lengthM: length.value,
+    systemV: context.systemV,
+    ...(iso !== null ? { sizeMm2: iso } : { awg: gauge ?? undefined }),
+    returnPath: values.returnPath,
+    conductorTempC: CONDUCTOR_TEMP_C[values.zone],
+    insulationRatingC: Number(values.insulationRatingC),
+    zone: values.zone,
+    bundled: bundled.ok && bundled.value !== null && bundled.value >= 1 ? bundled.value : 1,
+    ...(fuseA !== undefined && { fuseA }),
+    dropLimitPct,
+  };
+  return {
+    ok: true,
+    request,
+    totals,
+    fuseFrom,
+  };
+}
