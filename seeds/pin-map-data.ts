@@ -43,7 +43,7 @@ const E1: DemoConnector = {
     ['4', 'Injector 4 drive', 'actuator_output', 'BU/BK', 0.75, 'keep', ''],
     ['5', 'Ignition coil 1 trigger', 'actuator_output', 'GN/WH', 0.5, 'keep', ''],
     ['6', 'Ignition coil 2 trigger', 'actuator_output', 'GN/RD', 0.5, 'keep', ''],
-    ['7', 'Ignition coil 3 trigger', 'actuator_output', 'GN/YE', 0.5, 'keep', ''],
+    ['7', 'Ignition coil 3 trigger', 'actuator_output', 'GN/OG', 0.5, 'keep', ''],
     ['8', 'Ignition coil 4 trigger', 'actuator_output', 'GN/BK', 0.5, 'keep', ''],
     ['9', 'Crank position sensor +', 'sensor_signal', 'WH', 0.5, 'keep', ''],
     ['10', 'Crank position sensor −', 'sensor_ground', 'BK/WH', 0.5, 'keep', ''],

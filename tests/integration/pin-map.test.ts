@@ -337,3 +337,18 @@ describe('bulk and batch edits', () => {
     expect(after.map((p) => p.version)).toEqual([1, 1, 0]);
   });
 });
+
+describe('saving without a change', () => {
+  it('keeps the version and writes nothing to the audit trail', async () => {
+    const { body } = await createConnector({ label: 'N1', side: 'ecu', cavityCount: 1 });
+    const [pin] = await pinsOf(body.connector.id);
+    const audit = await AuditEvent.count({ where: { conversionId, entityType: 'pin' } });
+    const res = await request(ctx.app)
+      .patch(`/api/pins/${pin!.id}`)
+      .set('Authorization', builder)
+      .send({ disposition: 'undecided', version: 0 });
+    expect(res.status).toBe(200);
+    expect(res.body.pin.version).toBe(0);
+    expect(await AuditEvent.count({ where: { conversionId, entityType: 'pin' } })).toBe(audit);
+  });
+});

@@ -144,6 +144,8 @@ export async function updatePin(
     );
     await assertDestinationFeeds(pin.conversionId, [set.destinationFeedId], t);
     const changes = changedOnly(pin, set);
+    // Saving the same values again is not a change: no new version, nothing in the audit trail.
+    if (Object.keys(changes).length === 0) return toPinDto(pin);
     const before = beforeOf(pin, changes);
     pin.set(set);
     await pin.save({ transaction: t });
@@ -200,6 +202,7 @@ export async function bulkUpdatePins(
     await assertDestinationFeeds(conversionId, [input.set.destinationFeedId], t);
     const before: Record<number, Record<string, unknown>> = {};
     for (const pin of pins.values()) {
+      if (Object.keys(changedOnly(pin, input.set)).length === 0) continue;
       before[pin.id] = beforeOf(pin, input.set);
       pin.set(input.set);
       await pin.save({ transaction: t });
@@ -257,11 +260,12 @@ export async function batchUpdatePins(
     for (const change of input.changes) {
       const pin = pins.get(change.id)!;
       const changes = changedOnly(pin, change.set);
+      saved.set(pin.id, pin);
+      if (Object.keys(changes).length === 0) continue;
       before[pin.id] = { ...before[pin.id], ...beforeOf(pin, changes) };
       after[pin.id] = { ...after[pin.id], ...changes };
       pin.set(change.set);
       await pin.save({ transaction: t });
-      saved.set(pin.id, pin);
     }
     await recordAudit(t, actor, {
       conversionId,

@@ -1,0 +1,203 @@
+import { memo, useId, useState, type KeyboardEvent } from 'react';
+import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
+import { describeWireColour } from '#shared/domain/wire-colours.ts';
+import { formatWireSize } from '#shared/domain/wire-sizes.ts';
+import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
+import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
+import { faceCavities, type FaceCavity } from '../lib/face.ts';
+import type { DispositionCounts } from '../lib/progress.ts';
+import { DispositionGlyphPath, DispositionLabel } from './disposition-glyph.tsx';
+import { WireColour } from './wire-colour.tsx';
+
+interface FaceProps {
+  connector: Connector;
+  /** This connector's pins. */
+  pins: readonly Pin[];
+  counts: DispositionCounts;
+  unit: SizeUnit;
+  onActivate: (pinId: number) => void;
+}
+
+const PITCH = 34;
+const BOX = 28;
+const MARGIN = 12;
+
+function describeCavity(connector: Connector, pin: Pin, unit: SizeUnit): string {
+  const parts = [
+    `Cavity ${connector.label}-${pin.cavity}`,
+    pin.function || 'no function recorded',
+    pin.colour ? `wire ${pin.colour}, ${describeWireColour(pin.colour)}` : 'no wire colour',
+    pin.sizeMm2 != null ? formatWireSize(pin.sizeMm2, unit) : 'no size',
+    DISPOSITION_INFO[pin.disposition].label,
+  ];
+  return parts.join('; ');
+}
+
+/**
+ * A connector seen from its mating face: each cavity in its row and column, marked with its
+ * disposition's glyph and its label. Clicking a cavity (or Enter on it) goes to its row in the grid.
+ */
+export const ConnectorFace = memo(function ConnectorFace({
+  connector,
+  pins,
+  counts,
+  unit,
+  onActivate,
+}: FaceProps) {
+  const id = useId().replace(/[^a-zA-Z0-9]/g, '');
+  const cavities = faceCavities(connector, pins);
+  const [shown, setShown] = useState<FaceCavity | null>(null);
+  const [focusIndex, setFocusIndex] = useState(0);
+  const width = MARGIN * 2 + connector.columns * PITCH - (PITCH - BOX);
+  const height = MARGIN * 2 + connector.rows * PITCH - (PITCH - BOX);
+  const at = (c: FaceCavity) => ({ x: MARGIN + c.column * PITCH, y: MARGIN + c.row * PITCH });
+  const summary = Object.entries(counts)
+    .filter(([, n]) => n > 0)
+    .map(
+      ([d, n]) =>
+        `${n} ${DISPOSITION_INFO[d as keyof typeof DISPOSITION_INFO].label.toLowerCase()}`,
+    )
+    .join(', ');
+
+  function focusCavity(index: number) {
+    const next = Math.min(Math.max(index, 0), cavities.length - 1);
+    setFocusIndex(next);
+    document.getElementById(`${id}-cavity-${next}`)?.focus();
+  }
+
+  function onKeyDown(event: KeyboardEvent<SVGGElement>, index: number, cavity: FaceCavity) {
+    const step: Record<string, number> = {
+      ArrowRight: 1,
+      ArrowLeft: -1,
+      ArrowDown: connector.columns,
+      ArrowUp: -connector.columns,
+    };
+    if (event.key in step) {
+      event.preventDefault();
+      focusCavity(index + step[event.key]!);
+    } else if (event.key === 'Enter' || event.key === ' ') {
+      event.preventDefault();
+      onActivate(cavity.pin.id);
+    }
+  }
+
+  const tip = shown ? at(shown) : null;
+  return (
+    <div className="relative w-fit max-w-full">
+      <div className="overflow-x-auto">
+        <svg
+          width={width}
+          height={height}
+          viewBox={`0 0 ${width} ${height}`}
+          role="group"
+          aria-labelledby={`${id}-title`}
+          aria-describedby={`${id}-desc`}
+          className="block"
+        >
+          <title id={`${id}-title`}>
+            {`Face of connector ${connector.label}: ${connector.rows} × ${connector.columns}, ${connector.cavityCount} cavities`}
+          </title>
+          <desc
+            id={`${id}-desc`}
+          >{`${summary}. Choose a cavity to go to its row in the grid.`}</desc>
+          <rect
+            x={1}
+            y={1}
+            width={width - 2}
+            height={height - 2}
+            rx={8}
+            className="fill-paper-sunk stroke-rule-strong"
+          />
+          <rect
+            x={width / 2 - 14}
+            y={-1}
+            width={28}
+            height={5}
+            rx={2}
+            className="fill-rule-strong"
+          />
+          {cavities.map((cavity, index) => {
+            const { x, y } = at(cavity);
+            const { pin } = cavity;
+            const undecided = pin.disposition === 'undecided';
+            return (
+              <g
+                key={pin.id}
+                id={`${id}-cavity-${index}`}
+                role="button"
+                tabIndex={index === focusIndex ? 0 : -1}
+                aria-label={describeCavity(connector, pin, unit)}
+                onClick={() => onActivate(pin.id)}
+                onKeyDown={(e) => onKeyDown(e, index, cavity)}
+                onMouseEnter={() => setShown(cavity)}
+                onMouseLeave={() => setShown(null)}
+                onFocus={() => {
+                  setFocusIndex(index);
+                  setShown(cavity);
+                }}
+                onBlur={() => setShown(null)}
+                className="group/cavity cursor-pointer outline-none"
+              >
+                <rect
+                  x={x}
+                  y={y}
+                  width={BOX}
+                  height={BOX}
+                  rx={5}
+                  strokeDasharray={undecided ? '3 2' : undefined}
+                  className={`fill-paper-raised ${undecided ? 'stroke-ink-faint' : 'stroke-ink-soft'} group-hover/cavity:stroke-ink group-focus-visible/cavity:stroke-focus group-focus-visible/cavity:stroke-[3]`}
+                />
+                <text x={x + 3} y={y + 8.5} className="fill-ink-soft font-mono text-[8px]">
+                  {pin.cavity.length > 4 ? `${pin.cavity.slice(0, 4)}…` : pin.cavity}
+                </text>
+                <g
+                  transform={`translate(${x + BOX / 2 - 6}, ${y + 11}) scale(1.2)`}
+                  className={undecided ? 'text-ink-faint' : 'text-ink'}
+                >
+                  <DispositionGlyphPath disposition={pin.disposition} />
+                </g>
+              </g>
+            );
+          })}
+        </svg>
+      </div>
+      {shown && tip ? (
+        <div
+          role="tooltip"
+          className="pointer-events-none absolute z-30 w-64 rounded-md border border-rule-strong bg-paper-raised px-3 py-2 text-sm shadow-lg"
+          style={{ left: Math.min(tip.x, Math.max(0, width - 256)), top: tip.y + BOX + 6 }}
+        >
+          <p className="font-mono font-semibold">
+            {connector.label}-{shown.pin.cavity}
+          </p>
+          <p className="text-ink">
+            {shown.pin.function || <span className="text-ink-faint">No function recorded</span>}
+          </p>
+          <p className="mt-1 flex items-center gap-3 text-ink-soft">
+            <WireColour value={shown.pin.colour} />
+            <span className="font-mono text-[0.8125rem]">
+              {shown.pin.sizeMm2 != null ? formatWireSize(shown.pin.sizeMm2, unit) : 'no size'}
+            </span>
+          </p>
+          <p className="mt-1">
+            <DispositionLabel disposition={shown.pin.disposition} />
+          </p>
+        </div>
+      ) : null}
+    </div>
+  );
+}, sameFace);
+
+const sameItems = <T,>(a: readonly T[], b: readonly T[]) =>
+  a.length === b.length && a.every((item, i) => item === b[i]);
+
+/** Redraw a face only when one of its own pins (or its layout) changed, not on every edit. */
+function sameFace(before: FaceProps, after: FaceProps): boolean {
+  return (
+    before.connector === after.connector &&
+    before.unit === after.unit &&
+    before.onActivate === after.onActivate &&
+    sameItems(before.pins, after.pins) &&
+    sameItems(Object.values(before.counts), Object.values(after.counts))
+  );
+}

@@ -1,0 +1,354 @@
+import { useQueryClient } from '@tanstack/react-query';
+import type { ColumnVisibilityState, RowSelectionState } from '@tanstack/react-table';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { flushSync } from 'react-dom';
+import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
+import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
+import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
+import { Button } from '@/components/ui/button.tsx';
+import { Loading } from '@/components/ui/loading.tsx';
+import { Notice } from '@/components/ui/notice.tsx';
+import { useCreateConnector } from '../api/create-connector.ts';
+import { useDeleteConnector } from '../api/delete-connector.ts';
+import { useConnectors } from '../api/get-connectors.ts';
+import { usePins } from '../api/get-pins.ts';
+import { pinMapKeys } from '../api/keys.ts';
+import { useUpdateConnector } from '../api/update-connector.ts';
+import { usePinEditing } from '../hooks/use-pin-editing.ts';
+import { useStableHandler } from '../hooks/use-stable-handler.ts';
+import type { CellContext } from '../lib/cell-values.ts';
+import { filterRows, NO_FILTER, revealRow, type PinFilter } from '../lib/filter.ts';
+import { countDispositions, countsByConnector, pinsByConnector } from '../lib/progress.ts';
+import { destinationCavities, toPinRows, type DestinationFeed } from '../lib/rows.ts';
+import { ColumnMenu } from './column-menu.tsx';
+import { ConnectorCard } from './connector-card.tsx';
+import { ConnectorForm, type ConnectorFormValues } from './connector-form.tsx';
+import { DispositionTally } from './disposition-tally.tsx';
+import { FilterBar } from './filter-bar.tsx';
+import { PinGrid, type PinGridHandle } from './pin-grid.tsx';
+import { PinMapMessages } from './pin-map-messages.tsx';
+import { SelectionToolbar } from './selection-toolbar.tsx';
+import { UndecidedList } from './undecided-list.tsx';
+
+const EMPTY_COUNTS = countDispositions([]);
+
+/**
+ * The builder's pin map of one conversion: progress, connector faces, the undecided pins and the
+ * pin grid. Reviewers and technicians see the same, without the controls that change anything.
+ */
+export function PinMapScreen({
+  conversionId,
+  sizeUnit,
+  readOnly,
+  feeds,
+  focusPinId,
+}: {
+  conversionId: number;
+  sizeUnit: SizeUnit;
+  readOnly: boolean;
+  /** The conversion's new feeds, which a pin can join as its destination. */
+  feeds: readonly DestinationFeed[];
+  /** A pin to bring into view and focus on arrival (a link from a check finding). */
+  focusPinId?: number | null;
+}) {
+  const connectors = useConnectors(conversionId);
+  const pins = usePins(conversionId);
+  if (connectors.isPending || pins.isPending) return <Loading what="Loading the pin map" />;
+  if (connectors.isError || pins.isError) {
+    return (
+      <Notice tone="fault" title="The pin map could not be loaded">
+        {(connectors.error ?? pins.error)?.message}
+      </Notice>
+    );
+  }
+  return (
+    <PinMap
+      conversionId={conversionId}
+      sizeUnit={sizeUnit}
+      readOnly={readOnly}
+      feeds={feeds}
+      focusPinId={focusPinId ?? null}
+    />
+  );
+}
+
+const NO_CONNECTORS: Connector[] = [];
+const NO_PINS: Pin[] = [];
+
+function PinMap({
+  conversionId,
+  sizeUnit,
+  readOnly,
+  feeds,
+  focusPinId,
+}: {
+  conversionId: number;
+  sizeUnit: SizeUnit;
+  readOnly: boolean;
+  feeds: readonly DestinationFeed[];
+  focusPinId: number | null;
+}) {
+  // Read here rather than passed down: a render forced with flushSync (to show a pin that just
+  // arrived) then sees the freshest cache.
+  const connectors = useConnectors(conversionId).data ?? NO_CONNECTORS;
+  const pins = usePins(conversionId).data ?? NO_PINS;
+  const queryClient = useQueryClient();
+  const editing = usePinEditing(conversionId);
+  const createConnector = useCreateConnector(conversionId);
+  const updateConnector = useUpdateConnector(conversionId);
+  const deleteConnector = useDeleteConnector(conversionId);
+  const gridRef = useRef<PinGridHandle>(null);
+
+  const [filter, setFilter] = useState<PinFilter>(NO_FILTER);
+  const [rowSelection, setRowSelection] = useState<RowSelectionState>({});
+  const [columnVisibility, setColumnVisibility] = useState<ColumnVisibilityState>({});
+  const [form, setForm] = useState<{ connectorId: number | null } | null>(null);
+
+  const rows = useMemo(() => toPinRows(pins, connectors, feeds), [pins, connectors, feeds]);
+  const shown = useMemo(() => filterRows(rows, filter), [rows, filter]);
+  const destinations = useMemo(() => destinationCavities(pins, connectors), [pins, connectors]);
+  const ctx = useMemo<CellContext>(
+    () => ({ sizeUnit, destinations, feeds }),
+    [sizeUnit, destinations, feeds],
+  );
+  const counts = useMemo(() => countDispositions(pins), [pins]);
+  const perConnector = useMemo(() => countsByConnector(pins), [pins]);
+  const pinsOf = useMemo(() => pinsByConnector(pins), [pins]);
+
+  const selectedIds = rows.filter((r) => rowSelection[String(r.pin.id)]).map((r) => r.pin.id);
+  const shownIds = new Set(shown.map((r) => r.pin.id));
+  const hiddenSelected = selectedIds.filter((id) => !shownIds.has(id)).length;
+
+  /** Takes off the filters that hide the pin, then focuses its row. */
+  const goToPin = useStableHandler((pinId: number) => {
+    const row = rows.find((r) => r.pin.id === pinId);
+    if (!row) return;
+    flushSync(() => setFilter((f) => revealRow(row, f)));
+    gridRef.current?.focusPin(pinId);
+  });
+
+  // Arriving from a finding's link: show and focus that pin once the grid is there.
+  useEffect(() => {
+    if (focusPinId != null) goToPin(focusPinId);
+  }, [focusPinId, goToPin]);
+
+  async function saveConnector(values: ConnectorFormValues) {
+    if (form?.connectorId) {
+      const current = connectors.find((c) => c.id === form.connectorId);
+      if (!current) return;
+      await updateConnector.mutateAsync({
+        connectorId: current.id,
+        input: { ...values, version: current.version },
+      });
+      setForm(null);
+      return;
+    }
+    const { connector } = await createConnector.mutateAsync(values);
+    setForm(null);
+    // Straight on to mapping the new connector: only its pins, first cavity focused.
+    const fresh = queryClient.getQueryData<Pin[]>(pinMapKeys.pins(conversionId)) ?? [];
+    const first = fresh.find((p) => p.connectorId === connector.id && p.position === 0);
+    flushSync(() => setFilter({ ...NO_FILTER, connectorId: connector.id }));
+    if (first) gridRef.current?.focusPin(first.id);
+  }
+
+  const editingConnector = form?.connectorId
+    ? connectors.find((c) => c.id === form.connectorId)
+    : undefined;
+  const connectorMutation = form?.connectorId ? updateConnector : createConnector;
+
+  return (
+    <div className="flex flex-col gap-5">
+      <section
+        aria-label="Progress of the whole conversion"
+        className="flex flex-wrap items-start gap-x-8 gap-y-3"
+      >
+        <div className="min-w-72 flex-1">
+          <h2 className="mb-1.5 text-lg font-semibold">Pin map</h2>
+          <DispositionTally counts={counts} />
+        </div>
+        <div className="flex flex-wrap items-center gap-2">
+          <p role="status" className={`text-sm text-ink-soft ${readOnly ? 'hidden' : ''}`}>
+            {editing.saving ? (
+              <span className="inline-flex items-center gap-1.5">
+                <span
+                  aria-hidden
+                  className="size-3 animate-spin rounded-full border-2 border-copper border-t-transparent"
+                />
+                Saving…
+              </span>
+            ) : (
+              <span>
+                <span aria-hidden>✓ </span>All changes saved
+              </span>
+            )}
+          </p>
+          {readOnly ? null : (
+            <>
+              <Button
+                onClick={editing.undo}
+                disabled={!editing.canUndo}
+                title={
+                  editing.nextUndo ? `Undo ${editing.nextUndo} (Ctrl+Z in the grid)` : undefined
+                }
+              >
+                <span aria-hidden>↶</span> Undo
+                {editing.nextUndo ? <span className="sr-only"> {editing.nextUndo}</span> : null}
+              </Button>
+              <Button variant="primary" onClick={() => setForm({ connectorId: null })}>
+                Add connector
+              </Button>
+            </>
+          )}
+        </div>
+      </section>
+
+      {readOnly ? (
+        <Notice tone="info" title="Read only">
+          Your role can look through the pin map, filter it and copy from it, but not change it.
+        </Notice>
+      ) : null}
+
+      {form && !readOnly ? (
+        <ConnectorForm
+          key={form.connectorId ?? 'new'}
+          connector={editingConnector}
+          busy={connectorMutation.isPending}
+          error={connectorMutation.error}
+          onSubmit={(values) => void saveConnector(values).catch(() => undefined)}
+          onCancel={() => {
+            connectorMutation.reset();
+            setForm(null);
+          }}
+        />
+      ) : null}
+
+      <details open aria-labelledby="faces-heading">
+        <summary className="mb-2 cursor-pointer">
+          <h2 id="faces-heading" className="inline text-base font-semibold">
+            Connectors <span className="font-normal text-ink-faint">({connectors.length})</span>
+          </h2>
+          <span className="ml-2 text-sm text-ink-faint">faces and progress</span>
+        </summary>
+        {connectors.length === 0 ? (
+          <p className="text-ink-soft">
+            No connectors yet.{' '}
+            {readOnly ? '' : 'Add the donor ECU’s connectors to start mapping their pins.'}
+          </p>
+        ) : (
+          <div className="grid grid-flow-row-dense gap-3 md:grid-cols-2 xl:grid-cols-3">
+            {connectors.map((c) => (
+              <ConnectorCard
+                key={c.id}
+                wide={c.columns > 11}
+                connector={c}
+                pins={pinsOf.get(c.id) ?? NO_PINS}
+                counts={perConnector.get(c.id) ?? EMPTY_COUNTS}
+                unit={sizeUnit}
+                canWrite={!readOnly}
+                deleting={deleteConnector.isPending && deleteConnector.variables === c.id}
+                onActivate={goToPin}
+                onEdit={() => setForm({ connectorId: c.id })}
+                onDelete={() =>
+                  deleteConnector.mutate(c.id, {
+                    onSuccess: () => {
+                      if (filter.connectorId === c.id) setFilter(NO_FILTER);
+                      editing.notify({ tone: 'sound', title: `Connector ${c.label} deleted.` });
+                    },
+                    onError: (error) =>
+                      editing.notify({
+                        tone: 'fault',
+                        title: `${c.label} was not deleted: ${error.message}`,
+                      }),
+                  })
+                }
+              />
+            ))}
+          </div>
+        )}
+      </details>
+
+      <UndecidedList
+        rows={rows}
+        onJump={goToPin}
+        onFilterUndecided={() => setFilter({ ...NO_FILTER, disposition: 'undecided' })}
+      />
+
+      <section aria-label="Pin grid" className="flex flex-col gap-3">
+        <FilterBar
+          filter={filter}
+          onChange={setFilter}
+          connectors={connectors}
+          shown={shown.length}
+          total={rows.length}
+        >
+          <ColumnMenu
+            visibility={columnVisibility}
+            onChange={setColumnVisibility}
+            unit={sizeUnit}
+          />
+        </FilterBar>
+        <PinMapMessages messages={editing.messages} onDismiss={editing.dismiss} />
+        {!readOnly && selectedIds.length > 0 ? (
+          <SelectionToolbar
+            count={selectedIds.length}
+            hiddenCount={hiddenSelected}
+            destinations={destinations}
+            feeds={feeds}
+            onSetDisposition={(d) =>
+              editing.writeSelection(
+                selectedIds,
+                { disposition: d },
+                `disposition ${DISPOSITION_INFO[d].label.toLowerCase()} on ${selectedIds.length} pins`,
+              )
+            }
+            onSetDestination={(set) =>
+              editing.writeSelection(selectedIds, set, `destination on ${selectedIds.length} pins`)
+            }
+            onClear={() => setRowSelection({})}
+          />
+        ) : null}
+        <PinGrid
+          ref={gridRef}
+          rows={shown}
+          ctx={ctx}
+          readOnly={readOnly}
+          rowSelection={rowSelection}
+          onRowSelectionChange={setRowSelection}
+          columnVisibility={columnVisibility}
+          onColumnVisibilityChange={setColumnVisibility}
+          editing={editing}
+          describedBy="pin-grid-keys"
+        />
+        <KeyHelp readOnly={readOnly} />
+      </section>
+    </div>
+  );
+}
+
+function Key({ children }: { children: string }) {
+  return (
+    <kbd className="rounded border border-rule-strong bg-paper-raised px-1 font-mono text-[0.75rem]">
+      {children}
+    </kbd>
+  );
+}
+
+function KeyHelp({ readOnly }: { readOnly: boolean }) {
+  return (
+    <p id="pin-grid-keys" className="text-xs leading-relaxed text-ink-faint">
+      <Key>↑</Key> <Key>↓</Key> <Key>←</Key> <Key>→</Key> and <Key>Tab</Key> move · <Key>Shift</Key>
+      +arrows or Shift+click mark cells · <Key>↑</Key> from the first row reaches the headings,
+      where <Key>Enter</Key> sorts · <Key>Ctrl</Key>+<Key>C</Key> copies
+      {readOnly ? null : (
+        <>
+          {' '}
+          · <Key>Enter</Key> or <Key>F2</Key> edits, or just type · <Key>Esc</Key> cancels ·{' '}
+          <Key>Delete</Key> empties · <Key>Ctrl</Key>+<Key>V</Key> pastes a block from a spreadsheet
+          · <Key>Ctrl</Key>+<Key>D</Key> fills down · <Key>Ctrl</Key>+<Key>Z</Key> undoes ·{' '}
+          <Key>Space</Key> on the first column selects the row
+        </>
+      )}
+    </p>
+  );
+}
