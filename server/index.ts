@@ -5,6 +5,7 @@ import { isEmpty, seedDemo } from '../seeds/seed-demo.ts';
 import { createApp } from './app.ts';
 import { EnvError, loadEnv } from './config/env.ts';
 import { closeDatabase, connectDatabase } from './db/index.ts';
+import { startFileStore } from './lib/file-store-setup.ts';
 import { logger } from './lib/logger.ts';
 import { startMail } from './modules/mail/mail-setup.ts';
 
@@ -19,6 +20,7 @@ async function main() {
     logger.info({ database: env.DATABASE_PATH }, 'seeded the demo workshop');
   }
   const stopMail = await startMail(env);
+  const stopFileStore = await startFileStore(env);
   const app = createApp({ env, clientDir: path.join(projectRoot, 'dist') });
   const server = app.listen(env.PORT, env.HOST, () => {
     const url = `http://localhost:${env.PORT}`;
@@ -35,6 +37,7 @@ async function main() {
     logger.info({ signal }, 'shutting down');
     server.close(() => {
       void stopMail()
+        .then(stopFileStore)
         .then(closeDatabase)
         .finally(() => process.exit(0));
     });

@@ -42,6 +42,33 @@ const EnvSchema = z.object({
   FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
   /** How often queued notices are sent, ms. */
   OUTBOX_INTERVAL_MS: z.coerce.number().int().min(200).max(600_000).default(3000),
+  /**
+   * File storage for reference scans: an S3-compatible endpoint (path-style). Without one, demo
+   * mode starts a local S3 fake (s3rver) and other modes keep files in UPLOAD_DIR.
+   */
+  S3_ENDPOINT: z.string().url().optional(),
+  S3_BUCKET: z.string().min(3).max(63).default('loomwright'),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  /** Port of the local S3 fake in demo mode, on 127.0.0.1 (0 picks a free one). */
+  S3_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(4568),
+  /** Folder for stored files when no S3 endpoint is used; default `uploads` beside the database. */
+  UPLOAD_DIR: z.string().min(1).optional(),
+  /** Largest pinout CSV accepted, bytes. */
+  IMPORT_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .min(1024)
+    .max(50_000_000)
+    .default(2 * 1024 * 1024),
+  /** Largest reference scan accepted, bytes. */
+  ATTACHMENT_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .min(1024)
+    .max(100_000_000)
+    .default(10 * 1024 * 1024),
   LOG_LEVEL: z.enum(['silent', 'fatal', 'error', 'warn', 'info', 'debug']).default('info'),
 });
 

@@ -1,0 +1,46 @@
+import path from 'node:path';
+import type { Env } from '../config/env.ts';
+import { S3FileStore, setFileStore, uploadDir } from './file-store.ts';
+import { logger } from './logger.ts';
+import { S3_FAKE_CREDENTIALS, startS3Fake, type S3Fake } from './s3-fake.ts';
+
+/**
+ * Chooses where uploaded files go. A configured S3 endpoint wins; in demo mode without one, a local
+ * S3 fake is started on 127.0.0.1 with its objects under the data folder; otherwise a plain folder.
+ * Returns a function that stops what was started.
+ */
+export async function startFileStore(env: Env): Promise<() => Promise<void>> {
+  if (env.S3_ENDPOINT) {
+    logger.info({ endpoint: env.S3_ENDPOINT, bucket: env.S3_BUCKET }, 'files are stored in S3');
+    return async () => {};
+  }
+  if (!env.DEMO) {
+    logger.info({ folder: uploadDir(env) }, 'no S3_ENDPOINT: files are stored in a local folder');
+    return async () => {};
+  }
+  const directory = path.join(env.DATA_DIR, 's3');
+  let fake: S3Fake;
+  try {
+    fake = await startS3Fake({ directory, bucket: env.S3_BUCKET, port: env.S3_FAKE_PORT });
+  } catch (err) {
+    if ((err as NodeJS.ErrnoException).code !== 'EADDRINUSE') throw err;
+    fake = await startS3Fake({ directory, bucket: env.S3_BUCKET, port: 0 });
+    logger.warn({ wanted: env.S3_FAKE_PORT, port: fake.port }, 'S3 fake port busy; using another');
+  }
+  const store = new S3FileStore({
+    endpoint: fake.endpoint,
+    bucket: env.S3_BUCKET,
+    region: env.S3_REGION,
+    ...S3_FAKE_CREDENTIALS,
+  });
+  setFileStore(store);
+  logger.info(
+    { endpoint: fake.endpoint, bucket: env.S3_BUCKET, directory },
+    'demo mode: files go to the local S3 fake',
+  );
+  return async () => {
+    setFileStore(null);
+    store.destroy();
+    await fake.close();
+  };
+}

@@ -1,0 +1,21 @@
+/** The parts of s3rver 3.x (a local S3 fake; ships no types) that Loomwright uses. */
+declare module 's3rver' {
+  import type { AddressInfo } from 'node:net';
+
+  interface S3rverOptions {
+    address?: string;
+    port?: number;
+    silent?: boolean;
+    directory?: string;
+    resetOnClose?: boolean;
+    allowMismatchedSignatures?: boolean;
+    vhostBuckets?: boolean;
+    configureBuckets?: Array<{ name: string; configs?: Array<string | Buffer> }>;
+  }
+
+  export default class S3rver {
+    constructor(options?: S3rverOptions);
+    run(): Promise<AddressInfo>;
+    close(): Promise<void>;
+  }
+}

@@ -1,0 +1,521 @@
+import { createHash } from 'node:crypto';
+import type { Transaction } from 'sequelize';
+import {
+  MAX_IMPORT_ERRORS_LISTED,
+  type ColumnTarget,
+  type ImportField,
+  type ImportIssue,
+  type ImportResult,
+} from '#shared/schemas/imports.schema.ts';
+import { db } from '../../db/index.ts';
+import {
+  Connector,
+  Conversion,
+  Feed,
+  FeedLoad,
+  ImportMapping,
+  Pin,
+  PinImport,
+  User,
+} from '../../db/models/index.ts';
+import type { Actor } from '../../lib/actor.ts';
+import { AppError, notFound } from '../../lib/errors.ts';
+import { logger } from '../../lib/logger.ts';
+import { inTransaction } from '../../lib/transaction.ts';
+import type { UploadedFile } from '../../lib/upload.ts';
+import { recordAudit } from '../audit/audit.service.ts';
+import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
+import { decodeUtf8, DELIMITER_NAMES, readCsv } from './csv-text.ts';
+import { headerSignature, parseMappingField, resolveMapping } from './mapping.ts';
+import { planImport, type Plan, type PlanContext, type PinData } from './plan.ts';
+import { parseRows, type PinRow } from './rows.ts';
+
+export type ImportTarget =
+  { kind: 'connector'; connectorId: number } | { kind: 'conversion'; conversionId: number };
+
+/** Rows written per statement: short statements keep the write lock short (SQLite section). */
+const CHUNK = 500;
+/** Rows of the file sent back with a preview, besides every row that has a problem. */
+const PREVIEW_ROWS = 1000;
+
+function chunks<T>(items: readonly T[], size = CHUNK): T[][] {
+  const out: T[][] = [];
+  for (let i = 0; i < items.length; i += size) out.push(items.slice(i, i + size));
+  return out;
+}
+
+/** The uploaded name, for display only: no folders, no control characters, not too long. */
+export function displayFileName(name: string): string {
+  const base = name.split(/[\\/]/).pop() ?? '';
+  // eslint-disable-next-line no-control-regex -- finding control characters is the point
+  const clean = base.replace(/[\u0000-\u001F\u007F]/g, '').trim();
+  return (clean || 'upload').slice(0, 200);
+}
+
+interface Where {
+  conversionId: number;
+  connectorId: number | null;
+  label: string | null;
+}
+
+async function locate(actor: Actor, target: ImportTarget): Promise<Where> {
+  if (target.kind === 'conversion') {
+    await findConversionInWorkshop(actor, target.conversionId);
+    return { conversionId: target.conversionId, connectorId: null, label: null };
+  }
+  const connector = await Connector.findOne({
+    where: { id: target.connectorId },
+    include: [
+      {
+        model: Conversion,
+        attributes: [],
+        where: { workshopId: actor.workshopId },
+        required: true,
+      },
+    ],
+  });
+  if (!connector) throw notFound('That connector');
+  return {
+    conversionId: connector.conversionId,
+    connectorId: connector.id,
+    label: connector.label,
+  };
+}
+
+const PIN_ATTRIBUTES = [
+  'id',
+  'connectorId',
+  'cavity',
+  'position',
+  'function',
+  'signalClass',
+  'colour',
+  'sizeMm2',
+  'insulationRatingC',
+  'disposition',
+  'destination',
+  'destinationPinId',
+  'destinationFeedId',
+  'runLengthM',
+  'loadCurrentA',
+  'notes',
+  'version',
+];
+
+/** A snapshot of the conversion's connectors, pins and feeds: what the plan works on. */
+async function loadContext(
+  where: Where,
+  transaction?: Transaction,
+): Promise<Omit<PlanContext, 'target'>> {
+  const { conversionId } = where;
+  const connectors = await Connector.findAll({
+    where: { conversionId },
+    attributes: ['id', 'label', 'side', 'cavityCount', 'rows', 'columns'],
+    order: [['id', 'ASC']],
+    raw: true,
+    transaction,
+  });
+  const pins = (await Pin.findAll({
+    where: { conversionId },
+    attributes: PIN_ATTRIBUTES,
+    raw: true,
+    transaction,
+  })) as unknown as PinData[];
+  const feeds = await Feed.findAll({
+    where: { conversionId },
+    attributes: ['id', 'name', 'relayCoilPinId'],
+    raw: true,
+    transaction,
+  });
+  const loads = feeds.length
+    ? await FeedLoad.findAll({
+        where: { feedId: feeds.map((f) => f.id) },
+        attributes: ['pinId'],
+        raw: true,
+        transaction,
+      })
+    : [];
+  const referencedPinIds = new Set<number>();
+  for (const p of pins) if (p.destinationPinId != null) referencedPinIds.add(p.destinationPinId);
+  for (const f of feeds) if (f.relayCoilPinId != null) referencedPinIds.add(f.relayCoilPinId);
+  for (const l of loads) if (l.pinId != null) referencedPinIds.add(l.pinId);
+  return {
+    connectors,
+    pins,
+    feeds: feeds.map((f) => ({ id: f.id, name: f.name })),
+    referencedPinIds,
+  };
+}
+
+interface Checked {
+  sha256: string;
+  fileName: string;
+  errors: ImportIssue[];
+  notes: string[];
+  rows: PinRow[];
+  mentioned: Array<{ connector: string | null; cavity: string }>;
+  mapping: ImportResult['mapping'];
+  mappingSource: ImportResult['mappingSource'];
+  headers: string[];
+  signature: string | null;
+  headerOf: (field: ImportField) => string | null;
+  imported: Set<ImportField>;
+  table: Array<{ row: number; cells: string[] }>;
+  dataRows: number;
+}
+
+/** Everything that needs no database write: decoding, parsing, the mapping, every cell. */
+async function checkFile(
+  actor: Actor,
+  where: Where,
+  file: UploadedFile,
+  given: Map<string, ColumnTarget> | null,
+): Promise<Checked> {
+  const sha256 = createHash('sha256').update(file.buffer).digest('hex');
+  const checked: Checked = {
+    sha256,
+    fileName: displayFileName(file.originalName),
+    errors: [],
+    notes: [],
+    rows: [],
+    mentioned: [],
+    mapping: [],
+    mappingSource: 'detected',
+    headers: [],
+    signature: null,
+    headerOf: () => null,
+    imported: new Set(),
+    table: [],
+    dataRows: 0,
+  };
+  const decoded = decodeUtf8(file.buffer);
+  if (!decoded.ok) {
+    checked.errors.push({ row: null, column: null, message: decoded.message });
+    return checked;
+  }
+  if (decoded.hadBom)
+    checked.notes.push('The byte-order mark at the start of the file was removed.');
+  const csv = readCsv(decoded.text);
+  checked.headers = csv.headers;
+  checked.dataRows = csv.records.length;
+  checked.table = csv.records.map((r) => ({ row: r.row, cells: r.cells }));
+  if (csv.headers.length === 0) {
+    checked.errors.push({
+      row: null,
+      column: null,
+      message: 'The file is empty: it has no header line.',
+    });
+    return checked;
+  }
+  if (csv.delimiter !== ',')
+    checked.notes.push(`Columns are separated by ${DELIMITER_NAMES[csv.delimiter]}s.`);
+  if (csv.blankLines) {
+    checked.notes.push(
+      `${csv.blankLines} blank line${csv.blankLines === 1 ? ' was' : 's were'} skipped.`,
+    );
+  }
+
+  checked.signature = headerSignature(csv.headers);
+  const saved = given
+    ? null
+    : await ImportMapping.findOne({
+        where: { workshopId: actor.workshopId, headerSignature: checked.signature },
+      });
+  const resolved = resolveMapping(
+    csv.headers,
+    csv.headerRow,
+    given,
+    saved ? (JSON.parse(saved.targetsJson) as ColumnTarget[]) : null,
+  );
+  checked.mapping = resolved.mapping;
+  checked.mappingSource = resolved.source;
+  checked.notes.push(...resolved.notes);
+  if (resolved.source === 'saved') {
+    checked.notes.push(
+      'The column choices from your workshop’s last import of a file with these columns were used.',
+    );
+  }
+  checked.headerOf = (field) => {
+    const i = resolved.columnOf.get(field);
+    return i === undefined ? null : csv.headers[i]!;
+  };
+  checked.imported = new Set(resolved.columnOf.keys());
+  checked.errors.push(...csv.errors, ...resolved.errors);
+  if (where.connectorId === null && !resolved.columnOf.has('connector')) {
+    checked.errors.push({
+      row: csv.headerRow,
+      column: null,
+      message:
+        'To import into the whole conversion the file needs a connector column saying which connector each row is on.',
+    });
+  }
+  if (csv.errors.length || !resolved.columnOf.has('cavity')) return checked;
+  if (where.connectorId === null && !resolved.columnOf.has('connector')) return checked;
+
+  const parsed = parseRows(csv.records, csv.headers, resolved.columnOf);
+  checked.rows = parsed.rows;
+  checked.mentioned = parsed.mentioned;
+  checked.errors.push(...parsed.errors);
+  if (csv.records.length === 0) {
+    checked.errors.push({
+      row: null,
+      column: null,
+      message: 'The file has a header but no pin rows.',
+    });
+  }
+  return checked;
+}
+
+function byRow(a: ImportIssue, b: ImportIssue): number {
+  return (a.row ?? 0) - (b.row ?? 0);
+}
+
+function buildResult(
+  where: Where,
+  checked: Checked,
+  plan: Plan | null,
+  dryRun: boolean,
+  previous: ImportResult['previousImport'],
+): ImportResult {
+  const errors = [...checked.errors, ...(plan?.errors ?? [])].sort(byRow);
+  const errorRows = new Set(errors.map((e) => e.row));
+  const table = dryRun
+    ? checked.table.filter((r, i) => i < PREVIEW_ROWS || errorRows.has(r.row))
+    : undefined;
+  return {
+    dryRun,
+    rows: checked.dataRows,
+    imported: 0,
+    errors: errors.slice(0, MAX_IMPORT_ERRORS_LISTED),
+    errorCount: errors.length,
+    changes: plan?.changes ?? [],
+    summary: plan?.summary ?? { added: 0, changed: 0, unchanged: 0, removed: 0 },
+    planned: plan !== null,
+    notes: checked.notes,
+    mapping: checked.mapping,
+    mappingSource: checked.mappingSource,
+    sha256: checked.sha256,
+    previousImport: previous,
+    target: {
+      conversionId: where.conversionId,
+      connectorId: where.connectorId,
+      label: where.label,
+    },
+    ...(table ? { table, tableTruncated: table.length < checked.table.length } : {}),
+  };
+}
+
+function refused(result: ImportResult): AppError {
+  const n = result.errorCount;
+  const { table: _table, tableTruncated: _truncated, ...details } = result;
+  return new AppError(
+    422,
+    'import_refused',
+    `The file has ${n} problem${n === 1 ? '' : 's'}; nothing was imported. Fix ${n === 1 ? 'it' : 'them'} and upload the file again.`,
+    details,
+  );
+}
+
+async function previousImport(
+  where: Where,
+  sha256: string,
+  transaction?: Transaction,
+): Promise<ImportResult['previousImport']> {
+  const earlier = await PinImport.findOne({
+    where: { conversionId: where.conversionId, connectorId: where.connectorId, sha256 },
+    order: [['id', 'DESC']],
+    transaction,
+  });
+  if (!earlier) return null;
+  const by = earlier.importedById
+    ? await User.findByPk(earlier.importedById, { attributes: ['name'], transaction })
+    : null;
+  return { at: earlier.createdAt.toISOString(), by: by?.name ?? null };
+}
+
+function contextTarget(where: Where): PlanContext['target'] {
+  return where.connectorId === null
+    ? { kind: 'conversion' }
+    : { kind: 'connector', connectorId: where.connectorId };
+}
+
+const UPDATED_FIELDS = [
+  'position',
+  'function',
+  'signalClass',
+  'colour',
+  'sizeMm2',
+  'insulationRatingC',
+  'disposition',
+  'destination',
+  'destinationPinId',
+  'destinationFeedId',
+  'runLengthM',
+  'loadCurrentA',
+  'notes',
+  'version',
+  'updatedAt',
+] as const;
+
+/** Writes a plan inside the caller's transaction, in statements of at most 500 rows. */
+async function writePlan(plan: Plan, conversionId: number, t: Transaction): Promise<void> {
+  const now = new Date();
+  for (const c of plan.connectors) {
+    for (const ids of chunks(c.removes)) {
+      await Pin.destroy({ where: { id: ids }, transaction: t });
+    }
+    for (const rows of chunks(c.updates)) {
+      // An upsert by id: one statement sets each row's own new values.
+      await Pin.bulkCreate(
+        rows.map((p) => ({ ...p, conversionId, updatedAt: now })),
+        { updateOnDuplicate: [...UPDATED_FIELDS], transaction: t },
+      );
+    }
+    for (const rows of chunks(c.adds)) {
+      await Pin.bulkCreate(
+        rows.map((p) => ({ ...p, conversionId, connectorId: c.connectorId })),
+        { transaction: t },
+      );
+    }
+    const connector = await Connector.findByPk(c.connectorId, { transaction: t });
+    if (!connector) throw notFound('That connector');
+    if (
+      connector.cavityCount !== c.cavityCount ||
+      connector.rows !== c.rows ||
+      connector.columns !== c.columns
+    ) {
+      connector.set({ cavityCount: c.cavityCount, rows: c.rows, columns: c.columns });
+      await connector.save({ transaction: t });
+    }
+  }
+}
+
+/**
+ * Previews (`dryRun`) or applies a pinout CSV. The file is decoded, parsed and every cell checked
+ * before any transaction starts; a file with any problem is refused whole (422) and nothing is
+ * written. A clean file is applied in one transaction that re-reads the pin map, works the plan out
+ * again on what it read, and writes it with one audit event.
+ */
+export async function importPinout(
+  actor: Actor,
+  target: ImportTarget,
+  file: UploadedFile,
+  mappingField: unknown,
+  dryRun: boolean,
+): Promise<ImportResult> {
+  const given = parseMappingField(mappingField);
+  const where = await locate(actor, target);
+  const checked = await checkFile(actor, where, file, given);
+  const snapshot = { ...(await loadContext(where)), target: contextTarget(where) };
+  const plan = checked.rows.length
+    ? planImport(snapshot, checked.rows, checked.mentioned, checked.headerOf, checked.imported)
+    : null;
+  const previous = await previousImport(where, checked.sha256);
+  if (previous) {
+    checked.notes.push(
+      `This same file (SHA-256 ${checked.sha256.slice(0, 12)}…) was imported here on ${previous.at.slice(0, 10)}${previous.by ? ` by ${previous.by}` : ''}. Importing it again changes only what differs now.`,
+    );
+  }
+  const preview = buildResult(where, checked, plan, dryRun, previous);
+  if (dryRun) return preview;
+  if (preview.errorCount > 0 || !plan) throw refused(preview);
+
+  const applied = await inTransaction(db(), async (t) => {
+    const context = { ...(await loadContext(where, t)), target: contextTarget(where) };
+    const fresh = planImport(
+      context,
+      checked.rows,
+      checked.mentioned,
+      checked.headerOf,
+      checked.imported,
+    );
+    if (fresh.errors.length) throw refused(buildResult(where, checked, fresh, false, previous));
+    await writePlan(fresh, where.conversionId, t);
+    await PinImport.create(
+      {
+        workshopId: actor.workshopId,
+        conversionId: where.conversionId,
+        connectorId: where.connectorId,
+        fileName: checked.fileName,
+        sha256: checked.sha256,
+        rowCount: checked.rows.length,
+        addedCount: fresh.summary.added,
+        changedCount: fresh.summary.changed,
+        removedCount: fresh.summary.removed,
+        importedById: actor.id,
+      },
+      { transaction: t },
+    );
+    if (checked.signature) {
+      await saveMapping(actor, checked.signature, checked.headers, checked.mapping, t);
+    }
+    const { added, changed, removed } = fresh.summary;
+    const into = where.label ?? 'the conversion';
+    await recordAudit(t, actor, {
+      conversionId: where.conversionId,
+      action: 'import',
+      entityType: where.connectorId === null ? 'conversion' : 'connector',
+      entityId: where.connectorId ?? where.conversionId,
+      summary: `Imported ${checked.fileName} into ${into}: ${added} added, ${changed} changed, ${removed} removed (${checked.rows.length} rows)`,
+      after: {
+        fileName: checked.fileName,
+        sha256: checked.sha256,
+        rows: checked.rows.length,
+        added,
+        changed,
+        removed,
+        connectors: fresh.connectors.map((c) => c.label),
+      },
+    });
+    return fresh;
+  });
+  logger.info(
+    {
+      requestId: actor.requestId,
+      userId: actor.id,
+      conversionId: where.conversionId,
+      connectorId: where.connectorId,
+      rows: checked.rows.length,
+      ...applied.summary,
+      sha256: checked.sha256,
+    },
+    'pinout imported',
+  );
+  return {
+    ...buildResult(where, checked, applied, false, previous),
+    imported: checked.rows.length,
+  };
+}
+
+async function saveMapping(
+  actor: Actor,
+  signature: string,
+  headers: string[],
+  mapping: ImportResult['mapping'],
+  t: Transaction,
+): Promise<void> {
+  const targets = JSON.stringify(mapping.map((m) => m.target));
+  const existing = await ImportMapping.findOne({
+    where: { workshopId: actor.workshopId, headerSignature: signature },
+    transaction: t,
+  });
+  if (existing) {
+    existing.set({
+      targetsJson: targets,
+      headersJson: JSON.stringify(headers),
+      updatedById: actor.id,
+    });
+    await existing.save({ transaction: t });
+  } else {
+    await ImportMapping.create(
+      {
+        workshopId: actor.workshopId,
+        headerSignature: signature,
+        headersJson: JSON.stringify(headers),
+        targetsJson: targets,
+        updatedById: actor.id,
+      },
+      { transaction: t },
+    );
+  }
+}

@@ -1,0 +1,488 @@
+/**
+ * What an import would do to the pin map, worked out from the checked rows and a snapshot of the
+ * conversion, without touching the database. The preview shows this plan; applying writes exactly
+ * this plan, recomputed inside the write transaction.
+ *
+ * Semantics for a connector the file names (docs/decisions/0005-pinout-import-and-file-storage.md):
+ * - a row whose cavity the connector has updates that pin, field by field, in the columns the file
+ *   has (a column the file lacks leaves that field alone);
+ * - a row for a cavity the connector lacks adds the cavity (the connector grows, its face too);
+ * - a cavity of the connector that the file does not name is removed if it is blank; if it holds
+ *   anything, or other pins or feeds point at it, the import is refused naming those cavities.
+ */
+import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
+import { SIGNAL_CLASS_LABELS } from '#shared/domain/signal-classes.ts';
+import { parseWireColour } from '#shared/domain/wire-colours.ts';
+import { exactAwg, formatAwgGauge, formatWireSize } from '#shared/domain/wire-sizes.ts';
+import type {
+  FieldChange,
+  ImportChange,
+  ImportField,
+  ImportIssue,
+  ImportSummary,
+} from '#shared/schemas/imports.schema.ts';
+import {
+  defaultFaceLayout,
+  MAX_CAVITIES,
+  type ConnectorSide,
+  type PinFields,
+} from '#shared/schemas/pin-map.schema.ts';
+import type { PinRow } from './rows.ts';
+
+export interface PinData extends Omit<PinFields, 'signalClass' | 'disposition'> {
+  id: number;
+  connectorId: number;
+  cavity: string;
+  position: number;
+  signalClass: PinFields['signalClass'];
+  disposition: PinFields['disposition'];
+  version: number;
+}
+
+export interface ConnectorData {
+  id: number;
+  label: string;
+  side: ConnectorSide;
+  cavityCount: number;
+  rows: number;
+  columns: number;
+}
+
+export interface PlanContext {
+  connectors: ConnectorData[];
+  /** Every pin of the conversion: targets of destination links are looked up among them. */
+  pins: PinData[];
+  feeds: Array<{ id: number; name: string }>;
+  /** Pins that feeds or other pins point at: never removed by an import. */
+  referencedPinIds: ReadonlySet<number>;
+  target: { kind: 'connector'; connectorId: number } | { kind: 'conversion' };
+}
+
+/** The fields an import writes, beyond cavity and position. */
+export type PinValues = Pick<
+  PinData,
+  | 'function'
+  | 'signalClass'
+  | 'colour'
+  | 'sizeMm2'
+  | 'insulationRatingC'
+  | 'disposition'
+  | 'destination'
+  | 'destinationPinId'
+  | 'destinationFeedId'
+  | 'runLengthM'
+  | 'loadCurrentA'
+  | 'notes'
+>;
+
+export const BLANK_VALUES: PinValues = {
+  function: '',
+  signalClass: 'none',
+  colour: '',
+  sizeMm2: null,
+  insulationRatingC: null,
+  disposition: 'undecided',
+  destination: '',
+  destinationPinId: null,
+  destinationFeedId: null,
+  runLengthM: null,
+  loadCurrentA: null,
+  notes: '',
+};
+const VALUE_KEYS = Object.keys(BLANK_VALUES) as Array<keyof PinValues>;
+
+export interface ConnectorPlan {
+  connectorId: number;
+  label: string;
+  /** New cavities, with their face position. */
+  adds: Array<PinValues & { cavity: string; position: number }>;
+  /** Existing pins whose fields or face position change; `version` is the new version. */
+  updates: PinData[];
+  removes: number[];
+  cavityCount: number;
+  rows: number;
+  columns: number;
+}
+
+export interface Plan {
+  errors: ImportIssue[];
+  changes: ImportChange[];
+  summary: ImportSummary;
+  connectors: ConnectorPlan[];
+}
+
+/** Whether a pin holds anything a person entered. */
+export function holdsData(pin: PinValues): boolean {
+  return VALUE_KEYS.some((key) => pin[key] !== BLANK_VALUES[key]);
+}
+
+const FIELD_LABELS: Record<string, string> = {
+  function: 'Function',
+  signalClass: 'Signal class',
+  colour: 'Colour',
+  sizeMm2: 'Size',
+  insulationRatingC: 'Insulation',
+  disposition: 'Disposition',
+  destination: 'Destination',
+  feed: 'Joined to feed',
+  runLengthM: 'Run length',
+  loadCurrentA: 'Load current',
+  notes: 'Notes',
+};
+
+export interface Names {
+  pinName: (id: number | null) => string;
+  feedName: (id: number | null) => string;
+}
+
+function display(field: string, pin: PinValues, names: Names): string {
+  switch (field) {
+    case 'signalClass':
+      return pin.signalClass === 'none' ? '' : SIGNAL_CLASS_LABELS[pin.signalClass];
+    case 'sizeMm2': {
+      if (pin.sizeMm2 == null) return '';
+      const awg = exactAwg(pin.sizeMm2);
+      return `${formatWireSize(pin.sizeMm2, 'mm2')}${awg !== null ? ` (${formatAwgGauge(awg)} AWG)` : ''}`;
+    }
+    case 'insulationRatingC':
+      return pin.insulationRatingC == null ? '' : `${pin.insulationRatingC} °C`;
+    case 'disposition':
+      return DISPOSITION_INFO[pin.disposition].label;
+    case 'destination':
+      return pin.destinationPinId != null
+        ? `→ ${names.pinName(pin.destinationPinId)}`
+        : pin.destination;
+    case 'feed':
+      return names.feedName(pin.destinationFeedId);
+    case 'runLengthM':
+      return pin.runLengthM == null ? '' : `${pin.runLengthM} m`;
+    case 'loadCurrentA':
+      return pin.loadCurrentA == null ? '' : `${pin.loadCurrentA} A`;
+    default:
+      return String(pin[field as keyof PinValues] ?? '');
+  }
+}
+
+/** Display fields in file-column terms: destination text and link are one "Destination". */
+const DISPLAY_FIELDS = [
+  'function',
+  'signalClass',
+  'colour',
+  'sizeMm2',
+  'insulationRatingC',
+  'disposition',
+  'destination',
+  'feed',
+  'runLengthM',
+  'loadCurrentA',
+  'notes',
+];
+
+export function fieldChanges(before: PinValues, after: PinValues, names: Names): FieldChange[] {
+  const changes: FieldChange[] = [];
+  for (const field of DISPLAY_FIELDS) {
+    const b = display(field, before, names);
+    const a = display(field, after, names);
+    const differs =
+      field === 'destination'
+        ? before.destination !== after.destination ||
+          before.destinationPinId !== after.destinationPinId
+        : field === 'feed'
+          ? before.destinationFeedId !== after.destinationFeedId
+          : before[field as keyof PinValues] !== after[field as keyof PinValues];
+    if (differs) changes.push({ field, label: FIELD_LABELS[field]!, before: b, after: a });
+  }
+  return changes;
+}
+
+/** Cavity name as the pin map writes it: "V1-3". */
+export const cavityName = (label: string, cavity: string) => `${label}-${cavity}`;
+
+export function makeNames(ctx: Pick<PlanContext, 'connectors' | 'pins' | 'feeds'>): Names {
+  const labels = new Map(ctx.connectors.map((c) => [c.id, c.label]));
+  const pins = new Map(ctx.pins.map((p) => [p.id, p]));
+  const feeds = new Map(ctx.feeds.map((f) => [f.id, f.name]));
+  return {
+    pinName: (id) => {
+      const pin = id == null ? undefined : pins.get(id);
+      return pin ? cavityName(labels.get(pin.connectorId) ?? '?', pin.cavity) : '';
+    },
+    feedName: (id) => (id == null ? '' : (feeds.get(id) ?? '')),
+  };
+}
+
+function sameColour(stored: string, imported: string): boolean {
+  if (stored === imported) return true;
+  const parsed = parseWireColour(stored);
+  return parsed.ok && parsed.value === imported;
+}
+
+function findByLabel<T extends { label: string }>(items: readonly T[], label: string): T | null {
+  const exact = items.find((c) => c.label === label);
+  if (exact) return exact;
+  const folded = items.filter((c) => c.label.toUpperCase() === label.toUpperCase());
+  return folded.length === 1 ? folded[0]! : null;
+}
+
+/**
+ * Works out the plan. `columnOf` names the header of each imported field (for error columns);
+ * `mentioned` lists every cavity the file names, including rows that have problems.
+ */
+export function planImport(
+  ctx: PlanContext,
+  rows: readonly PinRow[],
+  mentioned: ReadonlyArray<{ connector: string | null; cavity: string }>,
+  headerOf: (field: ImportField) => string | null,
+  imported: ReadonlySet<ImportField>,
+): Plan {
+  const errors: ImportIssue[] = [];
+  const changes: ImportChange[] = [];
+  const summary: ImportSummary = { added: 0, changed: 0, unchanged: 0, removed: 0 };
+  const names = makeNames(ctx);
+
+  // Destinations: "V1-3" (any case, optionally after "→") names a vehicle-side cavity.
+  const vehicleConnectors = new Set(
+    ctx.connectors.filter((c) => c.side === 'vehicle').map((c) => c.id),
+  );
+  const linkTargets = new Map<string, number | null>();
+  for (const pin of ctx.pins) {
+    if (!vehicleConnectors.has(pin.connectorId)) continue;
+    const key = names.pinName(pin.id).toUpperCase();
+    // Two cavities with the same written name (labels with dashes): link neither.
+    linkTargets.set(key, linkTargets.has(key) ? null : pin.id);
+  }
+  const feedsByName = new Map<string, number>();
+  for (const feed of ctx.feeds) feedsByName.set(feed.name.trim().toUpperCase(), feed.id);
+  const feedList = ctx.feeds.map((f) => f.name).join(', ') || 'none yet';
+
+  // Which connector each row goes to.
+  const target =
+    ctx.target.kind === 'connector'
+      ? ctx.connectors.find((c) => c.id === (ctx.target as { connectorId: number }).connectorId)!
+      : null;
+  const routed = new Map<number, PinRow[]>();
+  const connectorOf = (label: string | null, row: number | null): ConnectorData | null => {
+    if (target) {
+      if (label && !findByLabel([target], label)) {
+        if (row !== null) {
+          errors.push({
+            row,
+            column: headerOf('connector'),
+            message: `This row is for connector "${label}", not ${target.label}. Remove it, or import the file into the whole conversion so rows go to their connectors.`,
+          });
+        }
+        return null;
+      }
+      return target;
+    }
+    if (!label) {
+      if (row !== null) {
+        errors.push({
+          row,
+          column: headerOf('connector'),
+          message: 'is empty: say which connector this cavity is on',
+        });
+      }
+      return null;
+    }
+    const found = findByLabel(ctx.connectors, label);
+    if (!found && row !== null) {
+      errors.push({
+        row,
+        column: headerOf('connector'),
+        message: `This conversion has no connector "${label}" (it has ${ctx.connectors.map((c) => c.label).join(', ') || 'none'}). Add it on the pin map first, or correct the label.`,
+      });
+    }
+    return found;
+  };
+  for (const row of rows) {
+    const connector = connectorOf(row.connector, row.row);
+    if (!connector) continue;
+    const list = routed.get(connector.id) ?? [];
+    list.push(row);
+    routed.set(connector.id, list);
+  }
+  const mentionedBy = new Map<number, Set<string>>();
+  for (const m of mentioned) {
+    const connector = connectorOf(m.connector, null);
+    if (!connector) continue;
+    const set = mentionedBy.get(connector.id) ?? new Set<string>();
+    set.add(m.cavity.toUpperCase());
+    mentionedBy.set(connector.id, set);
+  }
+
+  const plans: ConnectorPlan[] = [];
+  const pinsBy = new Map<number, PinData[]>();
+  for (const pin of ctx.pins) {
+    const list = pinsBy.get(pin.connectorId) ?? [];
+    list.push(pin);
+    pinsBy.set(pin.connectorId, list);
+  }
+
+  for (const connector of ctx.connectors) {
+    const fileRows = routed.get(connector.id);
+    const named = mentionedBy.get(connector.id);
+    if (!fileRows && !named) continue;
+    const existing = [...(pinsBy.get(connector.id) ?? [])].sort((a, b) => a.position - b.position);
+    const byCavity = new Map(existing.map((p) => [p.cavity, p]));
+    const byFolded = new Map<string, PinData | null>();
+    for (const p of existing) {
+      const key = p.cavity.toUpperCase();
+      byFolded.set(key, byFolded.has(key) ? null : p);
+    }
+
+    const resolve = (row: PinRow, before: PinValues, selfId: number | null): PinValues => {
+      const v = row.values;
+      const after: PinValues = { ...before };
+      // "GN/YE" stored by hand and "GNYE" from the file are one colour: not a change.
+      if (v.colour !== undefined && !sameColour(before.colour, v.colour)) after.colour = v.colour;
+      for (const key of [
+        'function',
+        'signalClass',
+        'sizeMm2',
+        'insulationRatingC',
+        'disposition',
+        'runLengthM',
+        'loadCurrentA',
+        'notes',
+      ] as const) {
+        if (v[key] !== undefined) (after as Record<string, unknown>)[key] = v[key];
+      }
+      if (v.destination !== undefined) {
+        const text = v.destination.replace(/^→\s*/, '').trim();
+        const linked = text ? linkTargets.get(text.toUpperCase()) : undefined;
+        const feedWord = /^feed:\s*(.+)$/i.exec(text);
+        if (linked != null && linked !== selfId) {
+          after.destination = '';
+          after.destinationPinId = linked;
+        } else if (
+          feedWord &&
+          !imported.has('feed') &&
+          feedsByName.has(feedWord[1]!.trim().toUpperCase())
+        ) {
+          // Hand-made files write "Feed: ECU main" in the destination; ours use the feed column.
+          after.destination = '';
+          after.destinationPinId = null;
+          after.destinationFeedId = feedsByName.get(feedWord[1]!.trim().toUpperCase())!;
+        } else {
+          after.destination = v.destination;
+          after.destinationPinId = null;
+        }
+      }
+      if (v.feed !== undefined) {
+        if (v.feed === '') after.destinationFeedId = null;
+        else {
+          const id = feedsByName.get(v.feed.toUpperCase());
+          if (id === undefined) {
+            errors.push({
+              row: row.row,
+              column: headerOf('feed'),
+              message: `This conversion has no feed "${v.feed}" (feeds: ${feedList}). Add the feed first, or correct the name.`,
+            });
+          } else after.destinationFeedId = id;
+        }
+      }
+      return after;
+    };
+
+    const plan: ConnectorPlan = {
+      connectorId: connector.id,
+      label: connector.label,
+      adds: [],
+      updates: [],
+      removes: [],
+      cavityCount: connector.cavityCount,
+      rows: connector.rows,
+      columns: connector.columns,
+    };
+    const kept = new Map<number, PinData>();
+    const newVersions = new Map<number, PinData>();
+    const addsInOrder: Array<PinValues & { cavity: string }> = [];
+    for (const row of fileRows ?? []) {
+      const pin = byCavity.get(row.cavity) ?? byFolded.get(row.cavity.toUpperCase()) ?? null;
+      if (pin) {
+        kept.set(pin.id, pin);
+        const after = resolve(row, pin, pin.id);
+        const fields = fieldChanges(pin, after, names);
+        if (fields.length) {
+          summary.changed++;
+          changes.push({
+            kind: 'change',
+            connector: connector.label,
+            cavity: pin.cavity,
+            row: row.row,
+            pinId: pin.id,
+            fields,
+          });
+          newVersions.set(pin.id, { ...pin, ...after, version: pin.version + 1 });
+        } else summary.unchanged++;
+      } else {
+        const after = resolve(row, BLANK_VALUES, null);
+        summary.added++;
+        changes.push({
+          kind: 'add',
+          connector: connector.label,
+          cavity: row.cavity,
+          row: row.row,
+          fields: fieldChanges(BLANK_VALUES, after, names),
+        });
+        addsInOrder.push({ ...after, cavity: row.cavity });
+      }
+    }
+
+    const missing = existing.filter((p) => !kept.has(p.id) && !named?.has(p.cavity.toUpperCase()));
+    const inUse = missing.filter((p) => holdsData(p) || ctx.referencedPinIds.has(p.id));
+    if (inUse.length) {
+      const list = inUse.map((p) => p.cavity);
+      errors.push({
+        row: null,
+        column: null,
+        message:
+          `${connector.label}: ${list.length === 1 ? 'cavity' : 'cavities'} ${list.slice(0, 20).join(', ')}${list.length > 20 ? ` and ${list.length - 20} more` : ''} ` +
+          `${list.length === 1 ? 'is' : 'are'} not in the file but ${list.length === 1 ? 'holds' : 'hold'} decisions or wire data, or other pins or feeds point at ${list.length === 1 ? 'it' : 'them'}. ` +
+          'Add them to the file, or clear them on the pin map first. The file replaces the whole pinout of the connector.',
+      });
+    }
+    for (const pin of missing) {
+      if (inUse.includes(pin)) continue;
+      summary.removed++;
+      plan.removes.push(pin.id);
+      changes.push({
+        kind: 'remove',
+        connector: connector.label,
+        cavity: pin.cavity,
+        pinId: pin.id,
+        blank: true,
+      });
+    }
+
+    // Face order: the pins that stay keep theirs; new cavities follow in file order.
+    const removed = new Set(plan.removes);
+    const staying = existing.filter((p) => !removed.has(p.id));
+    staying.forEach((pin, position) => {
+      const next = newVersions.get(pin.id);
+      if (next) plan.updates.push({ ...next, position });
+      else if (pin.position !== position) plan.updates.push({ ...pin, position });
+    });
+    addsInOrder.forEach((add, i) => plan.adds.push({ ...add, position: staying.length + i }));
+    plan.cavityCount = staying.length + plan.adds.length;
+    if (plan.cavityCount > MAX_CAVITIES) {
+      errors.push({
+        row: null,
+        column: null,
+        message: `${connector.label} would have ${plan.cavityCount} cavities; a connector holds at most ${MAX_CAVITIES}. Split the pinout over more connectors.`,
+      });
+    }
+    if (plan.rows * plan.columns < plan.cavityCount) {
+      // A connector that grows keeps its row count (or takes the usual one), as the pin map does.
+      plan.rows = Math.max(
+        plan.rows,
+        defaultFaceLayout(Math.min(plan.cavityCount, MAX_CAVITIES)).rows,
+      );
+      plan.columns = Math.ceil(plan.cavityCount / plan.rows);
+    }
+    plans.push(plan);
+  }
+
+  return { errors, changes, summary, connectors: plans };
+}

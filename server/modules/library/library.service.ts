@@ -1,0 +1,257 @@
+import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
+import type {
+  ConnectorFromTemplateRequest,
+  PinoutTemplate as TemplateDto,
+  PinoutTemplateDetail,
+  SaveTemplateRequest,
+  TemplatePin,
+} from '#shared/schemas/library.schema.ts';
+import type { Connector as ConnectorDto } from '#shared/schemas/pin-map.schema.ts';
+import { db } from '../../db/index.ts';
+import {
+  Connector,
+  Conversion,
+  Pin,
+  PinoutTemplate,
+  PinoutTemplatePin,
+  User,
+} from '../../db/models/index.ts';
+import type { Actor } from '../../lib/actor.ts';
+import { AppError, notFound } from '../../lib/errors.ts';
+import { inTransaction } from '../../lib/transaction.ts';
+import { recordAudit } from '../audit/audit.service.ts';
+import { createConnector } from '../pin-map/connectors.service.ts';
+
+function toTemplateDto(t: PinoutTemplate): TemplateDto {
+  return {
+    id: t.id,
+    name: t.name,
+    side: t.side,
+    description: t.description,
+    cavityCount: t.cavityCount,
+    rows: t.rows,
+    columns: t.columns,
+    builtIn: t.builtIn,
+    createdBy: t.createdBy?.name ?? null,
+    createdAt: t.createdAt.toISOString(),
+  };
+}
+
+function toTemplatePin(p: PinoutTemplatePin): TemplatePin {
+  return {
+    cavity: p.cavity,
+    position: p.position,
+    function: p.function,
+    signalClass: p.signalClass,
+    colour: p.colour,
+    sizeMm2: p.sizeMm2,
+    insulationRatingC: p.insulationRatingC,
+    disposition: p.disposition,
+    notes: p.notes,
+  };
+}
+
+/** Templates a workshop can see: its own and the built-in ones. */
+const visibleTo = (actor: Pick<Actor, 'workshopId'>) => ({
+  [Op.or]: [{ workshopId: actor.workshopId }, { builtIn: true }],
+});
+
+export async function listTemplates(actor: Actor): Promise<TemplateDto[]> {
+  const templates = await PinoutTemplate.findAll({
+    where: visibleTo(actor),
+    include: [{ model: User, as: 'createdBy', attributes: ['name'] }],
+    order: [
+      ['builtIn', 'DESC'],
+      ['name', 'ASC'],
+    ],
+  });
+  return templates.map(toTemplateDto);
+}
+
+async function findTemplate(
+  actor: Actor,
+  id: number,
+  transaction?: Transaction,
+): Promise<PinoutTemplate> {
+  const template = await PinoutTemplate.findOne({
+    where: { id, ...visibleTo(actor) },
+    include: [
+      { model: User, as: 'createdBy', attributes: ['name'] },
+      { model: PinoutTemplatePin, as: 'pins' },
+    ],
+    order: [[{ model: PinoutTemplatePin, as: 'pins' }, 'position', 'ASC']],
+    transaction,
+  });
+  if (!template) throw notFound('That template');
+  return template;
+}
+
+export async function getTemplate(actor: Actor, id: number): Promise<PinoutTemplateDetail> {
+  const template = await findTemplate(actor, id);
+  return { ...toTemplateDto(template), pins: (template.pins ?? []).map(toTemplatePin) };
+}
+
+/** Saves a connector's cavities, face layout and each pin's wire and decision as a workshop template. */
+export async function saveTemplate(
+  actor: Actor,
+  input: SaveTemplateRequest,
+): Promise<PinoutTemplateDetail> {
+  const id = await inTransaction(db(), async (t) => {
+    const connector = await Connector.findOne({
+      where: { id: input.connectorId },
+      include: [
+        {
+          model: Conversion,
+          attributes: [],
+          where: { workshopId: actor.workshopId },
+          required: true,
+        },
+      ],
+      transaction: t,
+    });
+    if (!connector) throw notFound('That connector');
+    const pins = await Pin.findAll({
+      where: { connectorId: connector.id },
+      order: [['position', 'ASC']],
+      transaction: t,
+    });
+    let template: PinoutTemplate;
+    try {
+      template = await PinoutTemplate.create(
+        {
+          workshopId: actor.workshopId,
+          builtIn: false,
+          name: input.name,
+          side: connector.side,
+          description: input.description ?? '',
+          cavityCount: pins.length,
+          rows: connector.rows,
+          columns: connector.columns,
+          createdById: actor.id,
+        },
+        { transaction: t },
+      );
+    } catch (err) {
+      if (err instanceof UniqueConstraintError) {
+        throw new AppError(
+          409,
+          'duplicate',
+          `The library already has a template named "${input.name}".`,
+          [{ field: 'name', message: 'is already used in the library' }],
+        );
+      }
+      throw err;
+    }
+    await PinoutTemplatePin.bulkCreate(
+      pins.map((p, position) => ({
+        templateId: template.id,
+        cavity: p.cavity,
+        position,
+        function: p.function,
+        signalClass: p.signalClass,
+        colour: p.colour,
+        sizeMm2: p.sizeMm2,
+        insulationRatingC: p.insulationRatingC,
+        disposition: p.disposition,
+        notes: p.notes,
+      })),
+      { transaction: t },
+    );
+    await recordAudit(t, actor, {
+      conversionId: connector.conversionId,
+      action: 'create',
+      entityType: 'pinout_template',
+      entityId: template.id,
+      summary: `Saved connector ${connector.label} as library template "${template.name}" (${pins.length} cavities)`,
+    });
+    return template.id;
+  });
+  return getTemplate(actor, id);
+}
+
+export async function deleteTemplate(actor: Actor, id: number): Promise<void> {
+  await inTransaction(db(), async (t) => {
+    const template = await findTemplate(actor, id, t);
+    if (template.builtIn) {
+      throw new AppError(
+        409,
+        'read_only',
+        'Built-in templates come with Loomwright and cannot be deleted.',
+      );
+    }
+    await template.destroy({ transaction: t });
+    await recordAudit(t, actor, {
+      action: 'delete',
+      entityType: 'pinout_template',
+      entityId: template.id,
+      summary: `Deleted library template "${template.name}"`,
+      before: toTemplateDto(template),
+    });
+  });
+}
+
+/**
+ * A new connector of the conversion with the template's cavities, layout and pin details, in one
+ * transaction. Destinations are not part of a template: they belong to one conversion.
+ */
+export async function connectorFromTemplate(
+  actor: Actor,
+  conversionId: number,
+  input: ConnectorFromTemplateRequest,
+): Promise<ConnectorDto> {
+  return inTransaction(db(), async (t) => {
+    const template = await findTemplate(actor, input.templateId, t);
+    const pins = template.pins ?? [];
+    const connector = await createConnector(
+      actor,
+      conversionId,
+      {
+        label: input.label,
+        side: input.side ?? template.side,
+        cavityCount: pins.length,
+        rows: template.rows,
+        columns: template.columns,
+        cavityLabels: pins.map((p) => p.cavity),
+        notes: `Started from the library template "${template.name}".`,
+      },
+      t,
+    );
+    const created = await Pin.findAll({ where: { connectorId: connector.id }, transaction: t });
+    const byCavity = new Map(pins.map((p) => [p.cavity, p]));
+    await Pin.bulkCreate(
+      created.map((pin) => {
+        const from = byCavity.get(pin.cavity)!;
+        return {
+          ...pin.get({ plain: true }),
+          function: from.function,
+          signalClass: from.signalClass,
+          colour: from.colour,
+          sizeMm2: from.sizeMm2,
+          insulationRatingC: from.insulationRatingC,
+          disposition: from.disposition,
+          notes: from.notes,
+        };
+      }),
+      {
+        updateOnDuplicate: [
+          'function',
+          'signalClass',
+          'colour',
+          'sizeMm2',
+          'insulationRatingC',
+          'disposition',
+          'notes',
+        ],
+        transaction: t,
+      },
+    );
+    await recordAudit(t, actor, {
+      conversionId,
+      action: 'create',
+      entityType: 'connector',
+      entityId: connector.id,
+      summary: `Filled connector ${connector.label} from library template "${template.name}"`,
+    });
+    return connector;
+  });
+}

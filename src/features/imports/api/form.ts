@@ -1,0 +1,20 @@
+import type { ColumnMapping } from '#shared/schemas/imports.schema.ts';
+
+export interface ImportInput {
+  file: File;
+  /** The column choices to use; the server picks (saved or by header name) when omitted. */
+  mapping?: ColumnMapping[];
+}
+
+/** The multipart body: the file in `file`, the choices as JSON {header: field} in `mapping`. */
+export function importForm({ file, mapping }: ImportInput): FormData {
+  const form = new FormData();
+  if (mapping) {
+    form.append(
+      'mapping',
+      JSON.stringify(Object.fromEntries(mapping.map((m) => [m.header, m.target]))),
+    );
+  }
+  form.append('file', file, file.name);
+  return form;
+}

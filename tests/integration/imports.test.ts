@@ -1,0 +1,569 @@
+/**
+ * Pinout CSV import and export (issue 6; reliability rows 13, 15, 18, 19): real, messy files are
+ * read or refused whole, nothing is ever half-imported, and export → import loses nothing.
+ */
+import { QueryTypes } from 'sequelize';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { ImportResult } from '#shared/schemas/imports.schema.ts';
+import type { Pin } from '#shared/schemas/pin-map.schema.ts';
+import { db } from '#server/db/index.ts';
+import { AuditEvent, Connector, Pin as PinModel, PinImport } from '#server/db/models/index.ts';
+import { createOtherWorkshop } from '../factories/workshop.factory.ts';
+import { createTestContext, type TestContext } from '../helpers/test-app.ts';
+
+let ctx: TestContext;
+let builder: string;
+let conversionId: number;
+let x1: number;
+
+const BOM = '\uFEFF';
+
+async function createConversion(name: string): Promise<number> {
+  const res = await request(ctx.app)
+    .post('/api/conversions')
+    .set('Authorization', builder)
+    .send({ name, donorEngine: 'KT-20', receivingVehicle: 'Corran 100', systemVoltage: 12 });
+  return res.body.conversion.id as number;
+}
+
+async function createConnector(
+  conversion: number,
+  label: string,
+  side: string,
+  cavityCount: number,
+): Promise<number> {
+  const res = await request(ctx.app)
+    .post(`/api/conversions/${conversion}/connectors`)
+    .set('Authorization', builder)
+    .send({ label, side, cavityCount });
+  expect(res.status).toBe(201);
+  return res.body.connector.id as number;
+}
+
+function upload(
+  path: string,
+  content: string | Buffer,
+  options: { dryRun?: boolean; mapping?: object; auth?: string; filename?: string } = {},
+) {
+  const req = request(ctx.app)
+    .post(options.dryRun ? `${path}?dryRun=1` : path)
+    .set('Authorization', options.auth ?? builder)
+    .attach('file', Buffer.isBuffer(content) ? content : Buffer.from(content, 'utf8'), {
+      filename: options.filename ?? 'pinout.csv',
+      contentType: 'text/csv',
+    });
+  if (options.mapping) req.field('mapping', JSON.stringify(options.mapping));
+  return req;
+}
+
+const intoConnector = (id: number) => `/api/connectors/${id}/import`;
+const intoConversion = (id: number) => `/api/conversions/${id}/import`;
+
+async function pinsOf(conversion: number): Promise<Pin[]> {
+  const res = await request(ctx.app)
+    .get(`/api/conversions/${conversion}/pins`)
+    .set('Authorization', builder);
+  return res.body.pins as Pin[];
+}
+
+/** Everything that would show a write: counts, every version, the audit trail and import log. */
+async function writeState() {
+  const [versions] = await db().query(
+    'SELECT (SELECT COUNT(*) FROM pins) AS pins, (SELECT SUM(version) FROM pins) AS pinVersions, ' +
+      '(SELECT SUM(version) FROM connectors) AS connectorVersions, (SELECT SUM(cavity_count) FROM connectors) AS cavities',
+  );
+  return {
+    versions,
+    audit: await AuditEvent.count(),
+    imports: await PinImport.count(),
+  };
+}
+
+beforeAll(async () => {
+  ctx = await createTestContext();
+  builder = await ctx.authFor('builder');
+  conversionId = await createConversion('Import test');
+  x1 = await createConnector(conversionId, 'X1', 'ecu', 3);
+  await createConnector(conversionId, 'V1', 'vehicle', 4);
+});
+afterAll(() => ctx.close());
+
+/** BOM, semicolons, quoted delimiters and quotes, CRLF, blank lines, an extra column, one bad
+ * colour (line 5), one bad disposition (line 6), a duplicate cavity (line 8). */
+const MESSY =
+  BOM +
+  [
+    'Cavity;Function;Colour;Size_mm2;Disposition;Destination;Remarks',
+    '1;"Main relay; coil control";BU/GN;0,5;Join to vehicle circuit;Relay R1 terminal 85;checked',
+    '',
+    '2;"ECU feed ""A""";RD;1,5;keep;;',
+    '3;Tacho out;PU;0,5;join;V1-3;bad colour',
+    '4;Spare;;;remove;;bad disposition',
+    '',
+    '2;Duplicate;BK;0,5;keep;;dup',
+    '5;"Notes with\r\ntwo lines";BK;0,5;Cut and insulate;;',
+  ].join('\r\n') +
+  '\r\n';
+
+const FIXED = MESSY.replace('3;Tacho out;PU', '3;Tacho out;GN')
+  .replace('4;Spare;;;remove', '4;Spare;;;De-pin')
+  .replace('2;Duplicate;BK;0,5;keep;;dup\r\n', '');
+
+describe('a messy pinout file', () => {
+  it('previews every problem by line and column, with the rows as read', async () => {
+    const res = await upload(intoConnector(x1), MESSY, { dryRun: true });
+    expect(res.status).toBe(200);
+    const result = res.body as ImportResult;
+    expect(result.dryRun).toBe(true);
+    expect(result.rows).toBe(6);
+    expect(result.imported).toBe(0);
+    expect(result.errors.map((e) => [e.row, e.column])).toEqual([
+      [5, 'Colour'],
+      [6, 'Disposition'],
+      [8, 'Cavity'],
+    ]);
+    expect(result.errors[0]!.message).toContain('"PU" is not an IEC 60757 colour code');
+    expect(result.errors[0]!.message).toContain('BK, BN, RD');
+    expect(result.errors[1]!.message).toContain('"remove" is not a disposition');
+    expect(result.errors[1]!.message).toContain('depin (De-pin)');
+    expect(result.errors[2]!.message).toContain('already on line 4');
+    expect(result.notes.join(' ')).toMatch(/byte-order mark/);
+    expect(result.notes.join(' ')).toMatch(/semicolons/);
+    expect(result.notes.join(' ')).toMatch(/2 blank lines were skipped/);
+    expect(result.notes.join(' ')).toMatch(/"Remarks" is not imported/);
+    expect(result.mapping.find((m) => m.header === 'Remarks')?.target).toBe('ignore');
+    expect(result.table!.map((r) => r.row)).toEqual([2, 4, 5, 6, 8, 9]);
+    expect(result.table![0]!.cells[1]).toBe('Main relay; coil control');
+    expect(result.table![5]!.cells[1]).toBe('Notes with\ntwo lines');
+  });
+
+  it('is refused whole when applied: 422 with the same errors, and nothing is written', async () => {
+    const before = await writeState();
+    const res = await upload(intoConnector(x1), MESSY);
+    expect(res.status).toBe(422);
+    expect(res.body.error.code).toBe('import_refused');
+    expect(
+      res.body.error.details.errors.map((e: { row: number; column: string }) => [e.row, e.column]),
+    ).toEqual([
+      [5, 'Colour'],
+      [6, 'Disposition'],
+      [8, 'Cavity'],
+    ]);
+    expect(await writeState()).toEqual(before);
+  });
+
+  it('imports once fixed: cavities added, fields set, a vehicle cavity linked, one audit event', async () => {
+    const auditBefore = await AuditEvent.count();
+    const preview = await upload(intoConnector(x1), FIXED, { dryRun: true });
+    expect(preview.body.errors).toEqual([]);
+    expect(preview.body.summary).toEqual({ added: 2, changed: 3, unchanged: 0, removed: 0 });
+    const res = await upload(intoConnector(x1), FIXED);
+    expect(res.status).toBe(200);
+    expect(res.body.imported).toBe(5);
+    const pins = (await pinsOf(conversionId)).filter((p) => p.connectorId === x1);
+    expect(pins.map((p) => [p.cavity, p.position])).toEqual([
+      ['1', 0],
+      ['2', 1],
+      ['3', 2],
+      ['4', 3],
+      ['5', 4],
+    ]);
+    const v1cavity3 = (await pinsOf(conversionId)).find(
+      (p) => p.connectorId !== x1 && p.cavity === '3',
+    )!;
+    expect(pins[0]).toMatchObject({
+      function: 'Main relay; coil control',
+      colour: 'BU/GN',
+      sizeMm2: 0.5,
+      disposition: 'join',
+      destination: 'Relay R1 terminal 85',
+    });
+    expect(pins[1]!.function).toBe('ECU feed "A"');
+    expect(pins[2]).toMatchObject({ destination: '', destinationPinId: v1cavity3.id });
+    expect(pins[3]!.disposition).toBe('depin');
+    expect(pins[4]).toMatchObject({ function: 'Notes with\ntwo lines', disposition: 'cut' });
+    const connector = await Connector.findByPk(x1);
+    expect(connector!.cavityCount).toBe(5);
+    expect(connector!.rows * connector!.columns).toBeGreaterThanOrEqual(5);
+    const audit = await AuditEvent.findAll({ where: { action: 'import' } });
+    expect(await AuditEvent.count()).toBe(auditBefore + 1);
+    expect(audit.at(-1)!.summary).toContain(
+      'Imported pinout.csv into X1: 2 added, 3 changed, 0 removed',
+    );
+  });
+
+  it('applied again (same SHA-256), changes nothing and says it has seen the file', async () => {
+    const before = await writeState();
+    const res = await upload(intoConnector(x1), FIXED);
+    expect(res.status).toBe(200);
+    expect(res.body.changes).toEqual([]);
+    expect(res.body.summary).toEqual({ added: 0, changed: 0, unchanged: 5, removed: 0 });
+    expect(res.body.previousImport).not.toBeNull();
+    expect(res.body.notes.join(' ')).toMatch(/This same file/);
+    const after = await writeState();
+    expect(after.versions).toEqual(before.versions);
+    expect(after.imports).toBe(before.imports + 1);
+  });
+});
+
+describe('importing into a connector that already has pins', () => {
+  it('previews removals of blank cavities and refuses to drop ones that hold data', async () => {
+    const connector = await createConnector(conversionId, 'X2', 'engine', 4);
+    const pins = (await pinsOf(conversionId)).filter((p) => p.connectorId === connector);
+    await request(ctx.app)
+      .patch(`/api/pins/${pins[3]!.id}`)
+      .set('Authorization', builder)
+      .send({ version: pins[3]!.version, function: 'Knock sensor' });
+
+    const file = 'cavity,function\n1,Coil 1\n2,Coil 2\n';
+    const refused = await upload(intoConnector(connector), file, { dryRun: true });
+    expect(refused.body.errors).toEqual([
+      expect.objectContaining({
+        row: null,
+        message: expect.stringContaining('X2: cavity 4 is not in the file but holds'),
+      }),
+    ]);
+    expect(refused.body.changes.filter((c: { kind: string }) => c.kind === 'remove')).toEqual([
+      expect.objectContaining({ cavity: '3', blank: true }),
+    ]);
+    expect((await upload(intoConnector(connector), file)).status).toBe(422);
+
+    const withFour = 'cavity,function\n1,Coil 1\n2,Coil 2\n4,Knock sensor\n';
+    const res = await upload(intoConnector(connector), withFour);
+    expect(res.status).toBe(200);
+    expect(res.body.summary).toEqual({ added: 0, changed: 2, unchanged: 1, removed: 1 });
+    const after = (await pinsOf(conversionId)).filter((p) => p.connectorId === connector);
+    expect(after.map((p) => [p.cavity, p.position])).toEqual([
+      ['1', 0],
+      ['2', 1],
+      ['4', 2],
+    ]);
+    expect((await Connector.findByPk(connector))!.cavityCount).toBe(3);
+  });
+
+  it('shows a change field by field, and only for the columns the file has', async () => {
+    const connector = await createConnector(conversionId, 'X3', 'engine', 1);
+    await upload(
+      intoConnector(connector),
+      'cavity,function,colour,notes\n1,Cam sensor,YE,keep dry\n',
+    );
+    const res = await upload(intoConnector(connector), 'cavity,colour\n1,YE/BU\n', {
+      dryRun: true,
+    });
+    expect(res.body.changes).toEqual([
+      expect.objectContaining({
+        kind: 'change',
+        cavity: '1',
+        fields: [{ field: 'colour', label: 'Colour', before: 'YE', after: 'YE/BU' }],
+      }),
+    ]);
+  });
+});
+
+describe('large files', () => {
+  it('imports a clean 2,000-row file across five connectors in one go', async () => {
+    const conversion = await createConversion('Two thousand');
+    for (let c = 1; c <= 5; c++) await createConnector(conversion, `G${c}`, 'ecu', 1);
+    let csv = 'connector,cavity,function,colour,size_mm2,disposition\n';
+    for (let c = 1; c <= 5; c++) {
+      for (let i = 1; i <= 400; i++) csv += `G${c},${i},Circuit ${c}.${i},BU/WH,0.5,keep\n`;
+    }
+    const res = await upload(intoConversion(conversion), csv);
+    expect(res.status).toBe(200);
+    expect(res.body.imported).toBe(2000);
+    expect(res.body.summary).toEqual({ added: 1995, changed: 5, unchanged: 0, removed: 0 });
+    const pins = await pinsOf(conversion);
+    expect(pins).toHaveLength(2000);
+    expect(pins.every((p) => p.disposition === 'keep' && p.colour === 'BU/WH')).toBe(true);
+  });
+
+  it('refuses more than 400 cavities on one connector (MAX_CAVITIES stays)', async () => {
+    const connector = await createConnector(conversionId, 'X4', 'ecu', 1);
+    let csv = 'cavity\n';
+    for (let i = 1; i <= 401; i++) csv += `${i}\n`;
+    const res = await upload(intoConnector(connector), csv);
+    expect(res.status).toBe(422);
+    expect(res.body.error.details.errors[0].message).toContain('X4 would have 401 cavities');
+  });
+
+  it('rolls back every row when a write fails near the end (throw at row 1,999 → 0 rows)', async () => {
+    const conversion = await createConversion('Rollback');
+    const connectors = [];
+    for (let c = 1; c <= 5; c++)
+      connectors.push(await createConnector(conversion, `R${c}`, 'ecu', 1));
+    let csv = 'connector,cavity,function\n';
+    for (let c = 1; c <= 5; c++) {
+      for (let i = 1; i <= 400; i++) csv += `R${c},C${i},Row ${(c - 1) * 400 + i}\n`;
+    }
+    await db().query(
+      `CREATE TRIGGER fail_late BEFORE INSERT ON pins WHEN NEW.function = 'Row 1999'
+       BEGIN SELECT RAISE(ABORT, 'simulated failure'); END`,
+    );
+    try {
+      const before = await writeState();
+      const res = await upload(intoConversion(conversion), csv);
+      expect(res.status).toBeGreaterThanOrEqual(400);
+      expect(JSON.stringify(res.body)).not.toMatch(/SQLITE|simulated|INSERT/);
+      expect(await writeState()).toEqual(before);
+      expect(await PinModel.count({ where: { conversionId: conversion } })).toBe(5);
+    } finally {
+      await db().query('DROP TRIGGER fail_late');
+    }
+  });
+
+  it('answers 413 for a file over 2 MB and reads nothing', async () => {
+    const big = Buffer.alloc(2 * 1024 * 1024 + 1, 'a');
+    const res = await upload(intoConnector(x1), big, { dryRun: true });
+    expect(res.status).toBe(413);
+    expect(res.body.error.message).toContain('2 MB');
+  });
+});
+
+describe('files that cannot be read', () => {
+  it('refuses invalid UTF-8 naming the byte offset, with 0 rows and no U+FFFD stored', async () => {
+    const before = await writeState();
+    const bytes = Buffer.concat([
+      Buffer.from('cavity,function\n1,Caf', 'utf8'),
+      Buffer.from([0xe9]),
+      Buffer.from(' relay\n', 'utf8'),
+    ]);
+    const res = await upload(intoConnector(x1), bytes);
+    expect(res.status).toBe(422);
+    expect(res.body.error.details.rows).toBe(0);
+    expect(res.body.error.details.errors[0].message).toContain('byte 21 (0xE9, on line 2)');
+    const preview = await upload(intoConnector(x1), Buffer.from([0x63, 0xff, 0x0a]), {
+      dryRun: true,
+    });
+    expect(preview.status).toBe(200);
+    expect(preview.body.errors[0].message).toContain('byte 1 (0xFF');
+    expect(await writeState()).toEqual(before);
+    const [row] = await db().query<{ n: number }>(
+      `SELECT COUNT(*) AS n FROM pins WHERE instr(function || notes || destination || cavity, char(65533)) > 0`,
+      { type: QueryTypes.SELECT },
+    );
+    expect(row!.n).toBe(0);
+  });
+
+  it('refuses a __proto__ header', async () => {
+    for (const header of ['__proto__', 'constructor']) {
+      const res = await upload(intoConnector(x1), `cavity,${header}\n1,x\n`);
+      expect(res.status).toBe(422);
+      expect(res.body.error.details.errors).toContainEqual(
+        expect.objectContaining({
+          row: 1,
+          column: header,
+          message: expect.stringContaining('not allowed'),
+        }),
+      );
+    }
+  });
+
+  it('refuses a file papaparse cannot read cleanly (a quote left open)', async () => {
+    const res = await upload(intoConnector(x1), 'cavity,function\n1,"open\n2,x\n');
+    expect(res.status).toBe(422);
+    expect(res.body.error.details.errors[0].message).toContain('never closed');
+  });
+
+  it('answers 400 to a cut-off multipart body and keeps serving', async () => {
+    const boundary = 'lwboundary';
+    const body =
+      `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="p.csv"\r\n` +
+      'Content-Type: text/csv\r\n\r\ncavity\n1\n2';
+    const res = await request(ctx.app)
+      .post(`${intoConnector(x1)}?dryRun=1`)
+      .set('Authorization', builder)
+      .set('Content-Type', `multipart/form-data; boundary=${boundary}`)
+      .send(body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('malformed_upload');
+    expect((await request(ctx.app).get('/api/health')).status).toBe(200);
+  });
+
+  it('answers 400 without a file, and to a malformed mapping', async () => {
+    const none = await request(ctx.app)
+      .post(intoConnector(x1))
+      .set('Authorization', builder)
+      .field('mapping', '{}');
+    expect(none.status).toBe(400);
+    const bad = await upload(intoConnector(x1), 'cavity\n1\n', {
+      mapping: ['x'] as unknown as object,
+    });
+    expect(bad.status).toBe(400);
+  });
+});
+
+describe('column choices', () => {
+  it('takes a mapping for unfamiliar headers and offers it again next time', async () => {
+    const connector = await createConnector(conversionId, 'X5', 'ecu', 2);
+    const file = 'Pin No;Circuit;Wire\n1;Injector 1;BU/WH\n2;Injector 2;BU/RD\n';
+    const first = await upload(intoConnector(connector), file, { dryRun: true });
+    expect(first.body.mappingSource).toBe('detected');
+    expect(first.body.errors[0].message).toContain('No column is set to Cavity');
+    const mapping = { 'Pin No': 'cavity', Circuit: 'function', Wire: 'colour' };
+    const applied = await upload(intoConnector(connector), file, { mapping });
+    expect(applied.status).toBe(200);
+    const next = await upload(
+      intoConnector(connector),
+      file.replace('Injector 2', 'Injector two'),
+      {
+        dryRun: true,
+      },
+    );
+    expect(next.body.mappingSource).toBe('saved');
+    expect(next.body.errors).toEqual([]);
+    expect(next.body.changes).toEqual([expect.objectContaining({ kind: 'change', cavity: '2' })]);
+    // Another workshop does not get this workshop's choices.
+    const other = await createOtherWorkshop();
+    const theirs = await Connector.create({
+      conversionId: other.conversion.id,
+      label: 'Z1',
+      side: 'ecu',
+      cavityCount: 1,
+      rows: 1,
+      columns: 1,
+    });
+    const res = await upload(intoConnector(theirs.id), file, {
+      dryRun: true,
+      auth: other.authFor('builder'),
+    });
+    expect(res.body.mappingSource).toBe('detected');
+  });
+});
+
+describe('who may import', () => {
+  it('a technician or reviewer cannot import (403); another workshop’s connector is a 404', async () => {
+    for (const role of ['technician', 'reviewer'] as const) {
+      const res = await upload(intoConnector(x1), 'cavity\n1\n', { auth: await ctx.authFor(role) });
+      expect(res.status).toBe(403);
+    }
+    const other = await createOtherWorkshop();
+    const res = await upload(intoConnector(x1), 'cavity\n1\n', {
+      dryRun: true,
+      auth: other.authFor('builder'),
+    });
+    expect(res.status).toBe(404);
+    const exp = await request(ctx.app)
+      .get(`/api/conversions/${conversionId}/pins.csv`)
+      .set('Authorization', other.authFor('admin'));
+    expect(exp.status).toBe(404);
+  });
+});
+
+describe('export', () => {
+  it('writes RFC 4180 UTF-8 with a BOM, and guards formula cells', async () => {
+    const pins = (await pinsOf(conversionId)).filter((p) => p.connectorId === x1);
+    await request(ctx.app)
+      .patch(`/api/pins/${pins[0]!.id}`)
+      .set('Authorization', builder)
+      .send({ version: pins[0]!.version, function: '=HYPERLINK("x")', notes: '@SUM(A1)' });
+    const res = await request(ctx.app)
+      .get(`/api/conversions/${conversionId}/pins.csv`)
+      .set('Authorization', await ctx.authFor('technician'))
+      .buffer(true)
+      .parse((r, done) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => done(null, Buffer.concat(chunks)));
+      });
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/^text\/csv; charset=utf-8/);
+    expect(res.headers['content-disposition']).toBe('attachment; filename="Import-test-pins.csv"');
+    const body = res.body as Buffer;
+    expect([...body.subarray(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
+    const text = body.toString('utf8').slice(1);
+    expect(text.split('\r\n')[0]).toBe(
+      'connector,cavity,function,signal_class,colour,size_mm2,awg,insulation_c,disposition,destination,feed,run_length_m,load_current_a,notes',
+    );
+    expect(text).toContain(`X1,1,"'=HYPERLINK(""x"")",`);
+    expect(text).toContain(`,'@SUM(A1)\r\n`);
+    expect(text).toContain('X1,3,Tacho out,none,GN,0.5,,,join,V1-3,');
+  });
+
+  it('gives a template with the canonical headers and an example row that imports cleanly', async () => {
+    const res = await request(ctx.app)
+      .get('/api/pinouts/template.csv')
+      .set('Authorization', await ctx.authFor('reviewer'));
+    expect(res.status).toBe(200);
+    const text = res.text.replace(/^\uFEFF/, '');
+    const [header, example] = text.split('\r\n');
+    expect(header).toBe(
+      'cavity,function,signal_class,colour,size_mm2,awg,insulation_c,disposition,destination,feed,run_length_m,load_current_a,notes',
+    );
+    expect(example).toContain('ECU main feed 1');
+    const connector = await createConnector(ctx.demo.conversions.draft, 'T1', 'ecu', 1);
+    const preview = await upload(intoConnector(connector), res.text, { dryRun: true });
+    expect(preview.body.errors).toEqual([]);
+    expect(preview.body.changes[0].fields).toEqual(
+      expect.arrayContaining([
+        expect.objectContaining({ field: 'feed', after: 'ECU main' }),
+        expect.objectContaining({ field: 'disposition', after: 'Join to vehicle circuit' }),
+      ]),
+    );
+  });
+
+  it('round-trips every field of every pin: export → blank the pins → import → same pins and same file', async () => {
+    const conversion = ctx.demo.conversions.draft;
+    const e1 = (await pinsOf(conversion)).find(
+      (p) => p.cavity === '1' && p.function.startsWith('Injector'),
+    )!;
+    const tricky = await request(ctx.app)
+      .patch(`/api/pins/${e1.id}`)
+      .set('Authorization', builder)
+      .send({
+        version: e1.version,
+        function: '=HYPERLINK("http://example.com","click")',
+        notes: 'Line one, with "quotes";\nline two\t(tab)\n-5 V ref',
+        sizeMm2: 0.823,
+        insulationRatingC: 125,
+        runLengthM: 2.25,
+        loadCurrentA: 0.4,
+      });
+    expect(tricky.status).toBe(200);
+    const exportCsv = async () =>
+      (
+        await request(ctx.app)
+          .get(`/api/conversions/${conversion}/pins.csv`)
+          .set('Authorization', builder)
+      ).text;
+    const comparable = (pins: Pin[]) => pins.map(({ version: _v, updatedAt: _u, ...rest }) => rest);
+
+    // Green-yellow is IEC 60757's one combined code: it must survive the round trip too.
+    const spare = (await pinsOf(conversion)).find((p) => p.disposition === 'empty')!;
+    await request(ctx.app)
+      .patch(`/api/pins/${spare.id}`)
+      .set('Authorization', builder)
+      .send({ version: spare.version, colour: 'gn/ye' })
+      .expect(200);
+    const original = await pinsOf(conversion);
+    expect(original.some((p) => p.colour === 'GNYE')).toBe(true);
+    expect(original.some((p) => p.destinationPinId !== null)).toBe(true);
+    expect(original.some((p) => p.destinationFeedId !== null)).toBe(true);
+    const file = await exportCsv();
+    expect(file).toContain(',18,125,');
+
+    await PinModel.update(
+      {
+        function: '',
+        signalClass: 'none',
+        colour: '',
+        sizeMm2: null,
+        insulationRatingC: null,
+        disposition: 'undecided',
+        destination: '',
+        destinationPinId: null,
+        destinationFeedId: null,
+        runLengthM: null,
+        loadCurrentA: null,
+        notes: '',
+      },
+      { where: { conversionId: conversion } },
+    );
+    const res = await upload(intoConversion(conversion), file, { filename: 'export.csv' });
+    expect(res.status).toBe(200);
+    expect(res.body.errors).toEqual([]);
+    expect(res.body.summary.removed).toBe(0);
+    expect(comparable(await pinsOf(conversion))).toEqual(comparable(original));
+    expect(await exportCsv()).toBe(file);
+  });
+});
