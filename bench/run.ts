@@ -3,8 +3,11 @@
  * run on the same machine. `BENCH_SECONDS` sets each HTTP load run's length (default 5).
  * `npm run bench -- <name>` runs only the cases whose name contains <name>.
  */
+import { checksBench } from './cases/checks.ts';
 import { conversionsList } from './cases/conversions-list.ts';
+import { importCsv } from './cases/import.ts';
 import { pinsList } from './cases/pins-list.ts';
+import { worksheetBench } from './cases/worksheet.ts';
 import { printRows, type BenchRow } from './lib/report.ts';
 
 const seconds = Number(process.env.BENCH_SECONDS ?? 5);
@@ -13,6 +16,9 @@ const only = process.argv[2];
 const CASES: Record<string, () => Promise<BenchRow[]>> = {
   'conversions-list': () => conversionsList(seconds),
   'pins-list': () => pinsList(seconds),
+  checks: () => checksBench(),
+  import: () => importCsv(),
+  worksheet: () => worksheetBench(),
 };
 
 const rows: BenchRow[] = [];

@@ -1,8 +1,10 @@
 import bcrypt from 'bcryptjs';
 import type { Sequelize, Transaction } from 'sequelize';
+import { benchItems } from '#shared/domain/bench.ts';
 import { checkReport } from '#shared/domain/checks/run-checks.ts';
 import { revisionHash } from '#shared/domain/revisions/content-hash.ts';
 import {
+  BenchRecord,
   Connector,
   Conversion,
   Feed,
@@ -218,7 +220,7 @@ async function seedSignedOffRevision(
   const reviewer = await User.findByPk(users.reviewer!, { transaction });
   const submittedAt = new Date(Date.now() - 7 * 86_400_000);
   const signedAt = new Date(Date.now() - 5 * 86_400_000);
-  await Revision.create(
+  const revision = await Revision.create(
     {
       conversionId,
       number: 1,
@@ -238,4 +240,22 @@ async function seedSignedOffRevision(
     },
     { transaction },
   );
+  // The technician has started: the transmission and evaporative pins are de-pinned or cut back, and
+  // the first few continuity readings are in.
+  const technician = await User.findByPk(users.technician!, { transaction });
+  for (const [i, item] of benchItems(snapshot).slice(0, 14).entries()) {
+    await BenchRecord.create(
+      {
+        revisionId: revision.id,
+        pinId: item.pin.id,
+        done: true,
+        tested: i < 6,
+        resistanceOhm: i < 6 ? Number((0.05 + 0.01 * i).toFixed(2)) : null,
+        note: i === 2 ? 'Terminal lock tab was broken; replaced the housing wedge.' : '',
+        recordedById: technician!.id,
+        recordedByName: technician!.name,
+      },
+      { transaction },
+    );
+  }
 }

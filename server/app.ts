@@ -9,12 +9,23 @@ import { logger } from './lib/logger.ts';
 import { authenticate } from './middleware/authenticate.ts';
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
 import { requestContext, requireJsonForWrites } from './middleware/request-context.ts';
+import {
+  attachmentRoutes,
+  connectorAttachmentRoutes,
+} from './modules/attachments/attachments.routes.ts';
 import { authRoutes } from './modules/auth/auth.routes.ts';
 import { auditRoutes } from './modules/audit/audit.routes.ts';
+import { benchRoutes } from './modules/bench/bench.routes.ts';
 import { calcRoutes } from './modules/calc/calc.routes.ts';
 import { checksRoutes } from './modules/checks/checks.routes.ts';
 import { conversionsRoutes } from './modules/conversions/conversions.routes.ts';
 import { feedsRoutes } from './modules/feeds/feeds.routes.ts';
+import {
+  connectorImportRoutes,
+  conversionImportRoutes,
+  pinoutRoutes,
+} from './modules/imports/imports.routes.ts';
+import { conversionLibraryRoutes, libraryRoutes } from './modules/library/library.routes.ts';
 import { mailRoutes } from './modules/mail/mail.routes.ts';
 import {
   connectorRoutes,
@@ -23,6 +34,7 @@ import {
 } from './modules/pin-map/pin-map.routes.ts';
 import { revisionsRoutes } from './modules/revisions/revisions.routes.ts';
 import { usersRoutes } from './modules/users/users.routes.ts';
+import { worksheetRoutes } from './modules/worksheets/worksheet.routes.ts';
 import { workshopRoutes } from './modules/workshop/workshop.routes.ts';
 
 export interface AppOptions {
@@ -74,12 +86,25 @@ export function createApp({ env, clientDir }: AppOptions) {
     conversionPinMapRoutes,
     feedsRoutes,
     checksRoutes,
+    worksheetRoutes,
     revisionsRoutes,
     auditRoutes,
+    benchRoutes,
+    conversionImportRoutes,
+    conversionLibraryRoutes,
   );
   api.use('/admin', authenticate, mailRoutes);
   api.use('/calc', authenticate, calcRoutes);
-  api.use('/connectors', authenticate, connectorRoutes);
+  api.use(
+    '/connectors',
+    authenticate,
+    connectorRoutes,
+    connectorImportRoutes,
+    connectorAttachmentRoutes,
+  );
+  api.use('/attachments', authenticate, attachmentRoutes);
+  api.use('/library', authenticate, libraryRoutes);
+  api.use('/pinouts', authenticate, pinoutRoutes);
   api.use('/pins', authenticate, pinRoutes);
   api.use(apiNotFound);
   app.use('/api', api);

@@ -4,6 +4,7 @@ import { RequireRight, RequireSession } from './layout/require-session.tsx';
 import { AccountRoute } from './routes/account.tsx';
 import { ConversionLayout } from './routes/conversion/layout.tsx';
 import { ConversionOverviewRoute } from './routes/conversion/overview.tsx';
+import { ConversionBenchRoute } from './routes/conversion/bench.tsx';
 import { ConversionChecksRoute } from './routes/conversion/checks.tsx';
 import { ConversionFeedsRoute } from './routes/conversion/feeds.tsx';
 import { ConversionFilesRoute } from './routes/conversion/files.tsx';
@@ -41,6 +42,7 @@ const router = createBrowserRouter([
           { path: 'files', element: <ConversionFilesRoute /> },
           { path: 'revisions', element: <ConversionRevisionsRoute /> },
           { path: 'revisions/:number', element: <ConversionRevisionRoute /> },
+          { path: 'bench', element: <ConversionBenchRoute /> },
           { path: 'history', element: <ConversionHistoryRoute /> },
         ],
       },

@@ -36,6 +36,10 @@ export const paths = {
     getHref: (id: number | string, number: number | string) =>
       `/conversions/${id}/revisions/${number}`,
   },
+  conversionBench: {
+    path: '/conversions/:conversionId/bench',
+    getHref: (id: number | string) => `/conversions/${id}/bench`,
+  },
   conversionHistory: {
     path: '/conversions/:conversionId/history',
     getHref: (id: number | string) => `/conversions/${id}/history`,

@@ -3,7 +3,9 @@ import { SequelizeStorage, Umzug } from 'umzug';
 import { foundation } from './0001-foundation.ts';
 import { pinMap } from './0002-pin-map.ts';
 import { feeds } from './0003-feeds.ts';
+import { importsLibrary } from './0004-imports-library.ts';
 import { reviews } from './0005-reviews.ts';
+import { bench } from './0006-bench.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -16,7 +18,7 @@ export interface Migration {
 }
 
 /** Every migration in order. Add new ones at the end; never edit one that has shipped. */
-export const MIGRATIONS: Migration[] = [foundation, pinMap, feeds, reviews];
+export const MIGRATIONS: Migration[] = [foundation, pinMap, feeds, importsLibrary, reviews, bench];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {
   const umzug = new Umzug<Sequelize>({

@@ -1,23 +1,33 @@
 import type { Sequelize } from 'sequelize';
+import { Attachment } from './attachment.model.ts';
 import { AuditEvent } from './audit-event.model.ts';
+import { BenchRecord } from './bench-record.model.ts';
 import { Connector } from './connector.model.ts';
 import { Conversion } from './conversion.model.ts';
 import { Feed, FeedLoad } from './feed.model.ts';
+import { ImportMapping, PinImport } from './import.model.ts';
 import { Invitation, MailOutbox } from './mail.model.ts';
 import { ReviewComment, Revision } from './revision.model.ts';
 import { Pin } from './pin.model.ts';
+import { PinoutTemplate, PinoutTemplatePin } from './pinout-template.model.ts';
 import { User } from './user.model.ts';
 import { Workshop } from './workshop.model.ts';
 
 export {
+  Attachment,
   AuditEvent,
+  BenchRecord,
   Connector,
   Conversion,
   Feed,
   FeedLoad,
+  ImportMapping,
   Invitation,
   MailOutbox,
   Pin,
+  PinImport,
+  PinoutTemplate,
+  PinoutTemplatePin,
   ReviewComment,
   Revision,
   User,
@@ -41,6 +51,12 @@ export function initModels(sequelize: Sequelize) {
   ReviewComment.initModel(sequelize);
   MailOutbox.initModel(sequelize);
   Invitation.initModel(sequelize);
+  BenchRecord.initModel(sequelize);
+  PinImport.initModel(sequelize);
+  ImportMapping.initModel(sequelize);
+  PinoutTemplate.initModel(sequelize);
+  PinoutTemplatePin.initModel(sequelize);
+  Attachment.initModel(sequelize);
 
   Workshop.hasMany(User, { foreignKey: 'workshopId' });
   User.belongsTo(Workshop, { foreignKey: 'workshopId' });
@@ -57,4 +73,6 @@ export function initModels(sequelize: Sequelize) {
   Feed.hasMany(FeedLoad, { as: 'loads', foreignKey: 'feedId' });
   FeedLoad.belongsTo(Feed, { foreignKey: 'feedId' });
   Revision.hasMany(ReviewComment, { as: 'comments', foreignKey: 'revisionId' });
+  PinoutTemplate.hasMany(PinoutTemplatePin, { as: 'pins', foreignKey: 'templateId' });
+  PinoutTemplate.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
 }

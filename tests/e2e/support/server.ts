@@ -11,6 +11,7 @@ process.env.NODE_ENV = 'production';
 process.env.LOG_LEVEL = 'warn';
 process.env.FAKE_SMTP_PORT ??= '0';
 process.env.OUTBOX_INTERVAL_MS ??= '500';
+process.env.S3_FAKE_PORT ??= '0';
 // Sign-ins in the suite come from one address; the limit itself is covered by the API tests.
 process.env.LOGIN_LIMIT_PER_MINUTE = '200';
 await import('../../../server/index.ts');

@@ -75,6 +75,7 @@ export function ConversionLayout() {
         <SectionLink to={paths.conversionFeeds.getHref(id)}>Feeds</SectionLink>
         <SectionLink to={paths.conversionChecks.getHref(id)}>Checks</SectionLink>
         <SectionLink to={paths.conversionRevisions.getHref(id)}>Revisions</SectionLink>
+        <SectionLink to={paths.conversionBench.getHref(id)}>Bench</SectionLink>
         <SectionLink to={paths.conversionFiles.getHref(id)}>Import &amp; files</SectionLink>
         <SectionLink to={paths.conversionHistory.getHref(id)}>History</SectionLink>
       </nav>

@@ -1,0 +1,71 @@
+import { Link, useOutletContext } from 'react-router';
+import type { Conversion } from '#shared/schemas/conversions.schema.ts';
+import { Loading } from '@/components/ui/loading.tsx';
+import { Notice } from '@/components/ui/notice.tsx';
+import { paths } from '@/config/paths.ts';
+import { useCan } from '@/features/auth/hooks/use-can.ts';
+import { useBenchSheet } from '@/features/bench/api/bench.ts';
+import { BenchChecklist } from '@/features/bench/components/bench-checklist.tsx';
+import { revisionWorksheetHref } from '@/features/revisions/api/revisions.ts';
+import { useWorkshop } from '@/features/workshop/api/workshop.ts';
+
+export function ConversionBenchRoute() {
+  const conversion = useOutletContext<Conversion>();
+  const sheet = useBenchSheet(conversion.id);
+  const workshop = useWorkshop();
+  const canRecord = useCan('bench:record');
+
+  if (sheet.isPending) return <Loading what="Loading the bench checklist" />;
+  if (sheet.isError) {
+    return (
+      <Notice tone="fault" title="The bench checklist could not be loaded">
+        {sheet.error.message}
+      </Notice>
+    );
+  }
+  if (!sheet.data.revision) {
+    return (
+      <Notice tone="caution" title="Nothing signed off yet">
+        The bench works only from a signed-off revision.{' '}
+        <Link className="underline" to={paths.conversionRevisions.getHref(conversion.id)}>
+          See the revisions
+        </Link>
+        .
+      </Notice>
+    );
+  }
+  const r = sheet.data.revision;
+  return (
+    <div className="flex flex-col gap-4">
+      <div className="flex flex-wrap items-start justify-between gap-4">
+        <div>
+          <h2 className="text-xl font-semibold">Bench checklist, revision {r.number}</h2>
+          <p className="text-sm text-ink-soft">
+            Signed off by {r.reviewedBy} on {new Date(r.signedAt).toLocaleDateString()} · hash{' '}
+            <span className="font-mono">{r.hash.slice(0, 12)}</span>
+          </p>
+        </div>
+        <a
+          className="flex min-h-11 items-center rounded-md border border-rule-strong bg-paper-raised px-4 font-medium hover:bg-paper-sunk"
+          href={revisionWorksheetHref(conversion.id, r.number)}
+          target="_blank"
+          rel="noopener"
+        >
+          Print bench worksheet
+        </a>
+      </div>
+      <Notice tone="caution" title="Before you start">
+        Disconnect the battery. Relieve fuel pressure before opening the fuel system. Airbag
+        circuits stay live after disconnection: follow the maker&apos;s waiting time. Test every
+        circuit before first power-up, ideally from a current-limited supply. Local codes and
+        licensed practice prevail.
+      </Notice>
+      <BenchChecklist
+        conversionId={conversion.id}
+        sheet={sheet.data}
+        unit={workshop.data?.sizeUnit ?? 'mm2'}
+        canRecord={canRecord}
+      />
+    </div>
+  );
+}
