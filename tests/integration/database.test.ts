@@ -78,3 +78,44 @@ describe('SQLite settings', () => {
     expect(await pragma('integrity_check')).toBe('ok');
   });
 });
+
+describe('a database held busy by another writer', () => {
+  it('answers a write with 503 and Retry-After after waiting, writes nothing, and recovers', async () => {
+    const sqlite3 = (await import('sqlite3')).default;
+    const request = (await import('supertest')).default;
+    const holder = new sqlite3.Database(ctx.databasePath);
+    const run = (sql: string) =>
+      new Promise<void>((resolve, reject) =>
+        holder.run(sql, (err) => (err ? reject(err) : resolve())),
+      );
+    await run('BEGIN IMMEDIATE');
+    const before = await Conversion.count();
+    const auth = await ctx.authFor('builder');
+    try {
+      const started = Date.now();
+      const res = await request(ctx.app).post('/api/conversions').set('Authorization', auth).send({
+        name: 'Blocked',
+        donorEngine: 'KT-20',
+        receivingVehicle: 'Corran 100',
+        systemVoltage: 12,
+      });
+      expect(res.status).toBe(503);
+      expect(res.headers['retry-after']).toBe('2');
+      expect(res.body.error.code).toBe('busy');
+      expect(JSON.stringify(res.body)).not.toMatch(/SQLITE/);
+      // It waited out the 5 s busy timeout rather than failing at once.
+      expect(Date.now() - started).toBeGreaterThan(4000);
+    } finally {
+      await run('ROLLBACK');
+      await new Promise<void>((resolve) => holder.close(() => resolve()));
+    }
+    expect(await Conversion.count()).toBe(before);
+    const after = await request(ctx.app).post('/api/conversions').set('Authorization', auth).send({
+      name: 'Unblocked',
+      donorEngine: 'KT-20',
+      receivingVehicle: 'Corran 100',
+      systemVoltage: 12,
+    });
+    expect(after.status).toBe(201);
+  }, 30_000);
+});

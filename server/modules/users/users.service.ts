@@ -99,8 +99,9 @@ export async function updateUser(
     const before = { name: user.name, role: user.role, active: user.active };
     const changes = changedFields(before, input);
     user.set(input);
-    // A changed role or a deactivation ends the user's current sessions.
-    if (changes.role || input.active === false) user.tokenVersion = user.tokenVersion + 1;
+    // A deactivation ends the user's sessions at once. A role change needs no new token: the role
+    // is read from the database on every request, so the old token gets the new role's rights.
+    if (input.active === false) user.tokenVersion = user.tokenVersion + 1;
     await user.save({ transaction: t });
     await recordAudit(t, actor, {
       action: 'update',
