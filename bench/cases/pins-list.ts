@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { Connector, Pin } from '../../server/db/models/index.ts';
 import type { BenchRow } from '../lib/report.ts';
-import { bareJsonApp, load } from '../lib/http.ts';
+import { compareWithBareRoute } from '../lib/http.ts';
 import { benchContext } from '../lib/context.ts';
 
 /** A conversion of `pinCount` pins on 100-cavity connectors, every pin filled in. */
@@ -48,26 +48,14 @@ export async function pinsList(seconds: number): Promise<BenchRow[]> {
     const path = `/api/conversions/${conversionId}/pins`;
     const body = (await request(ctx.app).get(path).set(ctx.auth)).body;
     if (body.pins.length !== 1000) throw new Error(`expected 1000 pins, got ${body.pins.length}`);
-    const app = await load(ctx.app, path, ctx.auth, { seconds });
-    const bare = await load(bareJsonApp(body), '/bare', {}, { seconds });
-    const name = 'GET …/pins (1,000 pins), 20 clients';
-    return [
-      {
-        case: name,
-        subject: 'Loomwright',
-        figures: { 'req/s': app.requestsPerSec, 'p99 ms': app.p99Ms, errors: app.errors },
-      },
-      {
-        case: name,
-        subject: 'bare Express, same JSON',
-        figures: { 'req/s': bare.requestsPerSec, 'p99 ms': bare.p99Ms, errors: bare.errors },
-      },
-      {
-        case: name,
-        subject: 'ratio bare/Loomwright',
-        figures: { 'req/s': bare.requestsPerSec / app.requestsPerSec },
-      },
-    ];
+    return await compareWithBareRoute(
+      'GET …/pins (1,000 pins), 20 clients',
+      ctx.app,
+      path,
+      ctx.auth,
+      body,
+      seconds,
+    );
   } finally {
     await ctx.close();
   }

@@ -2,6 +2,7 @@ import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import autocannon from 'autocannon';
 import express, { type Express } from 'express';
+import type { BenchRow } from './report.ts';
 
 export interface LoadResult {
   requestsPerSec: number;
@@ -45,4 +46,34 @@ export function bareJsonApp(body: unknown): Express {
     res.type('application/json').send(json);
   });
   return app;
+}
+
+/** Loads `path` on the app and the same JSON from a bare route, and reports both and their ratio. */
+export async function compareWithBareRoute(
+  name: string,
+  app: Express,
+  path: string,
+  headers: Record<string, string>,
+  body: unknown,
+  seconds: number,
+): Promise<BenchRow[]> {
+  const ours = await load(app, path, headers, { seconds });
+  const bare = await load(bareJsonApp(body), '/bare', {}, { seconds });
+  return [
+    {
+      case: name,
+      subject: 'Loomwright',
+      figures: { 'req/s': ours.requestsPerSec, 'p99 ms': ours.p99Ms, errors: ours.errors },
+    },
+    {
+      case: name,
+      subject: 'bare Express, same JSON',
+      figures: { 'req/s': bare.requestsPerSec, 'p99 ms': bare.p99Ms, errors: bare.errors },
+    },
+    {
+      case: name,
+      subject: 'ratio bare/Loomwright',
+      figures: { 'req/s': bare.requestsPerSec / ours.requestsPerSec },
+    },
+  ];
 }

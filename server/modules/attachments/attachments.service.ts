@@ -4,8 +4,9 @@ import type {
   AttachmentType,
 } from '#shared/schemas/attachments.schema.ts';
 import { db } from '../../db/index.ts';
-import { Attachment, Connector, Conversion, User } from '../../db/models/index.ts';
+import { Attachment, User } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
+import { findConnectorInWorkshop } from '../pin-map/connectors.service.ts';
 import { AppError, notFound } from '../../lib/errors.ts';
 import { fileStore } from '../../lib/file-store.ts';
 import { logger } from '../../lib/logger.ts';
@@ -37,21 +38,7 @@ function describeRefused(bytes: Buffer): string {
   return 'not a PDF, PNG or JPEG';
 }
 
-async function findConnector(actor: Actor, id: number): Promise<Connector> {
-  const connector = await Connector.findOne({
-    where: { id },
-    include: [
-      {
-        model: Conversion,
-        attributes: [],
-        where: { workshopId: actor.workshopId },
-        required: true,
-      },
-    ],
-  });
-  if (!connector) throw notFound('That connector');
-  return connector;
-}
+const findConnector = (actor: Actor, id: number) => findConnectorInWorkshop(actor, id);
 
 function toDto(a: Attachment, uploadedBy: string | null): AttachmentDto {
   return {

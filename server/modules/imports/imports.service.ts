@@ -7,10 +7,10 @@ import {
   type ImportIssue,
   type ImportResult,
 } from '#shared/schemas/imports.schema.ts';
+import { PIN_FIELD_NAMES } from '#shared/schemas/pin-map.schema.ts';
 import { db } from '../../db/index.ts';
 import {
   Connector,
-  Conversion,
   Feed,
   FeedLoad,
   ImportMapping,
@@ -25,6 +25,7 @@ import { inTransaction } from '../../lib/transaction.ts';
 import type { UploadedFile } from '../../lib/upload.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
+import { findConnectorInWorkshop } from '../pin-map/connectors.service.ts';
 import { decodeUtf8, DELIMITER_NAMES, readCsv } from './csv-text.ts';
 import { headerSignature, parseMappingField, resolveMapping } from './mapping.ts';
 import { planImport, type Plan, type PlanContext, type PinData } from './plan.ts';
@@ -63,18 +64,7 @@ async function locate(actor: Actor, target: ImportTarget): Promise<Where> {
     await findConversionInWorkshop(actor, target.conversionId);
     return { conversionId: target.conversionId, connectorId: null, label: null };
   }
-  const connector = await Connector.findOne({
-    where: { id: target.connectorId },
-    include: [
-      {
-        model: Conversion,
-        attributes: [],
-        where: { workshopId: actor.workshopId },
-        required: true,
-      },
-    ],
-  });
-  if (!connector) throw notFound('That connector');
+  const connector = await findConnectorInWorkshop(actor, target.connectorId);
   return {
     conversionId: connector.conversionId,
     connectorId: connector.id,
@@ -82,25 +72,7 @@ async function locate(actor: Actor, target: ImportTarget): Promise<Where> {
   };
 }
 
-const PIN_ATTRIBUTES = [
-  'id',
-  'connectorId',
-  'cavity',
-  'position',
-  'function',
-  'signalClass',
-  'colour',
-  'sizeMm2',
-  'insulationRatingC',
-  'disposition',
-  'destination',
-  'destinationPinId',
-  'destinationFeedId',
-  'runLengthM',
-  'loadCurrentA',
-  'notes',
-  'version',
-];
+const PIN_ATTRIBUTES = ['id', 'connectorId', 'cavity', 'position', ...PIN_FIELD_NAMES, 'version'];
 
 /** A snapshot of the conversion's connectors, pins and feeds: what the plan works on. */
 async function loadContext(
@@ -339,23 +311,7 @@ function contextTarget(where: Where): PlanContext['target'] {
     : { kind: 'connector', connectorId: where.connectorId };
 }
 
-const UPDATED_FIELDS = [
-  'position',
-  'function',
-  'signalClass',
-  'colour',
-  'sizeMm2',
-  'insulationRatingC',
-  'disposition',
-  'destination',
-  'destinationPinId',
-  'destinationFeedId',
-  'runLengthM',
-  'loadCurrentA',
-  'notes',
-  'version',
-  'updatedAt',
-] as const;
+const UPDATED_FIELDS = ['position', ...PIN_FIELD_NAMES, 'version', 'updatedAt'] as const;
 
 /** Writes a plan inside the caller's transaction, in statements of at most 500 rows. */
 async function writePlan(plan: Plan, conversionId: number, t: Transaction): Promise<void> {

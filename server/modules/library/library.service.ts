@@ -8,15 +8,9 @@ import type {
 } from '#shared/schemas/library.schema.ts';
 import type { Connector as ConnectorDto } from '#shared/schemas/pin-map.schema.ts';
 import { db } from '../../db/index.ts';
-import {
-  Connector,
-  Conversion,
-  Pin,
-  PinoutTemplate,
-  PinoutTemplatePin,
-  User,
-} from '../../db/models/index.ts';
+import { Pin, PinoutTemplate, PinoutTemplatePin, User } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
+import { findConnectorInWorkshop } from '../pin-map/connectors.service.ts';
 import { AppError, notFound } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
@@ -97,19 +91,7 @@ export async function saveTemplate(
   input: SaveTemplateRequest,
 ): Promise<PinoutTemplateDetail> {
   const id = await inTransaction(db(), async (t) => {
-    const connector = await Connector.findOne({
-      where: { id: input.connectorId },
-      include: [
-        {
-          model: Conversion,
-          attributes: [],
-          where: { workshopId: actor.workshopId },
-          required: true,
-        },
-      ],
-      transaction: t,
-    });
-    if (!connector) throw notFound('That connector');
+    const connector = await findConnectorInWorkshop(actor, input.connectorId, t);
     const pins = await Pin.findAll({
       where: { connectorId: connector.id },
       order: [['position', 'ASC']],

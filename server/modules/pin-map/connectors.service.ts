@@ -39,10 +39,11 @@ export async function listConnectors(
   }));
 }
 
-async function findConnectorInWorkshop(
-  actor: Actor,
+/** The connector with this id in the actor's workshop, or 404 (another workshop's ids look missing). */
+export async function findConnectorInWorkshop(
+  actor: Pick<Actor, 'workshopId'>,
   id: number,
-  transaction: Transaction,
+  transaction?: Transaction,
 ): Promise<Connector> {
   const connector = await Connector.findOne({
     where: { id },

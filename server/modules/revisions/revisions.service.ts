@@ -194,26 +194,30 @@ async function assertReviewable(actor: Actor, revision: Revision, version: numbe
 }
 
 /**
- * Signs off a revision in review: one conditional UPDATE (status still in review, version as read),
- * so of two sign-offs at once exactly one succeeds. The trigger then refuses any later change.
+ * Records a reviewer's decision on a revision in review: one conditional UPDATE (status still in
+ * review, version as read), so of two decisions at once exactly one succeeds; then the audit line
+ * and the notice to the submitter, in the same transaction. A signed-off revision is then frozen by
+ * the database trigger.
  */
-export async function signOff(
+async function decide(
   actor: Actor,
   conversionId: number,
   number: number,
-  input: SignOffRequest,
+  version: number | undefined,
+  decision: { status: 'signed_off' } | { status: 'changes_requested'; comment: string },
 ): Promise<RevisionSummary> {
   const summary = await inTransaction(db(), async (t) => {
     const revision = await findRevision(actor, conversionId, number, t);
-    await assertReviewable(actor, revision, input.version);
+    await assertReviewable(actor, revision, version);
     const now = new Date();
+    const signing = decision.status === 'signed_off';
     const [updated] = await Revision.update(
       {
-        status: 'signed_off',
+        status: decision.status,
         reviewedById: actor.id,
         reviewedByName: actor.name,
         reviewedAt: now,
-        signedAt: now,
+        ...(signing ? { signedAt: now } : { reviewComment: decision.comment }),
         version: revision.version + 1,
       },
       {
@@ -221,71 +225,47 @@ export async function signOff(
         transaction: t,
       },
     );
-    if (updated !== 1)
+    if (updated !== 1) {
       throw new AppError(
         409,
         'not_in_review',
         `Revision ${number} was reviewed by someone else just now.`,
       );
+    }
     await revision.reload({ transaction: t });
     await recordAudit(t, actor, {
       conversionId,
-      action: 'sign_off',
+      action: signing ? 'sign_off' : 'send_back',
       entityType: 'revision',
       entityId: revision.id,
-      summary: `Signed off revision ${number} (hash ${revision.hash.slice(0, 12)})`,
-      after: { number, hash: revision.hash, signedAt: now.toISOString() },
+      summary: signing
+        ? `Signed off revision ${number} (hash ${revision.hash.slice(0, 12)})`
+        : `Sent revision ${number} back: ${decision.comment.slice(0, 120)}`,
+      after: signing
+        ? { number, hash: revision.hash, signedAt: now.toISOString() }
+        : { number, comment: decision.comment },
     });
-    await notifySubmitter(t, actor, revision, 'signed_off', '');
+    await notifySubmitter(t, actor, revision, decision.status, signing ? '' : decision.comment);
     return toSummary(revision);
   });
   kickMail();
   return summary;
 }
 
-export async function sendBack(
+export function signOff(actor: Actor, conversionId: number, number: number, input: SignOffRequest) {
+  return decide(actor, conversionId, number, input.version, { status: 'signed_off' });
+}
+
+export function sendBack(
   actor: Actor,
   conversionId: number,
   number: number,
   input: SendBackRequest,
-): Promise<RevisionSummary> {
-  const summary = await inTransaction(db(), async (t) => {
-    const revision = await findRevision(actor, conversionId, number, t);
-    await assertReviewable(actor, revision, input.version);
-    const [updated] = await Revision.update(
-      {
-        status: 'changes_requested',
-        reviewedById: actor.id,
-        reviewedByName: actor.name,
-        reviewedAt: new Date(),
-        reviewComment: input.comment,
-        version: revision.version + 1,
-      },
-      {
-        where: { id: revision.id, status: 'in_review', version: revision.version },
-        transaction: t,
-      },
-    );
-    if (updated !== 1)
-      throw new AppError(
-        409,
-        'not_in_review',
-        `Revision ${number} was reviewed by someone else just now.`,
-      );
-    await revision.reload({ transaction: t });
-    await recordAudit(t, actor, {
-      conversionId,
-      action: 'send_back',
-      entityType: 'revision',
-      entityId: revision.id,
-      summary: `Sent revision ${number} back: ${input.comment.slice(0, 120)}`,
-      after: { number, comment: input.comment },
-    });
-    await notifySubmitter(t, actor, revision, 'changes_requested', input.comment);
-    return toSummary(revision);
+) {
+  return decide(actor, conversionId, number, input.version, {
+    status: 'changes_requested',
+    comment: input.comment,
   });
-  kickMail();
-  return summary;
 }
 
 async function notifySubmitter(

@@ -2,6 +2,7 @@
  * What changed between two snapshots of a conversion: pins matched by connector label and cavity
  * (what a person calls them), feeds by id with their name, connectors by label; field by field.
  */
+import { PIN_FIELD_NAMES } from '../../schemas/pin-map.schema.ts';
 import type { FieldChange, RevisionChanges } from '../../schemas/revisions.schema.ts';
 import type {
   ConversionSnapshot,
@@ -9,20 +10,8 @@ import type {
   SnapshotPin,
 } from '../../schemas/snapshot.schema.ts';
 
-const PIN_FIELDS: Array<keyof SnapshotPin> = [
-  'function',
-  'signalClass',
-  'colour',
-  'sizeMm2',
-  'insulationRatingC',
-  'disposition',
-  'destination',
-  'destinationPinId',
-  'destinationFeedId',
-  'runLengthM',
-  'loadCurrentA',
-  'notes',
-];
+/** Every field a person sets on a pin. */
+const PIN_FIELDS: Array<keyof SnapshotPin> = PIN_FIELD_NAMES;
 
 function same(a: unknown, b: unknown): boolean {
   return JSON.stringify(a) === JSON.stringify(b);

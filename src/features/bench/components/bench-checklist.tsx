@@ -1,42 +1,13 @@
 import { useMemo, useState } from 'react';
 import { continuityLooksHigh } from '#shared/domain/bench.ts';
 import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
-import { colourSwatches, describeWireColour } from '#shared/domain/wire-colours.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import type { BenchItem, BenchSheet } from '#shared/schemas/bench.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
+import { DispositionGlyph } from '@/components/ui/disposition-glyph.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
+import { WireColour } from '@/components/ui/wire-colour.tsx';
 import { useRecordBenchWork } from '../api/bench.ts';
-
-function Glyph({ disposition }: { disposition: BenchItem['pin']['disposition'] }) {
-  const info = DISPOSITION_INFO[disposition];
-  return (
-    <svg viewBox="0 0 10 10" className="size-5 shrink-0" aria-hidden>
-      <path
-        d={info.glyph}
-        fill={info.filled ? 'currentColor' : 'none'}
-        stroke="currentColor"
-        strokeWidth={1.3}
-        strokeLinecap="round"
-      />
-    </svg>
-  );
-}
-
-function Swatch({ colour }: { colour: string }) {
-  const swatches = colourSwatches(colour);
-  if (!swatches.length) return null;
-  return (
-    <span
-      className="inline-flex h-4 w-7 overflow-hidden rounded-sm border border-ink/40"
-      aria-hidden
-    >
-      {swatches.map((c, i) => (
-        <span key={i} className={i === 0 ? 'flex-[2]' : 'flex-1'} style={{ background: c }} />
-      ))}
-    </span>
-  );
-}
 
 function Toggle({
   label,
@@ -128,19 +99,13 @@ function BenchRow({
           <p className="flex items-center gap-3">
             <span className="font-mono text-2xl font-bold">{item.name}</span>
             <span className="inline-flex items-center gap-1.5 rounded border border-rule-strong px-2 py-0.5 font-semibold">
-              <Glyph disposition={item.pin.disposition} />
+              <DispositionGlyph disposition={item.pin.disposition} size={18} />
               {info.label}
             </span>
           </p>
           <p className="mt-1 text-lg">{item.pin.function || '—'}</p>
           <p className="mt-1 flex flex-wrap items-center gap-3 text-ink-soft">
-            {item.pin.colour ? (
-              <span className="inline-flex items-center gap-1.5">
-                <Swatch colour={item.pin.colour} />
-                <span className="font-mono">{item.pin.colour}</span>
-                <span className="sr-only">({describeWireColour(item.pin.colour)})</span>
-              </span>
-            ) : null}
+            {item.pin.colour ? <WireColour value={item.pin.colour} /> : null}
             {item.pin.sizeMm2 != null ? (
               <span className="font-mono">{formatWireSize(item.pin.sizeMm2, unit)}</span>
             ) : null}

@@ -24,7 +24,7 @@ import { INSULATION_RATINGS_C, type SizeUnit } from '#shared/schemas/workshop.sc
 import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextAreaField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
-import { WireColourCode } from '@/components/ui/wire-colour-code.tsx';
+import { WireColour } from '@/components/ui/wire-colour.tsx';
 import { ApiError } from '@/lib/api-client.ts';
 import { useCreateFeed } from '../api/create-feed.ts';
 import { useDeleteFeed } from '../api/delete-feed.ts';
@@ -456,7 +456,7 @@ export function FeedForm({
               error={errors['wire.colour']}
               hint={
                 colourPreview?.ok ? (
-                  <WireColourCode value={colourPreview.value} />
+                  <WireColour value={colourPreview.value} />
                 ) : (
                   'Base and stripe, e.g. BU/WH'
                 )

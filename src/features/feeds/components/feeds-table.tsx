@@ -6,7 +6,7 @@ import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import { AllClearLabel, SeverityLabel } from '@/components/ui/severity.tsx';
 import { SortableTable, type SortableColumn } from '@/components/ui/sortable-table.tsx';
-import { WireColourCode } from '@/components/ui/wire-colour-code.tsx';
+import { WireColour } from '@/components/ui/wire-colour.tsx';
 import {
   findingsByFeed,
   fuseLabel,
@@ -144,7 +144,7 @@ export function FeedsTable({
                 <span className="font-mono font-semibold">
                   {formatWireSize(w.sizeMm2, sizeUnit)}
                 </span>
-                <WireColourCode value={w.colour} />
+                <WireColour value={w.colour} />
               </span>
               <div className="text-xs text-ink-faint">
                 {WIRE_ZONE_LABELS[w.zone]} · <span className="font-mono">{num(w.lengthM)} m</span> ·{' '}

@@ -1,7 +1,7 @@
 import { SIGNAL_CLASS_LABELS } from '#shared/domain/signal-classes.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import type { TemplatePin } from '#shared/schemas/library.schema.ts';
-import { WireColourCode } from '@/components/ui/wire-colour-code.tsx';
+import { WireColour } from '@/components/ui/wire-colour.tsx';
 import { DispositionWord } from './disposition-word.tsx';
 
 /** A template's cavities in face order with what each carries. */
@@ -37,7 +37,7 @@ export function TemplatePinsTable({ pins, caption }: { pins: TemplatePin[]; capt
                 {pin.signalClass === 'none' ? '—' : SIGNAL_CLASS_LABELS[pin.signalClass]}
               </td>
               <td className="px-3 py-2">
-                <WireColourCode value={pin.colour} />
+                <WireColour value={pin.colour} />
               </td>
               <td className="px-3 py-2 whitespace-nowrap">
                 {pin.sizeMm2 == null ? (

@@ -3,8 +3,8 @@ import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import type { PinColumnId } from '../lib/columns.ts';
 import type { PinRow } from '../lib/rows.ts';
-import { DispositionLabel } from './disposition-glyph.tsx';
-import { WireColour } from './wire-colour.tsx';
+import { DispositionLabel } from '@/components/ui/disposition-glyph.tsx';
+import { WireColour } from '@/components/ui/wire-colour.tsx';
 
 const Empty = () => <span className="text-ink-faint">—</span>;
 

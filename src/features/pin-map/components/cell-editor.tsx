@@ -1,7 +1,7 @@
 import { useEffect, useLayoutEffect, useRef, useState, type KeyboardEvent } from 'react';
 import type { EditorKind, EditorOption } from '../lib/editor-options.ts';
-import { DispositionGlyph } from './disposition-glyph.tsx';
-import { ColourSwatch } from './wire-colour.tsx';
+import { DispositionGlyph } from '@/components/ui/disposition-glyph.tsx';
+import { ColourSwatch } from '@/components/ui/wire-colour.tsx';
 
 export type EditorMove = 'down' | 'up' | 'right' | 'left' | 'stay';
 

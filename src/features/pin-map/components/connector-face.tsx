@@ -6,8 +6,8 @@ import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { faceCavities, type FaceCavity } from '../lib/face.ts';
 import type { DispositionCounts } from '../lib/progress.ts';
-import { DispositionGlyphPath, DispositionLabel } from './disposition-glyph.tsx';
-import { WireColour } from './wire-colour.tsx';
+import { DispositionGlyphPath, DispositionLabel } from '@/components/ui/disposition-glyph.tsx';
+import { WireColour } from '@/components/ui/wire-colour.tsx';
 
 interface FaceProps {
   connector: Connector;

@@ -1,6 +1,6 @@
 import { DISPOSITION_INFO, DISPOSITIONS } from '#shared/domain/dispositions.ts';
 import { decidedOf, totalOf, type DispositionCounts } from '../lib/progress.ts';
-import { DispositionGlyph } from './disposition-glyph.tsx';
+import { DispositionGlyph } from '@/components/ui/disposition-glyph.tsx';
 
 /** "31 of 40 decided", a bar of the same, and the count of each disposition in words and glyphs. */
 export function DispositionTally({

@@ -3,7 +3,7 @@ import { DISPOSITION_INFO, DISPOSITIONS, type Disposition } from '#shared/domain
 import { Button } from '@/components/ui/button.tsx';
 import { parseDestination, type DestinationSet } from '../lib/cell-values.ts';
 import { feedDestination, type DestinationCavity, type DestinationFeed } from '../lib/rows.ts';
-import { DispositionGlyph } from './disposition-glyph.tsx';
+import { DispositionGlyph } from '@/components/ui/disposition-glyph.tsx';
 
 /** Acts on every selected pin at once: one disposition, or one destination. */
 export function SelectionToolbar({
