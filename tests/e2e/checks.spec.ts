@@ -178,3 +178,17 @@ test('the calculator answers a what-if, in either unit, and marks a bad size', a
   await expect(result).toContainText('within the 3 % limit');
   await page.screenshot({ path: `${SCREENS}/calculator.png`, fullPage: true });
 });
+
+test('a finding’s pin link opens the pin map on that pin', async ({ page }) => {
+  await signIn(page, DEMO.builder);
+  await page.getByRole('link', { name: 'Ashby yard truck' }).click();
+  await page.getByRole('link', { name: 'Checks', exact: true }).click();
+  await page.getByRole('link', { name: 'Pin E3-13' }).click();
+  await expect(page).toHaveURL(/\/pins\?pin=\d+/);
+  const grid = page.getByRole('grid');
+  await expect(grid).toBeFocused();
+  // The grid's active cell is in the row of E3-13.
+  const active = await grid.getAttribute('aria-activedescendant');
+  expect(active).toBeTruthy();
+  await expect(page.locator(`[role="row"][data-pin="E3-13"] [id="${active}"]`)).toHaveCount(1);
+});
