@@ -31,6 +31,19 @@ export function toConversionDto(conversion: Conversion): ConversionDto {
 }
 
 /**
+ * An include that keeps a conversion's child rows (pins, connectors…) to the actor's workshop:
+ * another workshop's rows are simply not found.
+ */
+export function ofConversionInWorkshop(actor: Pick<Actor, 'workshopId'>) {
+  return {
+    model: Conversion,
+    attributes: [],
+    where: { workshopId: actor.workshopId },
+    required: true,
+  };
+}
+
+/**
  * The conversion with this id in the actor's workshop, or 404: another workshop's ids look
  * exactly like ids that do not exist.
  */

@@ -7,12 +7,15 @@ import {
   type UpdateConnectorRequest,
 } from '#shared/schemas/pin-map.schema.ts';
 import { db } from '../../db/index.ts';
-import { Connector, Conversion, Pin } from '../../db/models/index.ts';
+import { Connector, Pin } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, badRequest, notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
-import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
+import {
+  findConversionInWorkshop,
+  ofConversionInWorkshop,
+} from '../conversions/conversions.service.ts';
 import { toConnectorDto } from './pin-dto.ts';
 import { isBlankPin } from './pins.service.ts';
 
@@ -47,14 +50,7 @@ export async function findConnectorInWorkshop(
 ): Promise<Connector> {
   const connector = await Connector.findOne({
     where: { id },
-    include: [
-      {
-        model: Conversion,
-        attributes: [],
-        where: { workshopId: actor.workshopId },
-        required: true,
-      },
-    ],
+    include: [ofConversionInWorkshop(actor)],
     transaction,
   });
   if (!connector) throw notFound('That connector');

@@ -7,12 +7,15 @@ import type {
   UpdatePinRequest,
 } from '#shared/schemas/pin-map.schema.ts';
 import { db } from '../../db/index.ts';
-import { Connector, Conversion, Feed, Pin } from '../../db/models/index.ts';
+import { Connector, Feed, Pin } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
-import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
+import {
+  findConversionInWorkshop,
+  ofConversionInWorkshop,
+} from '../conversions/conversions.service.ts';
 import { toPinDto } from './pin-dto.ts';
 
 const PIN_ORDER: Array<[string, string]> = [
@@ -30,14 +33,7 @@ export async function listPins(actor: Actor, conversionId: number): Promise<PinD
 async function findPinInWorkshop(actor: Actor, id: number, transaction: Transaction): Promise<Pin> {
   const pin = await Pin.findOne({
     where: { id },
-    include: [
-      {
-        model: Conversion,
-        attributes: [],
-        where: { workshopId: actor.workshopId },
-        required: true,
-      },
-    ],
+    include: [ofConversionInWorkshop(actor)],
     transaction,
   });
   if (!pin) throw notFound('That pin');
