@@ -4,6 +4,7 @@ import { benchItems } from '#shared/domain/bench.ts';
 import { checkReport } from '#shared/domain/checks/run-checks.ts';
 import { revisionHash } from '#shared/domain/revisions/content-hash.ts';
 import {
+  AuditEvent,
   BenchRecord,
   Connector,
   Conversion,
@@ -63,6 +64,7 @@ export async function seedDemo(
     await seedSignedOffRevision(workshop.id, signedOff.id, users, transaction);
     const draftPins = await seedPinMap(draft.id, DRAFT_CONNECTORS, transaction);
     await seedFeeds(draft.id, DRAFT_FEEDS, draftPins, transaction);
+    await seedHistory(workshop.id, { signedOff: signedOff.id, draft: draft.id }, transaction);
     return {
       workshopId: workshop.id,
       users,
@@ -256,6 +258,111 @@ async function seedSignedOffRevision(
         recordedByName: technician!.name,
       },
       { transaction },
+    );
+  }
+}
+
+/**
+ * A believable history for the demo: what the audit trail would hold after the work the demo
+ * shows, dated over the past fortnight. Written directly, as the trail itself refuses changes.
+ */
+async function seedHistory(
+  workshopId: number,
+  conversions: { signedOff: number; draft: number },
+  transaction: Transaction,
+) {
+  const names = Object.fromEntries(
+    (await User.findAll({ where: { workshopId }, transaction })).map((u) => [u.role, u]),
+  );
+  const day = 86_400_000;
+  const events: Array<[number, number, string, string, string, string]> = [
+    // [days ago, conversion, role, action, entity type, summary]
+    [
+      14,
+      conversions.signedOff,
+      'builder',
+      'create',
+      'conversion',
+      'Created conversion "Pellow farm flatbed"',
+    ],
+    [
+      13,
+      conversions.signedOff,
+      'builder',
+      'import',
+      'connector',
+      'Imported the pinouts of E1, E2 and E3 from the donor sheet',
+    ],
+    [
+      12,
+      conversions.signedOff,
+      'builder',
+      'batch_update',
+      'pin',
+      'Decided the transmission and evaporative pins of E3: de-pin or cut',
+    ],
+    [
+      11,
+      conversions.signedOff,
+      'builder',
+      'create',
+      'feed',
+      'Added feeds "ECU main", "Ignition coils", "Fuel pump", "Cooling fan", "Diagnostic and memory"',
+    ],
+    [
+      8,
+      conversions.signedOff,
+      'builder',
+      'update',
+      'feed',
+      'Changed feed "Fuel pump": wire 2.5 mm² → 4 mm² after the voltage-drop check',
+    ],
+    [7, conversions.signedOff, 'builder', 'submit', 'revision', 'Submitted revision 1 for review'],
+    [5, conversions.signedOff, 'reviewer', 'sign_off', 'revision', 'Signed off revision 1'],
+    [
+      2,
+      conversions.signedOff,
+      'technician',
+      'bench_record',
+      'pin',
+      'Bench, revision 1: 14 pins de-pinned or cut back, 6 tested',
+    ],
+    [
+      4,
+      conversions.draft,
+      'builder',
+      'create',
+      'conversion',
+      'Created conversion "Ashby yard truck"',
+    ],
+    [
+      3,
+      conversions.draft,
+      'builder',
+      'import',
+      'connector',
+      'Imported the pinouts of E1, E2 and E3 from the donor sheet',
+    ],
+    [1, conversions.draft, 'builder', 'create', 'feed', 'Added the five new feeds'],
+  ];
+  for (const [daysAgo, conversionId, role, action, entityType, summary] of events) {
+    const actor = names[role]!;
+    await AuditEvent.sequelize!.query(
+      `INSERT INTO audit_events (workshop_id, conversion_id, actor_id, actor_name, action, entity_type,
+         summary, created_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?)`,
+      {
+        replacements: [
+          workshopId,
+          conversionId,
+          actor.id,
+          actor.name,
+          action,
+          entityType,
+          summary,
+          new Date(Date.now() - daysAgo * day),
+        ],
+        transaction,
+      },
     );
   }
 }

@@ -11,7 +11,7 @@ const cell = (page: Page, pin: string, column: string) =>
 
 async function openPinMap(page: Page, conversion: string) {
   await page.getByRole('link', { name: conversion }).click();
-  await page.getByRole('link', { name: 'Pin map' }).click();
+  await page.getByRole('link', { name: 'Pin map', exact: true }).click();
   await expect(grid(page)).toBeVisible();
 }
 

@@ -11,6 +11,7 @@ const ACTIONS: Record<string, string> = {
   bulk_update: 'Changed several',
   batch_update: 'Changed several',
   import: 'Imported',
+  bench_record: 'Bench work on',
   submit: 'Submitted',
   comment: 'Commented',
   send_back: 'Sent back',
@@ -23,6 +24,13 @@ const ENTITIES: Record<string, string> = {
   feed: 'Feed',
   revision: 'Revision',
 };
+
+/** "Changed pin", "Changed several pins", "Bench work on pin". */
+function describe(action: string, entityType: string): string {
+  const entity = ENTITIES[entityType]?.toLowerCase() ?? entityType;
+  const several = action === 'bulk_update' || action === 'batch_update';
+  return `${ACTIONS[action] ?? action} ${entity}${several ? 's' : ''}`;
+}
 
 function Change({ before, after }: { before: unknown; after: unknown }) {
   if (before == null && after == null) return null;
@@ -93,8 +101,7 @@ export function AuditTrail({ conversionId }: { conversionId: number }) {
               <p className="text-sm text-ink-faint">
                 <time dateTime={e.at}>{new Date(e.at).toLocaleString()}</time> ·{' '}
                 <span className="font-semibold text-ink">{e.actorName}</span> ·{' '}
-                {ACTIONS[e.action] ?? e.action}{' '}
-                {ENTITIES[e.entityType]?.toLowerCase() ?? e.entityType}
+                {describe(e.action, e.entityType)}
               </p>
               <p>{e.summary}</p>
               <Change before={e.before} after={e.after} />
