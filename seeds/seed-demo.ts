@@ -15,7 +15,9 @@ import {
   User,
   Workshop,
 } from '../server/db/models/index.ts';
+import { toSessionUser } from '../server/modules/auth/auth.service.ts';
 import { loadConversionSnapshot } from '../server/modules/checks/snapshot.service.ts';
+import { saveTemplate } from '../server/modules/library/library.service.ts';
 import { DEMO_CONVERSIONS, DEMO_USERS, DEMO_WORKSHOP } from './demo-data.ts';
 import { DRAFT_FEEDS, SIGNED_OFF_FEEDS, type DemoFeed } from './feeds-data.ts';
 import { DRAFT_CONNECTORS, SIGNED_OFF_CONNECTORS, type DemoConnector } from './pin-map-data.ts';
@@ -40,7 +42,7 @@ export async function seedDemo(
   options: { password: string; bcryptCost: number },
 ): Promise<DemoSeedResult> {
   const passwordHash = await bcrypt.hash(options.password, options.bcryptCost);
-  return sequelize.transaction(async (transaction) => {
+  const result = await sequelize.transaction(async (transaction) => {
     const workshop = await Workshop.create(DEMO_WORKSHOP, { transaction });
     const users: Record<string, number> = {};
     for (const u of DEMO_USERS) {
@@ -71,6 +73,36 @@ export async function seedDemo(
       conversions: { signedOff: signedOff.id, draft: draft.id },
     };
   });
+  await seedLibrary(result);
+  return result;
+}
+
+/**
+ * The shop maps the KT-20 again and again: its three ECU connectors are in the library, saved
+ * from the signed-off conversion the way a builder would (through the library service).
+ */
+async function seedLibrary(result: DemoSeedResult) {
+  const builder = await User.findByPk(result.users.builder!, { include: [Workshop] });
+  const actor = {
+    ...toSessionUser(builder!, (builder as User & { Workshop: Workshop }).Workshop),
+    requestId: 'demo-seed',
+  };
+  const descriptions: Record<string, string> = {
+    E1: 'Engine sensors and actuators. Stays with the engine harness in every KT-20 swap so far.',
+    E2: 'Vehicle side: main relay, feeds, starter, pump and fan relays, tach, lamp, speed, CAN, K-line.',
+    E3: 'Automatic transmission and evaporative circuits: de-pinned or cut in a manual, carburettor-era vehicle.',
+  };
+  const connectors = await Connector.findAll({
+    where: { conversionId: result.conversions.signedOff, side: 'ecu' },
+    order: [['id', 'ASC']],
+  });
+  for (const c of connectors) {
+    await saveTemplate(actor, {
+      connectorId: c.id,
+      name: `KT-20 ECU connector ${c.label}`,
+      description: descriptions[c.label] ?? '',
+    });
+  }
 }
 
 /**
