@@ -78,6 +78,14 @@ function translate(err: unknown, maxBytes: number): AppError {
   );
 }
 
+/** The uploaded name, for display only: no folders, no control characters, not too long. */
+export function displayFileName(name: string): string {
+  const base = name.split(/[\\/]/).pop() ?? '';
+  // eslint-disable-next-line no-control-regex -- finding control characters is the point
+  const clean = base.replace(/[\u0000-\u001F\u007F]/g, '').trim();
+  return (clean || 'upload').slice(0, 200);
+}
+
 /** The file `singleFileUpload` read. */
 export function uploadedFile(req: Express.Request): UploadedFile {
   const file = req.file;

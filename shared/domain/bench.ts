@@ -6,6 +6,7 @@ import type { BenchItem } from '../schemas/bench.schema.ts';
 import type { ConversionSnapshot, SnapshotPin } from '../schemas/snapshot.schema.ts';
 import { BENCH_ORDER } from './dispositions.ts';
 import { conductorResistanceOhm } from './electrical/copper.ts';
+import { pinNames } from './pin-names.ts';
 
 /** Contact and terminal allowance on top of the wire itself (common practice, no source: ≈0–0.2 Ω for short runs). */
 export const CONTINUITY_ALLOWANCE_OHM = 0.2;
@@ -24,10 +25,7 @@ export function continuityLooksHigh(measuredOhm: number, expectedOhm: number | n
 
 /** Every pin with something to do or test (empty cavities left out), in bench order. */
 export function benchItems(snapshot: ConversionSnapshot): Omit<BenchItem, 'record'>[] {
-  const labels = new Map(snapshot.connectors.map((c) => [c.id, c.label]));
-  const pinName = new Map(
-    snapshot.pins.map((p) => [p.id, `${labels.get(p.connectorId) ?? '?'}-${p.cavity}`]),
-  );
+  const pinName = pinNames(snapshot);
   const feedName = new Map(snapshot.feeds.map((f) => [f.id, f.name]));
   const connectorOrder = new Map(snapshot.connectors.map((c, i) => [c.id, i]));
   return snapshot.pins

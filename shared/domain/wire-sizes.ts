@@ -31,6 +31,11 @@ export function awgAreaMm2(gauge: number): number {
   return (Math.PI / 4) * d * d;
 }
 
+/** The area stored for an AWG size: rounded to 0.0001 mm², as size editors and imports write it. */
+export function storedAwgAreaMm2(gauge: number): number {
+  return Number(awgAreaMm2(gauge).toFixed(4));
+}
+
 export function isAwgGauge(gauge: number): boolean {
   return Number.isInteger(gauge) && gauge >= AWG_MIN && gauge <= AWG_MAX;
 }
@@ -71,7 +76,7 @@ export function nearestAwg(areaMm2: number): number {
 
 /** Within 1 % counts as the same size: stored AWG areas round-trip through mm². */
 const SAME_SIZE = 0.01;
-const sameSize = (a: number, b: number) => Math.abs(a - b) / b <= SAME_SIZE;
+export const sameSize = (a: number, b: number) => Math.abs(a - b) / b <= SAME_SIZE;
 
 /** The AWG gauge this area is exactly (within 1 %), or null. */
 export function exactAwg(areaMm2: number): number | null {
@@ -124,7 +129,7 @@ export function parseWireSize(input: string, unit: SizeUnit): SizeParse {
     const gauge = parseAwgGauge(bare);
     if (gauge === null)
       return { ok: false, error: `"${input}" is not an AWG size between 4/0 and 30` };
-    return { ok: true, areaMm2: Number(awgAreaMm2(gauge).toFixed(4)) };
+    return { ok: true, areaMm2: storedAwgAreaMm2(gauge) };
   }
   const area = Number(bare);
   if (!Number.isFinite(area) || area <= 0)

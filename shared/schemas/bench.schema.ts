@@ -1,12 +1,8 @@
 import { z } from 'zod';
-import { optionalText } from './common.schema.ts';
+import { IdParam, optionalText } from './common.schema.ts';
 import type { SnapshotPin } from './snapshot.schema.ts';
 
-const digits = z
-  .string()
-  .regex(/^[1-9][0-9]{0,15}$/, 'must be a positive whole number')
-  .transform(Number);
-export const BenchPinParams = z.strictObject({ id: digits, number: digits, pinId: digits });
+export const BenchPinParams = z.strictObject({ id: IdParam, number: IdParam, pinId: IdParam });
 export type BenchPinParams = z.output<typeof BenchPinParams>;
 
 export const BenchRecordRequest = z.strictObject({

@@ -5,10 +5,8 @@ import {
   isAwgGauge,
   parseAwgGauge,
 } from '../domain/wire-sizes.ts';
-import { INSULATION_RATINGS_C } from './workshop.schema.ts';
-
-export const RETURN_PATHS = ['wire', 'chassis'] as const;
-export const ZONES = ['cabin', 'engine_bay'] as const;
+import { RETURN_PATHS, WIRE_ZONES } from './feeds.schema.ts';
+import { InsulationRatingSchema } from './pin-map.schema.ts';
 
 /**
  * Low-voltage DC only: 60 V is the usual upper limit of voltage class A for road vehicles
@@ -65,13 +63,8 @@ export const CalcRequest = z
     awg: CalcAwgSchema.optional(),
     returnPath: z.enum(RETURN_PATHS),
     conductorTempC: z.number().min(-40).max(200).default(20),
-    insulationRatingC: z
-      .number()
-      .refine((v) => (INSULATION_RATINGS_C as readonly number[]).includes(v), {
-        message: `must be one of ${INSULATION_RATINGS_C.join(', ')} °C`,
-      })
-      .default(105),
-    zone: z.enum(ZONES).default('cabin'),
+    insulationRatingC: InsulationRatingSchema.unwrap().default(105),
+    zone: z.enum(WIRE_ZONES).default('cabin'),
     /**
      * Conductors in the bundle, this one included. Three or more applies the bundle factors of
      * 33 CFR 183.435 (a conservative choice below 50 V); 1 leaves them off.

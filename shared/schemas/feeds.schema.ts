@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { optionalText, requiredText } from './common.schema.ts';
+import { IdParam, optionalText, requiredText } from './common.schema.ts';
 import { InsulationRatingSchema, WireColourSchema, WireSizeMm2Schema } from './pin-map.schema.ts';
 
 /** Where a new feed takes its power from. */
@@ -106,16 +106,7 @@ export const UpdateFeedRequest = z
   .refine(sourceNeedsFeed, SOURCE_MESSAGE);
 export type UpdateFeedRequest = z.infer<typeof UpdateFeedRequest>;
 
-export const FeedParams = z.strictObject({
-  id: z
-    .string()
-    .regex(/^[1-9][0-9]{0,15}$/, 'must be a positive whole number')
-    .transform(Number),
-  feedId: z
-    .string()
-    .regex(/^[1-9][0-9]{0,15}$/, 'must be a positive whole number')
-    .transform(Number),
-});
+export const FeedParams = z.strictObject({ id: IdParam, feedId: IdParam });
 export type FeedParams = z.output<typeof FeedParams>;
 
 export interface Feed {

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { CheckReport, Finding } from './checks.schema.ts';
-import { optionalText, requiredText } from './common.schema.ts';
+import { IdParam, optionalText, requiredText } from './common.schema.ts';
 import type { ConversionSnapshot } from './snapshot.schema.ts';
 
 export const REVISION_STATUSES = ['in_review', 'changes_requested', 'signed_off'] as const;
@@ -11,11 +11,7 @@ export const REVISION_STATUS_LABELS: Record<RevisionStatus, string> = {
   signed_off: 'Signed off',
 };
 
-const digits = z
-  .string()
-  .regex(/^[1-9][0-9]{0,15}$/, 'must be a positive whole number')
-  .transform(Number);
-export const RevisionParams = z.strictObject({ id: digits, number: digits });
+export const RevisionParams = z.strictObject({ id: IdParam, number: IdParam });
 export type RevisionParams = z.output<typeof RevisionParams>;
 
 export const SubmitRevisionRequest = z.strictObject({

@@ -11,9 +11,8 @@ import { AppError, notFound } from '../../lib/errors.ts';
 import { fileStore } from '../../lib/file-store.ts';
 import { logger } from '../../lib/logger.ts';
 import { inTransaction } from '../../lib/transaction.ts';
-import type { UploadedFile } from '../../lib/upload.ts';
+import { displayFileName, type UploadedFile } from '../../lib/upload.ts';
 import { recordAudit } from '../audit/audit.service.ts';
-import { displayFileName } from '../imports/imports.service.ts';
 
 const PDF = Buffer.from('%PDF-', 'latin1');
 const PNG = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
@@ -38,8 +37,6 @@ function describeRefused(bytes: Buffer): string {
   return 'not a PDF, PNG or JPEG';
 }
 
-const findConnector = (actor: Actor, id: number) => findConnectorInWorkshop(actor, id);
-
 function toDto(a: Attachment, uploadedBy: string | null): AttachmentDto {
   return {
     id: a.id,
@@ -60,7 +57,7 @@ export async function addAttachment(
   connectorId: number,
   file: UploadedFile,
 ): Promise<AttachmentDto> {
-  const connector = await findConnector(actor, connectorId);
+  const connector = await findConnectorInWorkshop(actor, connectorId);
   const contentType = sniffType(file.buffer);
   if (!contentType) {
     throw new AppError(
@@ -110,7 +107,7 @@ export async function addAttachment(
 }
 
 export async function listAttachments(actor: Actor, connectorId: number): Promise<AttachmentDto[]> {
-  await findConnector(actor, connectorId);
+  await findConnectorInWorkshop(actor, connectorId);
   const rows = await Attachment.findAll({
     where: { connectorId, workshopId: actor.workshopId },
     order: [['id', 'ASC']],

@@ -49,3 +49,15 @@ export function changedFields<T extends object>(
   }
   return changes;
 }
+
+/** {@link changedFields} as an audit line's `before` and `after`: old and new values by field. */
+export function beforeAndAfter(changes: Partial<Record<PropertyKey, [unknown, unknown]>>): {
+  before: Record<string, unknown>;
+  after: Record<string, unknown>;
+} {
+  const entries = Object.entries(changes) as Array<[string, [unknown, unknown]]>;
+  return {
+    before: Object.fromEntries(entries.map(([field, [old]]) => [field, old])),
+    after: Object.fromEntries(entries.map(([field, [, now]]) => [field, now])),
+  };
+}

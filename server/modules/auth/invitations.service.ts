@@ -1,13 +1,12 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
-import { config } from '../../config/runtime.ts';
 import { db } from '../../db/index.ts';
 import { Invitation, User, Workshop } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
-import { queueMail } from '../mail/outbox.service.ts';
+import { appLink, queueMail } from '../mail/outbox.service.ts';
 import { toSessionUser } from './auth.service.ts';
 import { assertAcceptablePassword, hashPassword } from './passwords.ts';
 import { signSessionToken } from './tokens.ts';
@@ -29,7 +28,6 @@ export async function inviteUser(t: Transaction, actor: Actor, user: User): Prom
     },
     { transaction: t },
   );
-  const base = (config().PUBLIC_URL ?? `http://localhost:${config().PORT}`).replace(/\/$/, '');
   await queueMail(t, {
     workshopId: actor.workshopId,
     kind: 'invitation',
@@ -37,7 +35,7 @@ export async function inviteUser(t: Transaction, actor: Actor, user: User): Prom
     subject: `You are invited to Loomwright at ${actor.workshopName}`,
     text:
       `${actor.name} has added you to ${actor.workshopName} on Loomwright as ${user.role}.\n\n` +
-      `Set your password here (the link works once, for ${VALID_DAYS} days):\n${base}/set-password#token=${token}\n\n` +
+      `Set your password here (the link works once, for ${VALID_DAYS} days):\n${appLink(`/set-password#token=${token}`)}\n\n` +
       `Then sign in with ${user.email}.\n\n— Loomwright`,
   });
 }

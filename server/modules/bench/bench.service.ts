@@ -4,14 +4,14 @@ import type {
   BenchSheet,
 } from '#shared/schemas/bench.schema.ts';
 import { benchItems } from '#shared/domain/bench.ts';
-import type { ConversionSnapshot } from '#shared/schemas/snapshot.schema.ts';
+import { cavityName } from '#shared/domain/pin-names.ts';
 import { db } from '../../db/index.ts';
-import { BenchRecord, Revision } from '../../db/models/index.ts';
+import { BenchRecord } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
-import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
+import { currentSignedOff, findRevision, snapshotOf } from '../revisions/revisions.service.ts';
 
 function toRecordDto(r: BenchRecord): BenchRecordDto {
   return {
@@ -28,13 +28,9 @@ function toRecordDto(r: BenchRecord): BenchRecordDto {
 
 /** The checklist of the revision the bench works from: the latest signed-off one. */
 export async function getBenchSheet(actor: Actor, conversionId: number): Promise<BenchSheet> {
-  await findConversionInWorkshop(actor, conversionId);
-  const revision = await Revision.findOne({
-    where: { conversionId, status: 'signed_off' },
-    order: [['number', 'DESC']],
-  });
+  const revision = await currentSignedOff(actor, conversionId);
   if (!revision) return { revision: null, items: [], progress: { total: 0, done: 0, tested: 0 } };
-  const snapshot = JSON.parse(revision.snapshotJson) as ConversionSnapshot;
+  const snapshot = snapshotOf(revision);
   const records = new Map(
     (await BenchRecord.findAll({ where: { revisionId: revision.id } })).map((r) => [
       r.pinId,
@@ -70,9 +66,7 @@ export async function recordBenchWork(
   input: BenchRecordRequest,
 ): Promise<BenchRecordDto> {
   return inTransaction(db(), async (t) => {
-    await findConversionInWorkshop(actor, conversionId, t);
-    const revision = await Revision.findOne({ where: { conversionId, number }, transaction: t });
-    if (!revision) throw notFound(`Revision ${number}`);
+    const revision = await findRevision(actor, conversionId, number, t);
     if (revision.status !== 'signed_off') {
       throw new AppError(
         409,
@@ -80,7 +74,7 @@ export async function recordBenchWork(
         `Revision ${number} is not signed off: the bench works only from a signed-off revision.`,
       );
     }
-    const snapshot = JSON.parse(revision.snapshotJson) as ConversionSnapshot;
+    const snapshot = snapshotOf(revision);
     const pin = snapshot.pins.find((p) => p.id === pinId);
     if (!pin) throw notFound('That pin in this revision');
     const existing = await BenchRecord.findOne({
@@ -103,7 +97,7 @@ export async function recordBenchWork(
       action: 'bench_record',
       entityType: 'pin',
       entityId: pinId,
-      summary: `Bench, revision ${number}, ${label}-${pin.cavity}: ${[fields.done && 'done', fields.tested && 'tested', fields.resistanceOhm != null && `${fields.resistanceOhm} Ω`].filter(Boolean).join(', ') || 'cleared'}`,
+      summary: `Bench, revision ${number}, ${cavityName(label, pin.cavity)}: ${[fields.done && 'done', fields.tested && 'tested', fields.resistanceOhm != null && `${fields.resistanceOhm} Ω`].filter(Boolean).join(', ') || 'cleared'}`,
       before,
       after: fields,
     });

@@ -5,6 +5,7 @@ import type { Actor } from '../../lib/actor.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
 import { toFeedDto } from '../feeds/feeds.service.ts';
 import { toConnectorDto, toPinDto } from '../pin-map/pin-dto.ts';
+import { PIN_ORDER } from '../pin-map/pins.service.ts';
 
 /**
  * The conversion's plan as it stands, in the snapshot form the checks read and revisions freeze.
@@ -19,15 +20,7 @@ export async function loadConversionSnapshot(
   const [workshop, connectors, pins, feeds] = await Promise.all([
     Workshop.findByPk(actor.workshopId, { transaction }),
     Connector.findAll({ where: { conversionId }, order: [['id', 'ASC']], transaction }),
-    Pin.findAll({
-      where: { conversionId },
-      order: [
-        ['connectorId', 'ASC'],
-        ['position', 'ASC'],
-      ],
-      raw: true,
-      transaction,
-    }),
+    Pin.findAll({ where: { conversionId }, order: PIN_ORDER, raw: true, transaction }),
     Feed.findAll({
       where: { conversionId },
       include: [{ model: FeedLoad, as: 'loads' }],

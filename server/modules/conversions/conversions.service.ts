@@ -9,7 +9,7 @@ import type { Actor } from '../../lib/actor.ts';
 import { notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import type { Transaction } from 'sequelize';
-import { changedFields, recordAudit } from '../audit/audit.service.ts';
+import { beforeAndAfter, changedFields, recordAudit } from '../audit/audit.service.ts';
 
 const withCreator = [{ model: User, as: 'createdBy', attributes: ['id', 'name'] }];
 
@@ -122,8 +122,7 @@ export async function updateConversion(
       entityType: 'conversion',
       entityId: id,
       summary: `Changed conversion details: ${Object.keys(changes).join(', ') || 'nothing'}`,
-      before: Object.fromEntries(Object.entries(changes).map(([k, v]) => [k, v?.[0]])),
-      after: Object.fromEntries(Object.entries(changes).map(([k, v]) => [k, v?.[1]])),
+      ...beforeAndAfter(changes),
     });
     return toConversionDto(conversion);
   });

@@ -138,6 +138,19 @@ async function assertReferences(
   }
 }
 
+/** A feed with its loads; the caller has already checked the conversion's workshop. */
+function feedWithLoads(
+  conversionId: number,
+  feedId: number,
+  t?: Transaction,
+): Promise<FeedWithLoads | null> {
+  return Feed.findOne({
+    where: { id: feedId, conversionId },
+    include: [{ model: FeedLoad, as: 'loads' }],
+    transaction: t,
+  });
+}
+
 async function findFeed(
   actor: Actor,
   conversionId: number,
@@ -145,11 +158,7 @@ async function findFeed(
   t?: Transaction,
 ): Promise<FeedWithLoads> {
   await findConversionInWorkshop(actor, conversionId, t);
-  const feed = await Feed.findOne({
-    where: { id: feedId, conversionId },
-    include: [{ model: FeedLoad, as: 'loads' }],
-    transaction: t,
-  });
+  const feed = await feedWithLoads(conversionId, feedId, t);
   if (!feed) throw notFound('That feed');
   return feed;
 }
@@ -204,16 +213,16 @@ export async function createFeed(
       { transaction: t },
     );
     await replaceLoads(feed.id, input.loads, t);
-    const created = await findFeed(actor, conversionId, feed.id, t);
+    const created = toFeedDto((await feedWithLoads(conversionId, feed.id, t))!);
     await recordAudit(t, actor, {
       conversionId,
       action: 'create',
       entityType: 'feed',
       entityId: feed.id,
       summary: `Added feed "${feed.name}"`,
-      after: toFeedDto(created),
+      after: created,
     });
-    return toFeedDto(created);
+    return created;
   };
   return transaction ? work(transaction) : inTransaction(db(), work);
 }
@@ -252,7 +261,7 @@ export async function updateFeed(
     feed.changed('updatedAt', true);
     await feed.save({ transaction: t });
     if (loads) await replaceLoads(feedId, loads, t);
-    const after = toFeedDto(await findFeed(actor, conversionId, feedId, t));
+    const after = toFeedDto((await feedWithLoads(conversionId, feedId, t))!);
     await recordAudit(t, actor, {
       conversionId,
       action: 'update',

@@ -1,10 +1,11 @@
 import { csvRecord, UTF8_BOM } from '#shared/domain/csv.ts';
+import { cavityName } from '#shared/domain/pin-names.ts';
 import { exactAwg, formatAwgGauge } from '#shared/domain/wire-sizes.ts';
 import { IMPORT_FIELDS, type ImportField } from '#shared/schemas/imports.schema.ts';
 import { Connector, Feed, Pin } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
-import { cavityName } from './plan.ts';
+import { PIN_ORDER } from '../pin-map/pins.service.ts';
 
 type Cell = string | number | null;
 
@@ -69,19 +70,8 @@ export async function exportPinsCsv(
   conversionId: number,
 ): Promise<{ fileName: string; body: string }> {
   const conversion = await findConversionInWorkshop(actor, conversionId);
-  const connectors = await Connector.findAll({
-    where: { conversionId },
-    order: [['id', 'ASC']],
-    raw: true,
-  });
-  const pins = await Pin.findAll({
-    where: { conversionId },
-    order: [
-      ['connectorId', 'ASC'],
-      ['position', 'ASC'],
-    ],
-    raw: true,
-  });
+  const connectors = await Connector.findAll({ where: { conversionId }, raw: true });
+  const pins = await Pin.findAll({ where: { conversionId }, order: PIN_ORDER, raw: true });
   const feeds = await Feed.findAll({
     where: { conversionId },
     attributes: ['id', 'name'],
@@ -90,10 +80,6 @@ export async function exportPinsCsv(
   const labels = new Map(connectors.map((c) => [c.id, c.label]));
   const byId = new Map(pins.map((p) => [p.id, p]));
   const feedNames = new Map(feeds.map((f) => [f.id, f.name]));
-  const order = new Map(connectors.map((c, i) => [c.id, i]));
-  pins.sort(
-    (a, b) => order.get(a.connectorId)! - order.get(b.connectorId)! || a.position - b.position,
-  );
 
   let body = UTF8_BOM + csvRecord(IMPORT_FIELDS);
   for (const pin of pins) {

@@ -22,7 +22,7 @@ import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound } from '../../lib/errors.ts';
 import { logger } from '../../lib/logger.ts';
 import { inTransaction } from '../../lib/transaction.ts';
-import type { UploadedFile } from '../../lib/upload.ts';
+import { displayFileName, type UploadedFile } from '../../lib/upload.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
 import { findConnectorInWorkshop } from '../pin-map/connectors.service.ts';
@@ -43,14 +43,6 @@ function chunks<T>(items: readonly T[], size = CHUNK): T[][] {
   const out: T[][] = [];
   for (let i = 0; i < items.length; i += size) out.push(items.slice(i, i + size));
   return out;
-}
-
-/** The uploaded name, for display only: no folders, no control characters, not too long. */
-export function displayFileName(name: string): string {
-  const base = name.split(/[\\/]/).pop() ?? '';
-  // eslint-disable-next-line no-control-regex -- finding control characters is the point
-  const clean = base.replace(/[\u0000-\u001F\u007F]/g, '').trim();
-  return (clean || 'upload').slice(0, 200);
 }
 
 interface Where {
@@ -75,10 +67,7 @@ async function locate(actor: Actor, target: ImportTarget): Promise<Where> {
 const PIN_ATTRIBUTES = ['id', 'connectorId', 'cavity', 'position', ...PIN_FIELD_NAMES, 'version'];
 
 /** A snapshot of the conversion's connectors, pins and feeds: what the plan works on. */
-async function loadContext(
-  where: Where,
-  transaction?: Transaction,
-): Promise<Omit<PlanContext, 'target'>> {
+async function loadContext(where: Where, transaction?: Transaction): Promise<PlanContext> {
   const { conversionId } = where;
   const connectors = await Connector.findAll({
     where: { conversionId },
@@ -116,6 +105,10 @@ async function loadContext(
     pins,
     feeds: feeds.map((f) => ({ id: f.id, name: f.name })),
     referencedPinIds,
+    target:
+      where.connectorId === null
+        ? { kind: 'conversion' }
+        : { kind: 'connector', connectorId: where.connectorId },
   };
 }
 
@@ -213,7 +206,8 @@ async function checkFile(
   };
   checked.imported = new Set(resolved.columnOf.keys());
   checked.errors.push(...csv.errors, ...resolved.errors);
-  if (where.connectorId === null && !resolved.columnOf.has('connector')) {
+  const lacksConnector = where.connectorId === null && !resolved.columnOf.has('connector');
+  if (lacksConnector) {
     checked.errors.push({
       row: csv.headerRow,
       column: null,
@@ -221,8 +215,7 @@ async function checkFile(
         'To import into the whole conversion the file needs a connector column saying which connector each row is on.',
     });
   }
-  if (csv.errors.length || !resolved.columnOf.has('cavity')) return checked;
-  if (where.connectorId === null && !resolved.columnOf.has('connector')) return checked;
+  if (csv.errors.length || !resolved.columnOf.has('cavity') || lacksConnector) return checked;
 
   const parsed = parseRows(csv.records, csv.headers, resolved.columnOf);
   checked.rows = parsed.rows;
@@ -305,12 +298,6 @@ async function previousImport(
   return { at: earlier.createdAt.toISOString(), by: by?.name ?? null };
 }
 
-function contextTarget(where: Where): PlanContext['target'] {
-  return where.connectorId === null
-    ? { kind: 'conversion' }
-    : { kind: 'connector', connectorId: where.connectorId };
-}
-
 const UPDATED_FIELDS = ['position', ...PIN_FIELD_NAMES, 'version', 'updatedAt'] as const;
 
 /** Writes a plan inside the caller's transaction, in statements of at most 500 rows. */
@@ -362,9 +349,14 @@ export async function importPinout(
   const given = parseMappingField(mappingField);
   const where = await locate(actor, target);
   const checked = await checkFile(actor, where, file, given);
-  const snapshot = { ...(await loadContext(where)), target: contextTarget(where) };
   const plan = checked.rows.length
-    ? planImport(snapshot, checked.rows, checked.mentioned, checked.headerOf, checked.imported)
+    ? planImport(
+        await loadContext(where),
+        checked.rows,
+        checked.mentioned,
+        checked.headerOf,
+        checked.imported,
+      )
     : null;
   const previous = await previousImport(where, checked.sha256);
   if (previous) {
@@ -377,9 +369,8 @@ export async function importPinout(
   if (preview.errorCount > 0 || !plan) throw refused(preview);
 
   const applied = await inTransaction(db(), async (t) => {
-    const context = { ...(await loadContext(where, t)), target: contextTarget(where) };
     const fresh = planImport(
-      context,
+      await loadContext(where, t),
       checked.rows,
       checked.mentioned,
       checked.headerOf,

@@ -12,6 +12,7 @@ import {
   type ColumnTarget,
   type ImportField,
   type ImportIssue,
+  type ImportResult,
 } from '#shared/schemas/imports.schema.ts';
 import { badRequest } from '../../lib/errors.ts';
 
@@ -77,7 +78,7 @@ export function parseMappingField(raw: unknown): Map<string, ColumnTarget> | nul
 
 export interface ResolvedMapping {
   mapping: ColumnMapping[];
-  source: 'detected' | 'saved' | 'given';
+  source: ImportResult['mappingSource'];
   /** Column index of each field in use. */
   columnOf: Map<ImportField, number>;
   errors: ImportIssue[];

@@ -11,6 +11,7 @@
  *   anything, or other pins or feeds point at it, the import is refused naming those cavities.
  */
 import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
+import { pinNames } from '#shared/domain/pin-names.ts';
 import { SIGNAL_CLASS_LABELS } from '#shared/domain/signal-classes.ts';
 import { parseWireColour } from '#shared/domain/wire-colours.ts';
 import { exactAwg, formatAwgGauge, formatWireSize } from '#shared/domain/wire-sizes.ts';
@@ -29,13 +30,11 @@ import {
 } from '#shared/schemas/pin-map.schema.ts';
 import type { PinRow } from './rows.ts';
 
-export interface PinData extends Omit<PinFields, 'signalClass' | 'disposition'> {
+export interface PinData extends PinFields {
   id: number;
   connectorId: number;
   cavity: string;
   position: number;
-  signalClass: PinFields['signalClass'];
-  disposition: PinFields['disposition'];
   version: number;
 }
 
@@ -58,22 +57,8 @@ export interface PlanContext {
   target: { kind: 'connector'; connectorId: number } | { kind: 'conversion' };
 }
 
-/** The fields an import writes, beyond cavity and position. */
-export type PinValues = Pick<
-  PinData,
-  | 'function'
-  | 'signalClass'
-  | 'colour'
-  | 'sizeMm2'
-  | 'insulationRatingC'
-  | 'disposition'
-  | 'destination'
-  | 'destinationPinId'
-  | 'destinationFeedId'
-  | 'runLengthM'
-  | 'loadCurrentA'
-  | 'notes'
->;
+/** The fields an import writes, beyond cavity and position: every field a person sets on a pin. */
+export type PinValues = PinFields;
 
 export const BLANK_VALUES: PinValues = {
   function: '',
@@ -195,18 +180,11 @@ export function fieldChanges(before: PinValues, after: PinValues, names: Names):
   return changes;
 }
 
-/** Cavity name as the pin map writes it: "V1-3". */
-export const cavityName = (label: string, cavity: string) => `${label}-${cavity}`;
-
 export function makeNames(ctx: Pick<PlanContext, 'connectors' | 'pins' | 'feeds'>): Names {
-  const labels = new Map(ctx.connectors.map((c) => [c.id, c.label]));
-  const pins = new Map(ctx.pins.map((p) => [p.id, p]));
+  const pins = pinNames(ctx);
   const feeds = new Map(ctx.feeds.map((f) => [f.id, f.name]));
   return {
-    pinName: (id) => {
-      const pin = id == null ? undefined : pins.get(id);
-      return pin ? cavityName(labels.get(pin.connectorId) ?? '?', pin.cavity) : '';
-    },
+    pinName: (id) => (id == null ? '' : (pins.get(id) ?? '')),
     feedName: (id) => (id == null ? '' : (feeds.get(id) ?? '')),
   };
 }
@@ -256,10 +234,9 @@ export function planImport(
   const feedList = ctx.feeds.map((f) => f.name).join(', ') || 'none yet';
 
   // Which connector each row goes to.
+  const into = ctx.target;
   const target =
-    ctx.target.kind === 'connector'
-      ? ctx.connectors.find((c) => c.id === (ctx.target as { connectorId: number }).connectorId)!
-      : null;
+    into.kind === 'connector' ? ctx.connectors.find((c) => c.id === into.connectorId)! : null;
   const routed = new Map<number, PinRow[]>();
   const connectorOf = (label: string | null, row: number | null): ConnectorData | null => {
     if (target) {

@@ -11,12 +11,13 @@ import {
 } from '#shared/domain/signal-classes.ts';
 import { parseWireColour } from '#shared/domain/wire-colours.ts';
 import {
-  awgAreaMm2,
   exactAwg,
   exactIsoSize,
   formatAwgGauge,
   ISO_6722_SIZES_MM2,
   parseAwgGauge,
+  sameSize,
+  storedAwgAreaMm2,
 } from '#shared/domain/wire-sizes.ts';
 import type { ImportField, ImportIssue } from '#shared/schemas/imports.schema.ts';
 import { PinFields } from '#shared/schemas/pin-map.schema.ts';
@@ -170,8 +171,6 @@ function parseColour(text: string): Cell<string> {
   return parsed.ok ? ok(parsed.value) : fail(parsed.error);
 }
 
-const sameArea = (a: number, b: number) => Math.abs(a - b) / b <= 0.01;
-
 export interface ParsedRows {
   /** Rows without a problem. */
   rows: PinRow[];
@@ -263,8 +262,8 @@ export function parseRows(
     const gauge = take('awg', parseAwg);
     if (columnOf.has('size_mm2') && sizeMm2 !== undefined) values.sizeMm2 = sizeMm2;
     if (gauge != null) {
-      const awgArea = Number(awgAreaMm2(gauge).toFixed(4));
-      if (sizeMm2 != null && !sameArea(sizeMm2, awgArea)) {
+      const awgArea = storedAwgAreaMm2(gauge);
+      if (sizeMm2 != null && !sameSize(sizeMm2, awgArea)) {
         issue(
           'awg',
           `${formatAwgGauge(gauge)} AWG is ${awgArea.toFixed(2)} mm², but the mm² column says ${sizeMm2} mm²; give one size or make them agree`,

@@ -10,11 +10,10 @@ import type { Connector as ConnectorDto } from '#shared/schemas/pin-map.schema.t
 import { db } from '../../db/index.ts';
 import { Pin, PinoutTemplate, PinoutTemplatePin, User } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
-import { findConnectorInWorkshop } from '../pin-map/connectors.service.ts';
 import { AppError, notFound } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
-import { createConnector } from '../pin-map/connectors.service.ts';
+import { createConnector, findConnectorInWorkshop } from '../pin-map/connectors.service.ts';
 
 function toTemplateDto(t: PinoutTemplate): TemplateDto {
   return {

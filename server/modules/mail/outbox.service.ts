@@ -1,6 +1,7 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import { Op, type Transaction } from 'sequelize';
 import { EmailSchema } from '#shared/schemas/auth.schema.ts';
+import { config } from '../../config/runtime.ts';
 import { MailOutbox } from '../../db/models/index.ts';
 import { logger } from '../../lib/logger.ts';
 import type { FakeSmtp } from './fake-smtp.ts';
@@ -42,6 +43,12 @@ export function configureMail(settings: MailSettings | null, fake: FakeSmtp | nu
 
 export function fakeInbox(): FakeSmtp | null {
   return fakeSmtp;
+}
+
+/** An absolute link into the app for a notice: under PUBLIC_URL, else this machine's port. */
+export function appLink(path: string): string {
+  const base = config().PUBLIC_URL ?? `http://localhost:${config().PORT}`;
+  return `${base.replace(/\/$/, '')}${path}`;
 }
 
 export interface Notice {

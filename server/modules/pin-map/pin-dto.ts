@@ -1,28 +1,7 @@
 import type { Connector as ConnectorDto, Pin as PinDto } from '#shared/schemas/pin-map.schema.ts';
 import type { Connector, Pin } from '../../db/models/index.ts';
 
-type PinRow = Pick<
-  Pin,
-  | 'id'
-  | 'connectorId'
-  | 'conversionId'
-  | 'cavity'
-  | 'position'
-  | 'function'
-  | 'signalClass'
-  | 'colour'
-  | 'sizeMm2'
-  | 'insulationRatingC'
-  | 'disposition'
-  | 'destination'
-  | 'destinationPinId'
-  | 'destinationFeedId'
-  | 'runLengthM'
-  | 'loadCurrentA'
-  | 'notes'
-  | 'version'
-  | 'updatedAt'
->;
+type PinRow = Pick<Pin, keyof PinDto>;
 
 /** A pin as the API shows it; works on model instances and on raw rows alike. */
 export function toPinDto(pin: PinRow): PinDto {

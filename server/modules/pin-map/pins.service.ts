@@ -1,4 +1,5 @@
 import type { Transaction } from 'sequelize';
+import { cavityName } from '#shared/domain/pin-names.ts';
 import type {
   BatchPinRequest,
   BulkPinRequest,
@@ -11,14 +12,15 @@ import { Connector, Feed, Pin } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
-import { recordAudit } from '../audit/audit.service.ts';
+import { beforeAndAfter, changedFields, recordAudit } from '../audit/audit.service.ts';
 import {
   findConversionInWorkshop,
   ofConversionInWorkshop,
 } from '../conversions/conversions.service.ts';
 import { toPinDto } from './pin-dto.ts';
 
-const PIN_ORDER: Array<[string, string]> = [
+/** Connector by connector in the order they were added, each in face order. */
+export const PIN_ORDER: Array<[string, string]> = [
   ['connectorId', 'ASC'],
   ['position', 'ASC'],
 ];
@@ -108,20 +110,13 @@ async function assertDestinationFeeds(
   }
 }
 
-function changedOnly(pin: Pin, set: PinChanges): PinChanges {
-  const changes: Record<string, unknown> = {};
-  for (const [key, value] of Object.entries(set)) {
-    if (value !== undefined && pin.get(key as keyof PinChanges) !== value) changes[key] = value;
-  }
-  return changes as PinChanges;
-}
-
-function beforeOf(pin: Pin, changes: PinChanges): Record<string, unknown> {
-  return Object.fromEntries(Object.keys(changes).map((k) => [k, pin.get(k as keyof PinChanges)]));
+/** The pin's current values of the fields `set` names. */
+function beforeOf(pin: Pin, set: PinChanges): Record<string, unknown> {
+  return Object.fromEntries(Object.keys(set).map((k) => [k, pin.get(k as keyof PinChanges)]));
 }
 
 const pinName = (pin: Pin, connector?: Connector | null) =>
-  `${connector?.label ?? 'connector'}-${pin.cavity}`;
+  cavityName(connector?.label ?? 'connector', pin.cavity);
 
 /** One pin, against the version the client read: a stale version is a 409 with the current row. */
 export async function updatePin(
@@ -139,10 +134,9 @@ export async function updatePin(
       t,
     );
     await assertDestinationFeeds(pin.conversionId, [set.destinationFeedId], t);
-    const changes = changedOnly(pin, set);
+    const changes = changedFields<PinChanges>(pin, set);
     // Saving the same values again is not a change: no new version, nothing in the audit trail.
     if (Object.keys(changes).length === 0) return toPinDto(pin);
-    const before = beforeOf(pin, changes);
     pin.set(set);
     await pin.save({ transaction: t });
     const connector = await Connector.findByPk(pin.connectorId, { transaction: t });
@@ -151,9 +145,8 @@ export async function updatePin(
       action: 'update',
       entityType: 'pin',
       entityId: pin.id,
-      summary: `Changed pin ${pinName(pin, connector)}: ${Object.keys(changes).join(', ') || 'nothing'}`,
-      before,
-      after: changes,
+      summary: `Changed pin ${pinName(pin, connector)}: ${Object.keys(changes).join(', ')}`,
+      ...beforeAndAfter(changes),
     });
     return toPinDto(pin);
   });
@@ -198,7 +191,7 @@ export async function bulkUpdatePins(
     await assertDestinationFeeds(conversionId, [input.set.destinationFeedId], t);
     const before: Record<number, Record<string, unknown>> = {};
     for (const pin of pins.values()) {
-      if (Object.keys(changedOnly(pin, input.set)).length === 0) continue;
+      if (Object.keys(changedFields<PinChanges>(pin, input.set)).length === 0) continue;
       before[pin.id] = beforeOf(pin, input.set);
       pin.set(input.set);
       await pin.save({ transaction: t });
@@ -255,11 +248,11 @@ export async function batchUpdatePins(
     const saved = new Map<number, Pin>();
     for (const change of input.changes) {
       const pin = pins.get(change.id)!;
-      const changes = changedOnly(pin, change.set);
+      const changes = beforeAndAfter(changedFields<PinChanges>(pin, change.set));
       saved.set(pin.id, pin);
-      if (Object.keys(changes).length === 0) continue;
-      before[pin.id] = { ...before[pin.id], ...beforeOf(pin, changes) };
-      after[pin.id] = { ...after[pin.id], ...changes };
+      if (Object.keys(changes.after).length === 0) continue;
+      before[pin.id] = { ...before[pin.id], ...changes.before };
+      after[pin.id] = { ...after[pin.id], ...changes.after };
       pin.set(change.set);
       await pin.save({ transaction: t });
     }

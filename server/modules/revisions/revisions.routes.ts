@@ -67,7 +67,7 @@ async function comment(req: Request, res: Response) {
 /** No route changes a revision's content: any attempt is answered 409, after the usual 404 check. */
 async function immutable(req: Request, _res: Response) {
   const { id, number } = parsedParams<RevisionParams>(req);
-  await revisions.getRevision(actorOf(req), id, number);
+  await revisions.findRevision(actorOf(req), id, number);
   throw new AppError(
     409,
     'immutable',

@@ -1,12 +1,13 @@
 import { Op, type Transaction } from 'sequelize';
-import { checkReport } from '#shared/domain/checks/run-checks.ts';
+import { countFindings } from '#shared/domain/checks/run-checks.ts';
 import {
   canonicalRevisionContent,
   revisionHash,
   sha256Hex,
 } from '#shared/domain/revisions/content-hash.ts';
+import { cavityName } from '#shared/domain/pin-names.ts';
 import { diffSnapshots } from '#shared/domain/revisions/diff.ts';
-import type { CheckReport, Finding } from '#shared/schemas/checks.schema.ts';
+import type { Finding } from '#shared/schemas/checks.schema.ts';
 import {
   REVISION_STATUS_LABELS,
   type ReviewComment as ReviewCommentDto,
@@ -18,24 +19,21 @@ import {
   type SubmitRevisionRequest,
 } from '#shared/schemas/revisions.schema.ts';
 import type { ConversionSnapshot } from '#shared/schemas/snapshot.schema.ts';
-import { config } from '../../config/runtime.ts';
 import { db } from '../../db/index.ts';
-import { Conversion, ReviewComment, Revision, User, Workshop } from '../../db/models/index.ts';
+import { Conversion, ReviewComment, Revision, User } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, forbidden, notFound, unprocessable } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
-import { loadConversionSnapshot } from '../checks/snapshot.service.ts';
+import { checkConversion } from '../checks/checks.service.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
-import { kickMail, queueMail } from '../mail/outbox.service.ts';
-
-function countsOf(findings: Finding[]): CheckReport['counts'] {
-  const counts = { error: 0, warning: 0, note: 0 };
-  for (const f of findings) counts[f.severity] += 1;
-  return counts;
-}
+import { appLink, kickMail, queueMail } from '../mail/outbox.service.ts';
 
 const iso = (d: Date | null | undefined) => (d ? new Date(d).toISOString() : null);
+
+/** What a revision froze: the plan as submitted and the findings the checks gave on it. */
+export const snapshotOf = (r: Revision) => JSON.parse(r.snapshotJson) as ConversionSnapshot;
+const findingsOf = (r: Revision) => JSON.parse(r.findingsJson) as Finding[];
 
 function toSummary(r: Revision): RevisionSummary {
   return {
@@ -48,17 +46,16 @@ function toSummary(r: Revision): RevisionSummary {
     reviewedAt: iso(r.reviewedAt),
     signedAt: iso(r.signedAt),
     reviewComment: r.reviewComment,
-    counts: countsOf(JSON.parse(r.findingsJson) as Finding[]),
+    counts: countFindings(findingsOf(r)),
     version: r.version,
   };
 }
 
-function link(conversionId: number, number: number): string {
-  const base = config().PUBLIC_URL ?? `http://localhost:${config().PORT}`;
-  return `${base.replace(/\/$/, '')}/conversions/${conversionId}/revisions/${number}`;
-}
+const link = (conversionId: number, number: number) =>
+  appLink(`/conversions/${conversionId}/revisions/${number}`);
 
-async function findRevision(
+/** Revision `number` of a conversion in the actor's workshop, or 404. */
+export async function findRevision(
   actor: Actor,
   conversionId: number,
   number: number,
@@ -104,9 +101,10 @@ export async function submitRevision(
         `Revision ${waiting.number} is still waiting for review. It must be signed off or sent back before another is submitted.`,
       );
     }
-    const snapshot = await loadConversionSnapshot(actor, conversionId, t);
-    const workshop = await Workshop.findByPk(actor.workshopId, { transaction: t });
-    const { findings } = checkReport(snapshot, { sizeUnit: workshop?.sizeUnit ?? 'mm2' });
+    const {
+      snapshot,
+      report: { findings },
+    } = await checkConversion(actor, conversionId, t);
     const errors = findings.filter((f) => f.severity === 'error');
     if (errors.length) {
       throw unprocessable(
@@ -143,7 +141,7 @@ export async function submitRevision(
       entityType: 'revision',
       entityId: revision.id,
       summary: `Submitted revision ${number} for review (hash ${hash.slice(0, 12)})`,
-      after: { number, hash, warnings: countsOf(findings).warning },
+      after: { number, hash, warnings: countFindings(findings).warning },
     });
     const reviewers = await User.findAll({
       where: {
@@ -303,7 +301,7 @@ function subjectLabel(snapshot: ConversionSnapshot, input: ReviewCommentRequest)
         { field: 'pinId', message: 'is not a pin of this revision' },
       ]);
     const label = snapshot.connectors.find((c) => c.id === pin.connectorId)?.label ?? '?';
-    return `${label}-${pin.cavity}`;
+    return cavityName(label, pin.cavity);
   }
   if (input.feedId != null) {
     const feed = snapshot.feeds.find((f) => f.id === input.feedId);
@@ -336,7 +334,7 @@ export async function addComment(
 ): Promise<ReviewCommentDto> {
   return inTransaction(db(), async (t) => {
     const revision = await findRevision(actor, conversionId, number, t);
-    const snapshot = JSON.parse(revision.snapshotJson) as ConversionSnapshot;
+    const snapshot = snapshotOf(revision);
     const label = subjectLabel(snapshot, input);
     const comment = await ReviewComment.create(
       {
@@ -368,7 +366,7 @@ export async function getRevision(
   number: number,
 ): Promise<RevisionDetail> {
   const revision = await findRevision(actor, conversionId, number);
-  const snapshot = JSON.parse(revision.snapshotJson) as ConversionSnapshot;
+  const snapshot = snapshotOf(revision);
   const comments = await ReviewComment.findAll({
     where: { revisionId: revision.id },
     order: [['id', 'ASC']],
@@ -380,11 +378,9 @@ export async function getRevision(
   return {
     ...toSummary(revision),
     snapshot,
-    findings: JSON.parse(revision.findingsJson) as Finding[],
+    findings: findingsOf(revision),
     comments: comments.map(toCommentDto),
-    changes: previous
-      ? diffSnapshots(JSON.parse(previous.snapshotJson) as ConversionSnapshot, snapshot)
-      : null,
+    changes: previous ? diffSnapshots(snapshotOf(previous), snapshot) : null,
     comparedWith: previous?.number ?? null,
   };
 }
@@ -393,10 +389,7 @@ export async function getRevision(
 export async function verifyRevision(actor: Actor, conversionId: number, number: number) {
   const revision = await findRevision(actor, conversionId, number);
   const recomputed = await sha256Hex(
-    canonicalRevisionContent(
-      JSON.parse(revision.snapshotJson) as ConversionSnapshot,
-      JSON.parse(revision.findingsJson) as Finding[],
-    ),
+    canonicalRevisionContent(snapshotOf(revision), findingsOf(revision)),
   );
   return { ok: recomputed === revision.hash, hash: recomputed, storedHash: revision.hash };
 }
@@ -406,8 +399,8 @@ export async function revisionForPrint(actor: Actor, conversionId: number, numbe
   const revision = await findRevision(actor, conversionId, number);
   return {
     revision,
-    snapshot: JSON.parse(revision.snapshotJson) as ConversionSnapshot,
-    findings: JSON.parse(revision.findingsJson) as Finding[],
+    snapshot: snapshotOf(revision),
+    findings: findingsOf(revision),
   };
 }
 

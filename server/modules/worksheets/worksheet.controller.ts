@@ -26,7 +26,7 @@ const PDF_CSP =
  * Lays the worksheet out first and only then starts the response, so a failure is still an
  * ordinary JSON error rather than a truncated PDF.
  */
-export async function sendWorksheetPdf(req: Request, res: Response, input: WorksheetInput) {
+async function sendWorksheetPdf(req: Request, res: Response, input: WorksheetInput) {
   const started = performance.now();
   let doc: PDFKit.PDFDocument;
   try {

@@ -1,10 +1,25 @@
 import { checkReport } from '#shared/domain/checks/run-checks.ts';
 import type { ConversionSnapshot } from '#shared/schemas/snapshot.schema.ts';
+import type { WorkshopSettings } from '#shared/schemas/workshop.schema.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { loadConversionSnapshot } from '../checks/snapshot.service.ts';
 import { revisionForPrint } from '../revisions/revisions.service.ts';
 import { getWorkshopSettings } from '../workshop/workshop.service.ts';
-import type { WorksheetInput, WorksheetRevision } from './pdf/meta.ts';
+import type { WorksheetInput, WorksheetMeta, WorksheetRevision } from './pdf/meta.ts';
+
+/** What every worksheet takes from the workshop's settings today, and when it was printed. */
+function workshopMeta(
+  settings: WorkshopSettings,
+  printedAt: Date,
+): Omit<WorksheetMeta, 'revision' | 'findings'> {
+  return {
+    workshopName: settings.name,
+    paperSize: settings.paperSize,
+    sizeUnit: settings.sizeUnit,
+    serviceAllowancePct: settings.serviceAllowancePct,
+    printedAt,
+  };
+}
 
 /**
  * The current draft of a conversion as the worksheet prints it: the live plan, the workshop's
@@ -20,15 +35,7 @@ export async function draftWorksheetInput(
   const { findings } = checkReport(snapshot, { sizeUnit: settings.sizeUnit }, now);
   return {
     snapshot,
-    meta: {
-      workshopName: settings.name,
-      paperSize: settings.paperSize,
-      sizeUnit: settings.sizeUnit,
-      serviceAllowancePct: settings.serviceAllowancePct,
-      printedAt: now,
-      revision: null,
-      findings,
-    },
+    meta: { ...workshopMeta(settings, now), revision: null, findings },
   };
 }
 
@@ -47,11 +54,7 @@ export async function revisionWorksheetInput(
   return {
     snapshot,
     meta: {
-      workshopName: settings.name,
-      paperSize: settings.paperSize,
-      sizeUnit: settings.sizeUnit,
-      serviceAllowancePct: settings.serviceAllowancePct,
-      printedAt: now,
+      ...workshopMeta(settings, now),
       revision: {
         number: revision.number,
         status: revision.status,

@@ -11,6 +11,7 @@ import type {
   SnapshotPin,
 } from '../../schemas/snapshot.schema.ts';
 import { citeSources, type SourceId } from '../electrical/sources.ts';
+import { cavityName } from '../pin-names.ts';
 import { formatWireSize } from '../wire-sizes.ts';
 
 export interface CheckOptions {
@@ -69,7 +70,7 @@ export class CheckContext {
   pinName(pinOrId: SnapshotPin | number): string {
     const pin = typeof pinOrId === 'number' ? this.pins.get(pinOrId) : pinOrId;
     if (!pin) return `pin ${String(pinOrId)}`;
-    return `${this.connectors.get(pin.connectorId)?.label ?? '?'}-${pin.cavity}`;
+    return cavityName(this.connectors.get(pin.connectorId)?.label ?? '?', pin.cavity);
   }
 
   size(areaMm2: number): string {

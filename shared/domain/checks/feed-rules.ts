@@ -10,6 +10,7 @@ import {
   recommendedFuseA,
   smallestWireForFuse,
 } from '../electrical/fuses.ts';
+import { FLOAT_SLACK } from '../electrical/guards.ts';
 import { DROP_LIMIT_PCT, minSizeForDrop, voltageDrop } from '../electrical/voltage-drop.ts';
 import { CONDUCTOR_TEMP_C, finding, fmt, value, type CheckContext } from './check-context.ts';
 
@@ -159,7 +160,7 @@ export function checkFeed(ctx: CheckContext, feed: SnapshotFeed): Finding[] {
         ? `Smallest standard blade fuse ≥ ${fmt(neededA)} A: ${recommended} A (${fuseColour(recommended)})`
         : 'More than the largest standard blade fuse (40 A).',
     ];
-    if (fuse.fuseA < neededA * (1 - 1e-9)) {
+    if (fuse.fuseA < neededA * (1 - FLOAT_SLACK)) {
       findings.push(
         finding({
           rule: 'load_within_fuse',
@@ -189,7 +190,7 @@ export function checkFeed(ctx: CheckContext, feed: SnapshotFeed): Finding[] {
   }
 
   // The relay's contacts carry the load.
-  if (feed.relay && current.totalA > feed.relay.contactRatingA * (1 + 1e-9)) {
+  if (feed.relay && current.totalA > feed.relay.contactRatingA * (1 + FLOAT_SLACK)) {
     findings.push(
       finding({
         rule: 'relay_contact_load',
@@ -219,7 +220,7 @@ export function checkFeed(ctx: CheckContext, feed: SnapshotFeed): Finding[] {
       conductorTempC,
       systemV: ctx.systemV,
     });
-    if (drop.voltageDropPct > limitPct * (1 + 1e-9)) {
+    if (drop.voltageDropPct > limitPct * (1 + FLOAT_SLACK)) {
       const minSize = minSizeForDrop({
         currentA: current.totalA,
         runLengthM: feed.wire.lengthM,

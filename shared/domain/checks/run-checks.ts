@@ -24,11 +24,14 @@ export function runChecks(snapshot: ConversionSnapshot, options: CheckOptions): 
     ...checkSensorGrounds(ctx),
     ...checkSharedDestinations(ctx),
   ];
-  // Stable order: severity, then the order the rules ran in.
-  return findings
-    .map((f, i) => ({ f, i }))
-    .sort((a, b) => ORDER[a.f.severity] - ORDER[b.f.severity] || a.i - b.i)
-    .map(({ f }) => f);
+  // Severity first; sort is stable, so within a severity the rules keep the order they ran in.
+  return findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity]);
+}
+
+export function countFindings(findings: readonly Finding[]): CheckReport['counts'] {
+  const counts: Record<Severity, number> = { error: 0, warning: 0, note: 0 };
+  for (const f of findings) counts[f.severity] += 1;
+  return counts;
 }
 
 export function checkReport(
@@ -37,9 +40,7 @@ export function checkReport(
   now = new Date(),
 ): CheckReport {
   const findings = runChecks(snapshot, options);
-  const counts: Record<Severity, number> = { error: 0, warning: 0, note: 0 };
-  for (const f of findings) counts[f.severity] += 1;
-  return { findings, counts, checkedAt: now.toISOString() };
+  return { findings, counts: countFindings(findings), checkedAt: now.toISOString() };
 }
 
 export type { CheckOptions };

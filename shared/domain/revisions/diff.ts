@@ -9,6 +9,7 @@ import type {
   SnapshotFeed,
   SnapshotPin,
 } from '../../schemas/snapshot.schema.ts';
+import { pinNames } from '../pin-names.ts';
 
 /** Every field a person sets on a pin. */
 const PIN_FIELDS: Array<keyof SnapshotPin> = PIN_FIELD_NAMES;
@@ -28,16 +29,13 @@ function fieldChanges<T extends object>(
 }
 
 function pinsByName(s: ConversionSnapshot): Map<string, SnapshotPin> {
-  const labels = new Map(s.connectors.map((c) => [c.id, c.label]));
-  return new Map(s.pins.map((p) => [`${labels.get(p.connectorId) ?? '?'}-${p.cavity}`, p]));
+  const names = pinNames(s);
+  return new Map(s.pins.map((p) => [names.get(p.id)!, p]));
 }
 
 /** Linked destinations compare by the name of what they point at, not by database id. */
 function describePinLinks(s: ConversionSnapshot) {
-  const labels = new Map(s.connectors.map((c) => [c.id, c.label]));
-  const pinName = new Map(
-    s.pins.map((p) => [p.id, `${labels.get(p.connectorId) ?? '?'}-${p.cavity}`]),
-  );
+  const pinName = pinNames(s);
   const feedName = new Map(s.feeds.map((f) => [f.id, f.name]));
   return (p: SnapshotPin) => ({
     ...p,

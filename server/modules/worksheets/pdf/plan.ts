@@ -1,5 +1,6 @@
 /** Lookups the worksheet sections share, read from a snapshot. Pure. */
 import { DISPOSITIONS, type Disposition } from '#shared/domain/dispositions.ts';
+import { cavityName } from '#shared/domain/pin-names.ts';
 import type {
   ConversionSnapshot,
   SnapshotConnector,
@@ -54,7 +55,7 @@ export function pinsInOrder(index: PlanIndex): SnapshotPin[] {
 export function pinName(index: PlanIndex, pinOrId: SnapshotPin | number): string {
   const pin = typeof pinOrId === 'number' ? index.pins.get(pinOrId) : pinOrId;
   if (!pin) return `pin #${String(pinOrId)}`;
-  return `${index.connectors.get(pin.connectorId)?.label ?? '?'}-${pin.cavity}`;
+  return cavityName(index.connectors.get(pin.connectorId)?.label ?? '?', pin.cavity);
 }
 
 export interface Destination {

@@ -5,7 +5,7 @@
  */
 import type { ConversionSnapshot } from '#shared/schemas/snapshot.schema.ts';
 import { formatDateTime, shortHash, statusLabel, type WorksheetMeta } from './meta.ts';
-import { baselineOf, cleanText, INK, LINE_HEIGHT, TextKit, type TextStyle } from './text.ts';
+import { baselineOf, cleanText, INK, TextKit, type Line, type TextStyle } from './text.ts';
 
 /** Portrait page sizes in points. */
 export const PAGE_SIZES = {
@@ -121,7 +121,7 @@ export class Sheet {
     this.lastPause = performance.now();
   }
 
-  /** One line of text at the top y, cut with "…" to the width; returns the line height. */
+  /** One line of text at the top y, cut with "…" to the width; returns the width it took. */
   line(
     text: string,
     x: number,
@@ -130,9 +130,14 @@ export class Sheet {
     width: number,
     align: 'left' | 'right' | 'center' = 'left',
   ): number {
-    const line = this.text.fit(cleanText(text, { singleLine: true, maxChars: 500 }), style, width);
+    const line = this.fit(text, style, width);
     this.text.drawLine(line, x, baselineOf(topY, style), style, width, align);
-    return style.size * LINE_HEIGHT;
+    return line.width;
+  }
+
+  /** The text as one line prints it, cut with "…" to the width. */
+  private fit(text: string, style: TextStyle, width: number): Line {
+    return this.text.fit(cleanText(text, { singleLine: true, maxChars: 500 }), style, width);
   }
 
   private statusText(): string {
@@ -152,8 +157,7 @@ export class Sheet {
     const statusStyle: TextStyle = { face: 'bold', size: 12 };
     const hashStyle: TextStyle = { face: 'mono', size: 8 };
     const maxRight = this.contentWidth * 0.45;
-    const fitted = (text: string, style: TextStyle) =>
-      this.text.fit(cleanText(text, { singleLine: true, maxChars: 500 }), style, maxRight).width;
+    const fitted = (text: string, style: TextStyle) => this.fit(text, style, maxRight).width;
 
     const printed = `Bench worksheet · printed ${formatDateTime(meta.printedAt)}`;
     const status = this.statusText();

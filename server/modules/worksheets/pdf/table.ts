@@ -103,9 +103,10 @@ export async function drawTable(sheet: Sheet, spec: TableSpec): Promise<void> {
   };
 
   const layout = (row: Row, styleOf: (cell: Cell) => TextStyle): LaidRow => {
+    const spanWidth = row.span ? spanOf(row).width : null;
     const cells = row.cells.map((cell, i) => {
       const style = styleOf(cell);
-      const width = row.span ? spanOf(row).width : widths[i]!;
+      const width = spanWidth ?? widths[i]!;
       const textWidth = width - 2 * PAD_X - (cell.lead ? cell.lead.width + LEAD_GAP : 0);
       const lines: LaidLine[] = [];
       const title = cell.title ? cleanText(cell.title) : '';
@@ -178,14 +179,15 @@ export async function drawTable(sheet: Sheet, spec: TableSpec): Promise<void> {
   ) => {
     const { doc } = sheet;
     const y = sheet.y;
+    const span = laid.row.span ? spanOf(laid.row) : null;
     if (shade) {
       doc.save();
       doc.rect(sheet.left, y, sheet.contentWidth, height).fillColor(ZEBRA).fill();
       doc.restore();
     }
     laid.cells.forEach((lc, i) => {
-      const x = laid.row.span ? spanOf(laid.row).x : xs[i]!;
-      const width = laid.row.span ? spanOf(laid.row).width : widths[i]!;
+      const x = span ? span.x : xs[i]!;
+      const width = span ? span.width : widths[i]!;
       let textX = x + PAD_X;
       let textWidth = width - 2 * PAD_X;
       if (lc.cell.lead) {
@@ -212,12 +214,10 @@ export async function drawTable(sheet: Sheet, spec: TableSpec): Promise<void> {
       }
       lc.lines.slice(from, from + count).forEach(({ line, style }, k) => {
         const top = y + PAD_Y + k * laid.lineHeight;
-        const inked = { ...style, color: style.color ?? INK };
-        sheet.text.drawLine(line, textX, baselineOf(top, inked), inked, textWidth, lc.cell.align);
+        sheet.text.drawLine(line, textX, baselineOf(top, style), style, textWidth, lc.cell.align);
       });
     });
     doc.save();
-    const span = laid.row.span ? spanOf(laid.row) : null;
     // Column lines run along a spanning cell's edges, not across its text.
     const lines = xs.filter((_, k) => k > 0 && !(span && k > span.first && k <= span.last));
     for (const x of lines) doc.moveTo(x, y).lineTo(x, y + height);

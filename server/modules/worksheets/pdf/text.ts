@@ -264,9 +264,9 @@ export class TextKit {
   private wrapUncached(text: string, style: TextStyle, maxWidth: number): Line[] {
     const width = Math.max(1, maxWidth);
     const lines: Line[] = [];
+    const spaceWidth = this.width(style.face, style.size, ' ');
     for (const hard of text.split('\n')) {
       const rtl = paragraphIsRtl(hard);
-      const spaceWidth = this.width(style.face, style.size, ' ');
       let words: Token[] = [];
       let lineWidth = 0;
       const flush = () => {

@@ -9,7 +9,11 @@ import type { Cell, Lead } from '../table.ts';
 
 export const BODY: TextStyle = { face: 'regular', size: 8.5 };
 export const SMALL: TextStyle = { face: 'regular', size: 7.5, color: MUTED };
-export const CODE: TextStyle = { face: 'mono', size: 8 };
+
+/** "1 pin", "3 pins". */
+export function count(n: number, word: string): string {
+  return `${n} ${word}${n === 1 ? '' : 's'}`;
+}
 
 /** A section title (and an optional line under it), kept with `keep` points of what follows. */
 export function heading(sheet: Sheet, title: string, intro?: string, keep = 80): void {

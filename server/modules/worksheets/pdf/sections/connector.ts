@@ -8,6 +8,7 @@ import { MUTED, type Sheet } from '../sheet.ts';
 import { drawTable, type Cell, type Row } from '../table.ts';
 import { cleanText } from '../text.ts';
 import {
+  count,
   dispositionCell,
   flow,
   heading,
@@ -35,7 +36,7 @@ export async function drawConnector(
   heading(
     sheet,
     title,
-    `${pins.length} pin${pins.length === 1 ? '' : 's'} of ${connector.cavityCount} cavities, laid out ${connector.rows} × ${connector.columns}.${connector.notes ? ` ${connector.notes}` : ''}`,
+    `${count(pins.length, 'pin')} of ${connector.cavityCount} cavities, laid out ${connector.rows} × ${connector.columns}.${connector.notes ? ` ${connector.notes}` : ''}`,
     60,
   );
   await drawFace(sheet, connector, pins);

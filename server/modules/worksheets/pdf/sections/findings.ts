@@ -3,7 +3,7 @@ import type { Finding } from '#shared/schemas/checks.schema.ts';
 import { pinName, type PlanIndex } from '../plan.ts';
 import type { Sheet } from '../sheet.ts';
 import { drawTable, type Row } from '../table.ts';
-import { heading } from './common.ts';
+import { count, heading } from './common.ts';
 
 export const FINDINGS_TITLE = 'Open findings';
 
@@ -32,7 +32,7 @@ export async function drawFindings(sheet: Sheet, index: PlanIndex): Promise<void
   heading(
     sheet,
     FINDINGS_TITLE,
-    `${errors} error${errors === 1 ? '' : 's'} and ${open.length - errors} warning${open.length - errors === 1 ? '' : 's'} from the circuit checks${sheet.meta.revision ? ' of this revision' : ', run when this draft was printed'}. Settle each before the harness is powered.`,
+    `${count(errors, 'error')} and ${count(open.length - errors, 'warning')} from the circuit checks${sheet.meta.revision ? ' of this revision' : ', run when this draft was printed'}. Settle each before the harness is powered.`,
   );
   const rows: Row[] = open.map((f) => ({
     cells: [

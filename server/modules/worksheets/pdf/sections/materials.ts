@@ -1,11 +1,8 @@
 /** What to get ready before the work: the wire cut list with the parts count, and the fuses and relays. */
 import { fuseColour } from '#shared/domain/electrical/fuses.ts';
-import {
-  describeWireColour,
-  IEC_60757_COLOURS,
-  parseWireColour,
-} from '#shared/domain/wire-colours.ts';
+import { describeWireColour, parseWireColour } from '#shared/domain/wire-colours.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
+import type { Finding } from '#shared/schemas/checks.schema.ts';
 import {
   DROP_CLASS_LABELS,
   FEED_SOURCE_LABELS,
@@ -39,17 +36,12 @@ function colourLegend(colours: string[]): string {
   for (const c of colours) {
     const parsed = c ? parseWireColour(c) : null;
     if (!parsed?.ok) continue;
-    if (parsed.colour.base === 'GNYE') codes.add('GNYE');
-    else codes.add(parsed.colour.base);
+    codes.add(parsed.colour.base);
     if (parsed.colour.stripe) codes.add(parsed.colour.stripe);
   }
   return [...codes]
     .sort()
-    .map((code) =>
-      code === 'GNYE'
-        ? 'GNYE green-yellow'
-        : `${code} ${IEC_60757_COLOURS[code as keyof typeof IEC_60757_COLOURS].name}`,
-    )
+    .map((code) => `${code} ${describeWireColour(code)}`)
     .join(' · ');
 }
 
@@ -157,8 +149,7 @@ function fuseText(feed: SnapshotFeed): string {
   return fuseColour(feed.fuseA) ?? 'not a standard blade rating';
 }
 
-function checkText(sheet: Sheet, feed: SnapshotFeed): string {
-  const own = sheet.meta.findings.filter((f) => f.subject.feedId === feed.id);
+function checkText(own: Finding[]): string {
   if (own.length === 0) return 'OK: no findings';
   return own.map((f) => `${f.severity.toUpperCase()}: ${f.title}`).join('\n');
 }
@@ -219,7 +210,7 @@ export async function drawFuseSchedule(sheet: Sheet, index: PlanIndex): Promise<
         { text: relay },
         { text: wire, lead: swatchLead(feed.wire.colour), style: { size: 8 } },
         { text: loads, style: { size: 8 } },
-        { text: checkText(sheet, feed), style: bad ? { face: 'bold', size: 8 } : { size: 8 } },
+        { text: checkText(own), style: bad ? { face: 'bold', size: 8 } : { size: 8 } },
       ],
     };
   });

@@ -9,8 +9,8 @@ import { drawDispositionGlyph, drawWarningSign, drawWriteLine } from '../marks.t
 import { formatDateTime, statusLabel } from '../meta.ts';
 import { dispositionCounts, type PlanIndex } from '../plan.ts';
 import { RULE, type Sheet } from '../sheet.ts';
-import { baselineOf, cleanText, INK, LINE_HEIGHT, type TextStyle } from '../text.ts';
-import { BODY, flow, SMALL } from './common.ts';
+import { baselineOf, cleanText, INK, LINE_HEIGHT, type Line, type TextStyle } from '../text.ts';
+import { BODY, count, flow, SMALL } from './common.ts';
 
 export const CAUTIONS = [
   'Disconnect the battery (negative terminal first) before any work on the harness.',
@@ -139,7 +139,7 @@ function drawSummary(sheet: Sheet, index: PlanIndex, sectionTitles: string[]): C
   const contentsLh = BODY.size * LINE_HEIGHT;
   const room = Math.max(
     1,
-    Math.floor((sheet.bottom - cautionsHeight(sheet) - 12 - y) / contentsLh),
+    Math.floor((sheet.bottom - cautionsHeight(cautionLines(sheet)) - 12 - y) / contentsLh),
   );
   const titles =
     sectionTitles.length <= room
@@ -182,7 +182,6 @@ function drawSummary(sheet: Sheet, index: PlanIndex, sectionTitles: string[]): C
     }),
     snapshot.feeds.length,
   );
-  const count = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
   const severities = (s: string) => meta.findings.filter((f) => f.severity === s).length;
   const errors = severities('error');
   sheet.line('Checks', rightX, y, LABEL, rightW);
@@ -203,9 +202,9 @@ function cautionLines(sheet: Sheet) {
   return CAUTIONS.map((c) => sheet.text.wrap(c, BODY, sheet.contentWidth - 60));
 }
 
-function cautionsHeight(sheet: Sheet): number {
+function cautionsHeight(lines: Line[][]): number {
   const lh = BODY.size * LINE_HEIGHT;
-  return 26 + cautionLines(sheet).reduce((s, l) => s + l.length * lh + 3, 0) + 6;
+  return 26 + lines.reduce((s, l) => s + l.length * lh + 3, 0) + 6;
 }
 
 function drawCautions(sheet: Sheet): void {
@@ -215,7 +214,7 @@ function drawCautions(sheet: Sheet): void {
   const textW = w - 50;
   const lines = cautionLines(sheet);
   const lh = BODY.size * LINE_HEIGHT;
-  const height = cautionsHeight(sheet);
+  const height = cautionsHeight(lines);
   sheet.ensure(height);
   const top = sheet.y;
   sheet.doc.save();
@@ -299,12 +298,7 @@ export function fillContents(sheet: Sheet, slot: ContentsSlot): void {
   slot.titles.forEach((title, i) => {
     const mark = sheet.sections.find((s) => s.title === title);
     const y = slot.y + i * lh;
-    const titleWidth = sheet.text.fit(
-      cleanText(title, { singleLine: true }),
-      BODY,
-      titleRoom,
-    ).width;
-    sheet.line(title, slot.x, y, BODY, titleRoom);
+    const titleWidth = sheet.line(title, slot.x, y, BODY, titleRoom);
     if (!mark) return;
     // Dot leader from the title to the page number.
     sheet.doc.save();
