@@ -1,5 +1,4 @@
 import { useState } from 'react';
-import { CONNECTOR_SIDE_LABELS } from '#shared/schemas/pin-map.schema.ts';
 import { SelectField } from '@/components/ui/field.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { PageHeader } from '@/components/ui/page-header.tsx';
@@ -7,22 +6,14 @@ import { useCan } from '@/features/auth/hooks/use-can.ts';
 import { useConversions } from '@/features/conversions/api/get-conversions.ts';
 import { SaveTemplateForm } from '@/features/library/components/save-template-form.tsx';
 import { TemplateList } from '@/features/library/components/template-list.tsx';
+import { connectorChoice } from '@/features/library/lib/connector-choice.ts';
 import { useConnectors } from '@/features/pin-map/api/get-connectors.ts';
 
 function SaveFromConversion({ conversionId }: { conversionId: number }) {
   const connectors = useConnectors(conversionId);
   if (connectors.isPending) return <Loading what="Loading the connectors" />;
   if (connectors.isError) return <p className="text-sm text-fault">{connectors.error.message}</p>;
-  return (
-    <SaveTemplateForm
-      key={conversionId}
-      connectors={connectors.data.map((c) => ({
-        id: c.id,
-        label: c.label,
-        detail: `${CONNECTOR_SIDE_LABELS[c.side]}, ${c.cavityCount} ${c.cavityCount === 1 ? 'cavity' : 'cavities'}`,
-      }))}
-    />
-  );
+  return <SaveTemplateForm key={conversionId} connectors={connectors.data.map(connectorChoice)} />;
 }
 
 /** The pinout library: templates to start connectors from, and saving a connector as one. */

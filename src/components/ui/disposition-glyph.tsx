@@ -38,20 +38,13 @@ export function DispositionGlyph({
 }
 
 /** Glyph and words: disposition is never told by colour. */
-export function DispositionLabel({
-  disposition,
-  short = false,
-}: {
-  disposition: Disposition;
-  short?: boolean;
-}) {
-  const info = DISPOSITION_INFO[disposition];
+export function DispositionLabel({ disposition }: { disposition: Disposition }) {
   return (
     <span
       className={`inline-flex min-w-0 items-center gap-1.5 ${disposition === 'undecided' ? 'text-ink-faint' : ''}`}
     >
       <DispositionGlyph disposition={disposition} />
-      <span className="truncate">{short ? info.short : info.label}</span>
+      <span className="truncate">{DISPOSITION_INFO[disposition].label}</span>
     </span>
   );
 }

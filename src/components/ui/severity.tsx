@@ -1,24 +1,24 @@
+import type { ReactNode } from 'react';
 import type { Severity } from '#shared/schemas/checks.schema.ts';
 
 /** Each severity as a glyph and a word: never told by colour alone. */
 export const SEVERITY_INFO: Record<
   Severity,
-  { glyph: string; word: string; plural: string; tone: string; rank: number }
+  { glyph: string; word: string; plural: string; tone: string }
 > = {
-  error: { glyph: '✕', word: 'Error', plural: 'Errors', tone: 'text-fault', rank: 0 },
-  warning: { glyph: '!', word: 'Warning', plural: 'Warnings', tone: 'text-caution', rank: 1 },
-  note: { glyph: 'i', word: 'Note', plural: 'Notes', tone: 'text-ink-soft', rank: 2 },
+  error: { glyph: '✕', word: 'Error', plural: 'Errors', tone: 'text-fault' },
+  warning: { glyph: '!', word: 'Warning', plural: 'Warnings', tone: 'text-caution' },
+  note: { glyph: 'i', word: 'Note', plural: 'Notes', tone: 'text-ink-soft' },
 };
 
-/** The glyph in a small ring, as in Notice. */
-export function SeverityGlyph({ severity }: { severity: Severity }) {
-  const info = SEVERITY_INFO[severity];
+/** A glyph in a small ring, as in Notice, in the colour of the words beside it. */
+export function RingGlyph({ children }: { children: ReactNode }) {
   return (
     <span
       aria-hidden
-      className={`grid size-[1.125rem] shrink-0 place-items-center rounded-full border border-current text-[0.6875rem] leading-none font-bold ${info.tone}`}
+      className="grid size-[1.125rem] shrink-0 place-items-center rounded-full border border-current text-[0.6875rem] leading-none font-bold"
     >
-      {info.glyph}
+      {children}
     </span>
   );
 }
@@ -42,7 +42,7 @@ export function SeverityLabel({
     <span
       className={`inline-flex items-center gap-1.5 font-semibold whitespace-nowrap ${info.tone} ${className}`}
     >
-      <SeverityGlyph severity={severity} />
+      <RingGlyph>{info.glyph}</RingGlyph>
       {text}
     </span>
   );
@@ -52,12 +52,7 @@ export function SeverityLabel({
 export function AllClearLabel({ children = 'No findings' }: { children?: string }) {
   return (
     <span className="inline-flex items-center gap-1.5 font-semibold whitespace-nowrap text-sound">
-      <span
-        aria-hidden
-        className="grid size-[1.125rem] shrink-0 place-items-center rounded-full border border-current text-[0.6875rem] leading-none font-bold"
-      >
-        ✓
-      </span>
+      <RingGlyph>✓</RingGlyph>
       {children}
     </span>
   );

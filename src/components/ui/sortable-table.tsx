@@ -12,7 +12,7 @@ import {
 } from '@tanstack/react-table';
 import { useState, type ReactNode } from 'react';
 
-export const sortableFeatures = tableFeatures({
+const sortableFeatures = tableFeatures({
   rowSortingFeature,
   sortedRowModel: createSortedRowModel(),
   sortFns: { alphanumeric: sortFn_alphanumeric, text: sortFn_text, datetime: sortFn_datetime },
@@ -30,6 +30,15 @@ interface SortableTableProps<TData extends RowData> {
 }
 
 const SORT_GLYPH = { asc: '▲', desc: '▼' } as const;
+
+/** The sort mark beside a column heading: which way it sorts, or that it can. */
+export function SortGlyph({ sorted }: { sorted: false | 'asc' | 'desc' }) {
+  return (
+    <span aria-hidden className="text-[0.625rem] text-copper">
+      {sorted ? SORT_GLYPH[sorted] : '↕'}
+    </span>
+  );
+}
 
 /** A plain, dense, sortable table: click or press Enter on a header to sort by it. */
 export function SortableTable<TData extends RowData>({
@@ -76,9 +85,7 @@ export function SortableTable<TData extends RowData>({
                         className="inline-flex items-center gap-1 font-semibold hover:text-ink"
                       >
                         <table.FlexRender header={header} />
-                        <span aria-hidden className="text-[0.625rem] text-copper">
-                          {sorted ? SORT_GLYPH[sorted] : '↕'}
-                        </span>
+                        <SortGlyph sorted={sorted} />
                       </button>
                     ) : (
                       <table.FlexRender header={header} />

@@ -1,4 +1,4 @@
-import { useCallback } from 'react';
+import { useCallback, useMemo } from 'react';
 import { useOutletContext } from 'react-router';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
@@ -10,21 +10,35 @@ import { useCheckReport, useInvalidateChecks } from '@/features/checks/api/run-c
 import { ChecksSummary } from '@/features/checks/components/checks-summary.tsx';
 import type { ChecksState } from '@/features/feeds/components/feeds-table.tsx';
 import { FeedsScreen } from '@/features/feeds/components/feeds-screen.tsx';
+import { useConnectors } from '@/features/pin-map/api/get-connectors.ts';
+import { usePins } from '@/features/pin-map/api/get-pins.ts';
 import { useWorkshop } from '@/features/workshop/api/workshop.ts';
 
 const renderLiveResults = (request: CalcRequestInput) => <LiveCalcPanel request={request} />;
 
 /**
- * The feeds section: the feeds feature's table and form, the checks' findings on each feed, and the
- * calculator's live answer beside the form. A save runs the checks again.
+ * The feeds section: the feeds feature's table and form, the pin map's pins for its pickers, the
+ * checks' findings on each feed, and the calculator's live answer beside the form. A save runs the
+ * checks again.
  */
 export function ConversionFeedsRoute() {
   const conversion = useOutletContext<Conversion>();
   const canWrite = useCan('feed:write');
   const workshop = useWorkshop();
+  const pins = usePins(conversion.id);
+  const connectors = useConnectors(conversion.id);
   const report = useCheckReport(conversion.id);
   const invalidateChecks = useInvalidateChecks(conversion.id);
   const onFeedsChanged = useCallback(() => void invalidateChecks(), [invalidateChecks]);
+  const checks = useMemo<ChecksState>(
+    () =>
+      report.data
+        ? { status: 'ready', findings: report.data.findings }
+        : report.isError
+          ? { status: 'error' }
+          : { status: 'pending' },
+    [report.data, report.isError],
+  );
 
   if (workshop.isPending) return <Loading what="Loading the workshop settings" />;
   if (workshop.isError) {
@@ -34,11 +48,6 @@ export function ConversionFeedsRoute() {
       </Notice>
     );
   }
-  const checks: ChecksState = report.data
-    ? { status: 'ready', findings: report.data.findings }
-    : report.isError
-      ? { status: 'error' }
-      : { status: 'pending' };
 
   return (
     <div className="grid gap-5">
@@ -50,6 +59,8 @@ export function ConversionFeedsRoute() {
         sizeUnit={workshop.data.sizeUnit}
         defaultInsulationC={workshop.data.defaultInsulationC}
         readOnly={!canWrite}
+        pins={pins.data}
+        connectors={connectors.data}
         checks={checks}
         onFeedsChanged={onFeedsChanged}
         renderLiveResults={renderLiveResults}

@@ -2,7 +2,6 @@ import { useQueryClient } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
 import { useOutletContext, useSearchParams } from 'react-router';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
-import { CONNECTOR_SIDE_LABELS } from '#shared/schemas/pin-map.schema.ts';
 import { SelectField } from '@/components/ui/field.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
@@ -15,13 +14,24 @@ import { NewConnectorForm } from '@/features/imports/components/new-connector-fo
 import { targetKey, type ImportTarget } from '@/features/imports/lib/import-target.ts';
 import { FromTemplateForm } from '@/features/library/components/from-template-form.tsx';
 import { SaveTemplateForm } from '@/features/library/components/save-template-form.tsx';
+import { connectorChoice } from '@/features/library/lib/connector-choice.ts';
 import { useCreateConnector } from '@/features/pin-map/api/create-connector.ts';
 import { useConnectors } from '@/features/pin-map/api/get-connectors.ts';
 import { pinMapKeys } from '@/features/pin-map/api/keys.ts';
 
 const WHOLE = 'conversion';
-const cavities = (n: number) => `${n} ${n === 1 ? 'cavity' : 'cavities'}`;
 const NEW = 'new';
+
+/**
+ * What the connector select shows: the one asked for in the address when it exists (the whole
+ * conversion or a new connector only for those who may import), else the first connector.
+ */
+function chooseSelection(wanted: string | null, ids: string[], canImport: boolean): string {
+  if (wanted === NEW || wanted === WHOLE) return canImport ? wanted : '';
+  if (wanted !== null && ids.includes(wanted)) return wanted;
+  if (ids[0] !== undefined) return ids[0];
+  return canImport ? NEW : '';
+}
 
 function Card({ title, children }: { title: string; children: ReactNode }) {
   const id = `files-${title.replace(/\W+/g, '-').toLowerCase()}`;
@@ -64,19 +74,11 @@ export function ConversionFilesRoute() {
     );
   }
   const list = connectors.data;
-  const wanted = params.get('connector');
-  const selection =
-    wanted === NEW || wanted === WHOLE
-      ? canImport
-        ? wanted
-        : ''
-      : list.some((c) => String(c.id) === wanted)
-        ? wanted!
-        : list[0]
-          ? String(list[0].id)
-          : canImport
-            ? NEW
-            : '';
+  const selection = chooseSelection(
+    params.get('connector'),
+    list.map((c) => String(c.id)),
+    canImport,
+  );
   const select = (value: string) => setParams({ connector: value }, { replace: true });
   const connector = list.find((c) => String(c.id) === selection) ?? null;
   const target: ImportTarget | null = connector
@@ -84,11 +86,7 @@ export function ConversionFilesRoute() {
     : selection === WHOLE
       ? { kind: 'conversion', conversionId: conversion.id }
       : null;
-  const choices = list.map((c) => ({
-    id: c.id,
-    label: c.label,
-    detail: `${CONNECTOR_SIDE_LABELS[c.side]}, ${cavities(c.cavityCount)}`,
-  }));
+  const choices = list.map(connectorChoice);
 
   return (
     <div className="flex flex-col gap-8">
@@ -107,9 +105,9 @@ export function ConversionFilesRoute() {
         <div className="max-w-md">
           <SelectField label="Connector" value={selection} onChange={(e) => select(e.target.value)}>
             {selection === '' ? <option value="">No connectors yet</option> : null}
-            {list.map((c) => (
+            {choices.map((c) => (
               <option key={c.id} value={c.id}>
-                {c.label} — {CONNECTOR_SIDE_LABELS[c.side]}, {cavities(c.cavityCount)}
+                {c.label} — {c.detail}
               </option>
             ))}
             {canImport ? (

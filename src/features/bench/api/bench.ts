@@ -1,5 +1,10 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { BenchRecord, BenchRecordRequest, BenchSheet } from '#shared/schemas/bench.schema.ts';
+import type {
+  BenchItem,
+  BenchRecord,
+  BenchRecordRequest,
+  BenchSheet,
+} from '#shared/schemas/bench.schema.ts';
 import { api } from '@/lib/api-client.ts';
 
 export const benchKeys = {
@@ -18,6 +23,17 @@ export const getBenchSheetQueryOptions = (conversionId: number) =>
 
 export const useBenchSheet = (conversionId: number) =>
   useQuery(getBenchSheetQueryOptions(conversionId));
+
+/** The sheet with one pin's item changed; the cache may not hold a sheet yet. */
+function updateItem(
+  sheet: BenchSheet | undefined,
+  pinId: number,
+  update: (item: BenchItem) => BenchItem,
+): BenchSheet | undefined {
+  return sheet
+    ? { ...sheet, items: sheet.items.map((i) => (i.pin.id === pinId ? update(i) : i)) }
+    : sheet;
+}
 
 interface RecordInput {
   revisionNumber: number;
@@ -50,22 +66,13 @@ export function useRecordBenchWork(conversionId: number) {
       await queryClient.cancelQueries({ queryKey: key });
       const previous = queryClient.getQueryData<BenchSheet>(key);
       queryClient.setQueryData<BenchSheet>(key, (sheet) =>
-        sheet
-          ? {
-              ...sheet,
-              items: sheet.items.map((i) =>
-                i.pin.id === pinId
-                  ? {
-                      ...i,
-                      record: {
-                        ...(i.record ?? { pinId, recordedBy: '', recordedAt: '', version: -1 }),
-                        ...change,
-                      },
-                    }
-                  : i,
-              ),
-            }
-          : sheet,
+        updateItem(sheet, pinId, (i) => ({
+          ...i,
+          record: {
+            ...(i.record ?? { pinId, recordedBy: '', recordedAt: '', version: -1 }),
+            ...change,
+          },
+        })),
       );
       return { previous };
     },
@@ -74,12 +81,7 @@ export function useRecordBenchWork(conversionId: number) {
     },
     onSuccess: (record) => {
       queryClient.setQueryData<BenchSheet>(key, (sheet) =>
-        sheet
-          ? {
-              ...sheet,
-              items: sheet.items.map((i) => (i.pin.id === record.pinId ? { ...i, record } : i)),
-            }
-          : sheet,
+        updateItem(sheet, record.pinId, (i) => ({ ...i, record })),
       );
     },
     onSettled: () => queryClient.invalidateQueries({ queryKey: key }),

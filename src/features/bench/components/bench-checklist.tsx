@@ -2,7 +2,7 @@ import { useMemo, useState } from 'react';
 import { continuityLooksHigh } from '#shared/domain/bench.ts';
 import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
-import type { BenchItem, BenchSheet } from '#shared/schemas/bench.schema.ts';
+import type { BenchItem, BenchRecordRequest, BenchSheet } from '#shared/schemas/bench.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { DispositionGlyph } from '@/components/ui/disposition-glyph.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
@@ -51,12 +51,7 @@ function BenchRow({
   item: BenchItem;
   unit: SizeUnit;
   canRecord: boolean;
-  onRecord: (change: {
-    done: boolean;
-    tested: boolean;
-    resistanceOhm: number | null;
-    note: string;
-  }) => void;
+  onRecord: (change: Omit<BenchRecordRequest, 'version'>) => void;
 }) {
   const r = item.record;
   const current = {

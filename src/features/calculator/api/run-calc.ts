@@ -29,7 +29,7 @@ export const getCalcRunQueryOptions = (input: CalcRequestInput) =>
   });
 
 /** How long typing must pause before the calculator is asked. */
-export const CALC_DEBOUNCE_MS = 300;
+const CALC_DEBOUNCE_MS = 300;
 
 /**
  * Live results while inputs change: asks once typing pauses, keyed by the inputs, so an answer to

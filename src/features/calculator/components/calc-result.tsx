@@ -2,6 +2,7 @@ import { Fragment, useId, type ReactNode } from 'react';
 import type { CircuitCalcResult } from '#shared/domain/electrical/circuit-calc.ts';
 import { formatAwgGauge } from '#shared/domain/wire-sizes.ts';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
+import { RingGlyph } from '@/components/ui/severity.tsx';
 
 const num = (n: number, places = 2) => String(Number(n.toFixed(places)));
 
@@ -9,17 +10,12 @@ const fuseText = (a: number, colour: string | null | undefined) =>
   colour ? `${num(a)} A (${colour})` : `${num(a)} A`;
 
 /** A yes/no answer as a glyph and words, never colour alone. */
-export function Verdict({ ok, yes, no }: { ok: boolean; yes: string; no: string }) {
+function Verdict({ ok, yes, no }: { ok: boolean; yes: string; no: string }) {
   return (
     <span
       className={`inline-flex items-center gap-1.5 font-semibold ${ok ? 'text-sound' : 'text-fault'}`}
     >
-      <span
-        aria-hidden
-        className="grid size-[1.125rem] shrink-0 place-items-center rounded-full border border-current text-[0.6875rem] leading-none font-bold"
-      >
-        {ok ? '✓' : '✕'}
-      </span>
+      <RingGlyph>{ok ? '✓' : '✕'}</RingGlyph>
       {ok ? yes : no}
     </span>
   );

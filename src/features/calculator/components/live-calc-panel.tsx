@@ -5,15 +5,8 @@ import { useCalcRun } from '../api/run-calc.ts';
 import { CalcResultView } from './calc-result.tsx';
 
 /** The calculator's answer for inputs that are still being typed: asked once typing pauses. */
-export function LiveCalcPanel({
-  request,
-  mode = 'compact',
-}: {
-  request: CalcRequestInput | null;
-  mode?: 'compact' | 'full';
-}) {
+export function LiveCalcPanel({ request }: { request: CalcRequestInput }) {
   const calc = useCalcRun(request);
-  if (request === null) return null;
   if (calc.isError && !calc.data) {
     const issues = calc.error instanceof ApiError ? Object.entries(calc.error.fieldIssues()) : [];
     return (
@@ -45,7 +38,7 @@ export function LiveCalcPanel({
         {calc.stale ? 'Updating…' : ''}
       </p>
       <div className={calc.stale ? 'opacity-60 transition-opacity' : 'transition-opacity'}>
-        <CalcResultView result={calc.data.result} request={calc.data.input} mode={mode} />
+        <CalcResultView result={calc.data.result} request={calc.data.input} mode="compact" />
       </div>
     </div>
   );

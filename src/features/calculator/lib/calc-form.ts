@@ -24,7 +24,7 @@ export interface CalcFormValues {
 }
 
 /** The form's field for each request field, so errors land beside what was typed. */
-export const FIELD_OF: Record<string, keyof CalcFormValues> = {
+const FIELD_OF: Record<string, keyof CalcFormValues> = {
   currentA: 'currentA',
   lengthM: 'lengthM',
   systemV: 'systemV',

@@ -1,14 +1,13 @@
 import { useEffect, useMemo, useState } from 'react';
 import { useLocation } from 'react-router';
 import { SEVERITIES } from '#shared/schemas/checks.schema.ts';
+import type { Feed } from '#shared/schemas/feeds.schema.ts';
+import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { AllClearLabel, SeverityLabel } from '@/components/ui/severity.tsx';
 import { paths } from '@/config/paths.ts';
-import { useConnectors } from '../api/get-connectors.ts';
-import { useFeeds } from '../api/get-feeds.ts';
-import { usePins } from '../api/get-pins.ts';
 import { useCheckReport } from '../api/run-checks.ts';
 import {
   countsSentence,
@@ -30,31 +29,36 @@ export function CheckedAt({ iso }: { iso: string }) {
   );
 }
 
-/** The findings of every circuit check on a conversion, run when the page opens and on demand. */
-export function ChecksPanel({ conversionId }: { conversionId: number }) {
+/**
+ * The findings of every circuit check on a conversion, run when the page opens and on demand. The
+ * pins, connectors and feeds name the findings' links; undefined until loaded (or not needed).
+ */
+export function ChecksPanel({
+  conversionId,
+  pins,
+  connectors,
+  feeds,
+}: {
+  conversionId: number;
+  pins: readonly Pin[] | undefined;
+  connectors: readonly Connector[] | undefined;
+  feeds: readonly Feed[] | undefined;
+}) {
   const report = useCheckReport(conversionId);
   const location = useLocation();
   const focus = decodeURIComponent(location.hash.replace(/^#/, ''));
   const [open, setOpen] = useState<Set<string>>(() => new Set(focus ? [focus] : []));
 
   const findings = useMemo(() => sortFindings(report.data?.findings ?? []), [report.data]);
-  const needPins = findings.some((f) => f.subject.pinIds?.length);
-  const needFeeds = findings.some((f) => f.subject.feedId != null);
-  const pins = usePins(conversionId, needPins);
-  const connectors = useConnectors(conversionId, needPins);
-  const feeds = useFeeds(conversionId, needFeeds);
 
   const names = useMemo(() => {
-    const connectorLabel = new Map((connectors.data ?? []).map((c) => [c.id, c.label]));
+    const connectorLabel = new Map((connectors ?? []).map((c) => [c.id, c.label]));
     const pinName = new Map(
-      (pins.data ?? []).map((p) => [
-        p.id,
-        `${connectorLabel.get(p.connectorId) ?? '?'}-${p.cavity}`,
-      ]),
+      (pins ?? []).map((p) => [p.id, `${connectorLabel.get(p.connectorId) ?? '?'}-${p.cavity}`]),
     );
-    const feedName = new Map((feeds.data ?? []).map((f) => [f.id, f.name]));
+    const feedName = new Map((feeds ?? []).map((f) => [f.id, f.name]));
     return { pin: (id: number) => pinName.get(id), feed: (id: number) => feedName.get(id) };
-  }, [pins.data, connectors.data, feeds.data]);
+  }, [pins, connectors, feeds]);
 
   const hrefOf = (link: SubjectLink) =>
     link.kind === 'pin'

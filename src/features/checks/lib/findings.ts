@@ -1,13 +1,19 @@
 /** How findings read on screen: their order, their links, their numbers. Pure, unit-tested. */
-import type { Finding, FindingValue, Severity } from '#shared/schemas/checks.schema.ts';
+import {
+  SEVERITIES,
+  type Finding,
+  type FindingValue,
+  type Severity,
+} from '#shared/schemas/checks.schema.ts';
 
-const RANK: Record<Severity, number> = { error: 0, warning: 1, note: 2 };
+/** SEVERITIES lists the worst first. */
+const rank = (severity: Severity) => SEVERITIES.indexOf(severity);
 
 /** Errors first, then warnings, then notes; the server's order within each. */
 export function sortFindings(findings: readonly Finding[]): Finding[] {
   return findings
     .map((f, i) => ({ f, i }))
-    .sort((a, b) => RANK[a.f.severity] - RANK[b.f.severity] || a.i - b.i)
+    .sort((a, b) => rank(a.f.severity) - rank(b.f.severity) || a.i - b.i)
     .map(({ f }) => f);
 }
 

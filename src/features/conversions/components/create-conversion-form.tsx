@@ -1,11 +1,10 @@
 import { useState, type FormEvent } from 'react';
-import { CreateConversionRequest } from '#shared/schemas/conversions.schema.ts';
+import { CreateConversionRequest, type Conversion } from '#shared/schemas/conversions.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextAreaField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { ApiError } from '@/lib/api-client.ts';
 import { useCreateConversion } from '../api/create-conversion.ts';
-import type { Conversion } from '#shared/schemas/conversions.schema.ts';
 
 interface Props {
   defaultVoltage: number;

@@ -1,4 +1,5 @@
 import { useId, useState, type FormEvent, type ReactNode } from 'react';
+import { CONDUCTOR_TEMP_C } from '#shared/domain/checks/check-context.ts';
 import { BLADE_FUSES, recommendedFuseA } from '#shared/domain/electrical/fuses.ts';
 import {
   AWG_GAUGES,
@@ -289,7 +290,7 @@ export function FeedForm({
               <option value={NO_FUSE}>No fuse</option>
               {BLADE_FUSES.map((f) => (
                 <option key={f.ratingA} value={String(f.ratingA)}>
-                  {f.ratingA} A ({f.colour})
+                  {fuseLabel(f.ratingA)}
                 </option>
               ))}
               {!standardFuse && fuseA.ok && fuseA.value !== null ? (
@@ -581,11 +582,8 @@ export function FeedForm({
       >
         <h3 className="font-semibold">Live results</h3>
         <p className="mb-2 text-xs text-ink-faint">
-          As the checks will see this feed: the conductor at{' '}
-          {values.zone === 'engine_bay'
-            ? '50 °C, the ambient Table 5 assumes in the engine bay'
-            : '30 °C, the ambient Table 5 assumes outside the engine bay'}
-          .
+          As the checks will see this feed: the conductor at {CONDUCTOR_TEMP_C[values.zone]} °C, the
+          ambient Table 5 assumes {values.zone === 'engine_bay' ? 'in' : 'outside'} the engine bay.
         </p>
         {live.ok ? (
           <>

@@ -2,13 +2,12 @@ import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } fro
 import { useSearchParams } from 'react-router';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
 import type { Feed } from '#shared/schemas/feeds.schema.ts';
+import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
-import { useConnectors } from '../api/get-connectors.ts';
 import { useFeeds } from '../api/get-feeds.ts';
-import { usePins } from '../api/get-pins.ts';
 import { pinChoices } from '../lib/feed-display.ts';
 import { FeedForm } from './feed-form.tsx';
 import { FeedsTable, type ChecksState } from './feeds-table.tsx';
@@ -22,7 +21,7 @@ type Message = {
 };
 
 /** The search parameter that opens a feed in the form: its id, or "new". */
-export const FEED_PARAM = 'feed';
+const FEED_PARAM = 'feed';
 
 /**
  * The feeds of a conversion: a table, and the form for the feed named in the address (so a
@@ -34,6 +33,8 @@ export function FeedsScreen({
   sizeUnit,
   defaultInsulationC,
   readOnly,
+  pins,
+  connectors,
   checks,
   onFeedsChanged,
   renderLiveResults,
@@ -43,23 +44,21 @@ export function FeedsScreen({
   sizeUnit: SizeUnit;
   defaultInsulationC: number;
   readOnly: boolean;
+  /** The conversion's pins and connectors, for the relay-coil and load pickers; undefined while loading. */
+  pins: readonly Pin[] | undefined;
+  connectors: readonly Connector[] | undefined;
   checks: ChecksState;
   /** Called after a save or delete: what the checks found is out of date. */
   onFeedsChanged: () => void;
   renderLiveResults: (request: CalcRequestInput) => ReactNode;
 }) {
   const feeds = useFeeds(conversionId);
-  const pins = usePins(conversionId);
-  const connectors = useConnectors(conversionId);
   const [params, setParams] = useSearchParams();
   const [message, setMessage] = useState<Message | null>(null);
   const formRef = useRef<HTMLDivElement>(null);
   const opened = params.get(FEED_PARAM);
 
-  const choices = useMemo(
-    () => pinChoices(pins.data ?? [], connectors.data ?? []),
-    [pins.data, connectors.data],
-  );
+  const choices = useMemo(() => pinChoices(pins ?? [], connectors ?? []), [pins, connectors]);
   const pinsById = useMemo(() => new Map(choices.map((p) => [p.id, p])), [choices]);
 
   const hrefOf = useCallback((feedId: number) => `?${FEED_PARAM}=${feedId}`, []);

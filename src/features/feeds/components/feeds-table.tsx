@@ -1,5 +1,6 @@
 import { useMemo } from 'react';
 import { Link } from 'react-router';
+import { DROP_LIMIT_PCT } from '#shared/domain/electrical/voltage-drop.ts';
 import type { Finding } from '#shared/schemas/checks.schema.ts';
 import { DROP_CLASS_LABELS, WIRE_ZONE_LABELS, type Feed } from '#shared/schemas/feeds.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
@@ -22,7 +23,6 @@ export type ChecksState =
   { status: 'pending' } | { status: 'error' } | { status: 'ready'; findings: Finding[] };
 
 const RETURN_WORDS = { wire: 'own return wire', chassis: 'chassis return' } as const;
-const DROP_SHORT = { critical: 'critical, 3 %', general: 'general, 10 %' } as const;
 
 const linkClass =
   'font-semibold text-ink underline decoration-rule-strong underline-offset-4 hover:decoration-copper';
@@ -80,7 +80,7 @@ export function FeedsTable({
               Drop limit{' '}
               {row.original.dropLimitPct != null
                 ? `${num(row.original.dropLimitPct)} % (set)`
-                : DROP_SHORT[row.original.dropClass]}
+                : `${row.original.dropClass}, ${DROP_LIMIT_PCT[row.original.dropClass]} %`}
             </div>
           </div>
         ),

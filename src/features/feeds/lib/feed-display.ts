@@ -1,6 +1,6 @@
 /** How a feed reads in the table and the pickers: fuse colours, sources, pins, check results. */
 import { fuseColour } from '#shared/domain/electrical/fuses.ts';
-import type { Finding, Severity } from '#shared/schemas/checks.schema.ts';
+import { SEVERITIES, type Finding, type Severity } from '#shared/schemas/checks.schema.ts';
 import { FEED_SOURCE_LABELS, type Feed } from '#shared/schemas/feeds.schema.ts';
 import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
 
@@ -56,7 +56,8 @@ export function totalLoadA(feed: Pick<Feed, 'loads'>): { totalA: number; continu
 /** A number as the workshop reads it: no trailing zeros, at most two places. */
 export const num = (n: number, places = 2) => String(Number(n.toFixed(places)));
 
-const RANK: Record<Severity, number> = { error: 0, warning: 1, note: 2 };
+/** SEVERITIES lists the worst first. */
+const rank = (severity: Severity) => SEVERITIES.indexOf(severity);
 
 /** The findings about each feed, worst first. */
 export function findingsByFeed(findings: readonly Finding[]): Map<number, Finding[]> {
@@ -68,12 +69,12 @@ export function findingsByFeed(findings: readonly Finding[]): Map<number, Findin
     list.push(f);
     map.set(feedId, list);
   }
-  for (const list of map.values()) list.sort((a, b) => RANK[a.severity] - RANK[b.severity]);
+  for (const list of map.values()) list.sort((a, b) => rank(a.severity) - rank(b.severity));
   return map;
 }
 
 /** For sorting the table by its check column: worst severity first, clean feeds last. */
 export function worstRank(findings: readonly Finding[] | undefined): number {
-  if (!findings?.length) return 3;
-  return Math.min(...findings.map((f) => RANK[f.severity]));
+  if (!findings?.length) return SEVERITIES.length;
+  return Math.min(...findings.map((f) => rank(f.severity)));
 }

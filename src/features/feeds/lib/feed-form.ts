@@ -265,7 +265,7 @@ export function loadTotals(loads: Array<{ currentA: string; continuous: boolean 
 }
 
 /** The loads of every feed a feed's relay powers, down the chain (as the checks count them). */
-export function downstreamTotals(feedId: number | null, feeds: readonly FeedLike[]): LoadTotals {
+function downstreamTotals(feedId: number | null, feeds: readonly FeedLike[]): LoadTotals {
   const totals = { continuousA: 0, nonContinuousA: 0, totalA: 0 };
   if (feedId === null) return totals;
   const seen = new Set<number>([feedId]);

@@ -1,3 +1,4 @@
+import { cavityName } from '#shared/domain/pin-names.ts';
 import type { ImportChange, ImportSummary } from '#shared/schemas/imports.schema.ts';
 import { plural } from '../lib/preview.ts';
 
@@ -27,7 +28,7 @@ function Tally({ summary }: { summary: ImportSummary }) {
   );
 }
 
-const pinName = (c: { connector: string; cavity: string }) => `${c.connector}-${c.cavity}`;
+const pinName = (c: { connector: string; cavity: string }) => cavityName(c.connector, c.cavity);
 
 /**
  * What applying the file would do to the pins already there: cavities added, each changed field

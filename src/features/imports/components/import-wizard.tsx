@@ -39,7 +39,8 @@ export function ImportWizard({
   const [file, setFile] = useState<File | null>(null);
   const [result, setResult] = useState<ImportResult | null>(null);
   const [mapping, setMapping] = useState<ColumnMapping[]>([]);
-  const [applied, setApplied] = useState<ImportResult | null>(null);
+  // Cleared by apply.reset() whenever a file is checked.
+  const applied = apply.data;
 
   const refused = useMemo(() => refusedResult(apply.error), [apply.error]);
   const shown = useMemo(
@@ -69,7 +70,6 @@ export function ImportWizard({
     if (!next) return;
     setFile(next);
     setResult(null);
-    setApplied(null);
     check(next);
   }
 
@@ -79,15 +79,7 @@ export function ImportWizard({
 
   function applyFile() {
     if (!file || !result) return;
-    apply.mutate(
-      { file, mapping: result.mapping },
-      {
-        onSuccess: (r) => {
-          setApplied(r);
-          setResult(null);
-        },
-      },
-    );
+    apply.mutate({ file, mapping: result.mapping }, { onSuccess: () => setResult(null) });
   }
 
   const errorCount = shown?.errorCount ?? 0;

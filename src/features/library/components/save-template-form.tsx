@@ -5,13 +5,7 @@ import { SelectField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { ApiError } from '@/lib/api-client.ts';
 import { useSaveTemplate } from '../api/save-template.ts';
-
-export interface ConnectorChoice {
-  id: number;
-  label: string;
-  /** "ECU side, 28 cavities". */
-  detail: string;
-}
+import type { ConnectorChoice } from '../lib/connector-choice.ts';
 
 /**
  * Saves one connector's pinout to the workshop library: cavities, face layout and each pin's

@@ -1,8 +1,8 @@
 import { SIGNAL_CLASS_LABELS } from '#shared/domain/signal-classes.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import type { TemplatePin } from '#shared/schemas/library.schema.ts';
+import { DispositionLabel } from '@/components/ui/disposition-glyph.tsx';
 import { WireColour } from '@/components/ui/wire-colour.tsx';
-import { DispositionWord } from './disposition-word.tsx';
 
 /** A template's cavities in face order with what each carries. */
 export function TemplatePinsTable({ pins, caption }: { pins: TemplatePin[]; caption: string }) {
@@ -47,7 +47,7 @@ export function TemplatePinsTable({ pins, caption }: { pins: TemplatePin[]; capt
                 )}
               </td>
               <td className="px-3 py-2">
-                <DispositionWord disposition={pin.disposition} />
+                <DispositionLabel disposition={pin.disposition} />
               </td>
               <td className="max-w-[24rem] px-3 py-2 text-ink-soft">{pin.notes}</td>
             </tr>

@@ -7,7 +7,7 @@
 import type { QueryClient } from '@tanstack/react-query';
 import type { Connector, Pin, PinChanges } from '#shared/schemas/pin-map.schema.ts';
 import { ApiError } from '@/lib/api-client.ts';
-import { applyEdits, pinsById, replacePins } from '../lib/pin-cache.ts';
+import { applyEdits, pinsById, replacePins, valuesBefore } from '../lib/pin-cache.ts';
 import type { PinEdit } from '../lib/pin-edits.ts';
 import { connectorLabels, nameOfPin } from '../lib/rows.ts';
 import { pinMapKeys } from './keys.ts';
@@ -24,7 +24,7 @@ export type PinWrite =
   | (PinWriteBase & { kind: 'bulk'; pinIds: number[]; set: PinChanges })
   | (PinWriteBase & { kind: 'batch'; edits: PinEdit[] });
 
-export function editsOf(write: PinWrite): PinEdit[] {
+function editsOf(write: PinWrite): PinEdit[] {
   switch (write.kind) {
     case 'single':
       return [write.edit];
@@ -108,11 +108,7 @@ export function pinWriteCache(
       const edits = editsOf(write);
       const before = edits.flatMap((edit) => {
         const pin = pins.get(edit.id);
-        if (!pin) return [];
-        const set = Object.fromEntries(
-          Object.keys(edit.set).map((k) => [k, pin[k as keyof PinChanges]]),
-        ) as PinChanges;
-        return [{ id: edit.id, set }];
+        return pin ? [{ id: edit.id, set: valuesBefore(pin, edit.set) }] : [];
       });
       queryClient.setQueryData<Pin[]>(pinsKey, (old) => applyEdits(old ?? [], edits));
       return { before };

@@ -1,11 +1,12 @@
 import { memo, useId, useState, type KeyboardEvent } from 'react';
-import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
+import { DISPOSITION_INFO, DISPOSITIONS } from '#shared/domain/dispositions.ts';
 import { describeWireColour } from '#shared/domain/wire-colours.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { faceCavities, type FaceCavity } from '../lib/face.ts';
 import type { DispositionCounts } from '../lib/progress.ts';
+import { pinName } from '../lib/rows.ts';
 import { DispositionGlyphPath, DispositionLabel } from '@/components/ui/disposition-glyph.tsx';
 import { WireColour } from '@/components/ui/wire-colour.tsx';
 
@@ -24,7 +25,7 @@ const MARGIN = 12;
 
 function describeCavity(connector: Connector, pin: Pin, unit: SizeUnit): string {
   const parts = [
-    `Cavity ${connector.label}-${pin.cavity}`,
+    `Cavity ${pinName(connector.label, pin.cavity)}`,
     pin.function || 'no function recorded',
     pin.colour ? `wire ${pin.colour}, ${describeWireColour(pin.colour)}` : 'no wire colour',
     pin.sizeMm2 != null ? formatWireSize(pin.sizeMm2, unit) : 'no size',
@@ -51,12 +52,8 @@ export const ConnectorFace = memo(function ConnectorFace({
   const width = MARGIN * 2 + connector.columns * PITCH - (PITCH - BOX);
   const height = MARGIN * 2 + connector.rows * PITCH - (PITCH - BOX);
   const at = (c: FaceCavity) => ({ x: MARGIN + c.column * PITCH, y: MARGIN + c.row * PITCH });
-  const summary = Object.entries(counts)
-    .filter(([, n]) => n > 0)
-    .map(
-      ([d, n]) =>
-        `${n} ${DISPOSITION_INFO[d as keyof typeof DISPOSITION_INFO].label.toLowerCase()}`,
-    )
+  const summary = DISPOSITIONS.filter((d) => counts[d] > 0)
+    .map((d) => `${counts[d]} ${DISPOSITION_INFO[d].label.toLowerCase()}`)
     .join(', ');
 
   function focusCavity(index: number) {
@@ -167,9 +164,7 @@ export const ConnectorFace = memo(function ConnectorFace({
           className="pointer-events-none absolute z-30 w-64 rounded-md border border-rule-strong bg-paper-raised px-3 py-2 text-sm shadow-lg"
           style={{ left: Math.min(tip.x, Math.max(0, width - 256)), top: tip.y + BOX + 6 }}
         >
-          <p className="font-mono font-semibold">
-            {connector.label}-{shown.pin.cavity}
-          </p>
+          <p className="font-mono font-semibold">{pinName(connector.label, shown.pin.cavity)}</p>
           <p className="text-ink">
             {shown.pin.function || <span className="text-ink-faint">No function recorded</span>}
           </p>

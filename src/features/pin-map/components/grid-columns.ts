@@ -34,7 +34,7 @@ export const pinGridFeatures = tableFeatures({
 export type PinGridFeatures = typeof pinGridFeatures;
 
 /** Column widths in px; rows are 40 px high, roomy enough for a gloved tap. */
-export const COLUMN_WIDTHS: Record<GridColumnId, number> = {
+const COLUMN_WIDTHS: Record<GridColumnId, number> = {
   select: 40,
   connector: 104,
   cavity: 76,
@@ -51,7 +51,7 @@ export const COLUMN_WIDTHS: Record<GridColumnId, number> = {
 };
 
 /** Columns that stay in view when the grid scrolls sideways: which pin a row is. */
-export const STICKY_COLUMNS: ReadonlySet<string> = new Set([SELECT_COLUMN, 'connector', 'cavity']);
+const STICKY_COLUMNS: ReadonlySet<string> = new Set([SELECT_COLUMN, 'connector', 'cavity']);
 
 const SORT_FN: Record<PinColumnId, 'alphanumeric' | 'text' | 'basic'> = {
   connector: 'alphanumeric',

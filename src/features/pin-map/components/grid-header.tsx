@@ -1,11 +1,10 @@
 import type { ReactTable } from '@tanstack/react-table';
 import type { KeyboardEvent } from 'react';
+import { SortGlyph } from '@/components/ui/sortable-table.tsx';
 import { SELECT_COLUMN } from '../lib/columns.ts';
 import type { PinRow } from '../lib/rows.ts';
 import type { PinGridFeatures } from './grid-columns.ts';
 import { HEADER_HEIGHT, type ColumnLayout } from './grid-row.tsx';
-
-const SORT_GLYPH = { asc: '▲', desc: '▼' } as const;
 
 /** The grid's column headings: they stay at the top while the rows scroll under them. */
 export function GridHeader({
@@ -99,9 +98,7 @@ export function GridHeader({
                 className="inline-flex min-w-0 items-center gap-1 text-left text-[0.8125rem] font-semibold text-ink-soft hover:text-ink"
               >
                 <span className="truncate">{c.header}</span>
-                <span aria-hidden className="text-[0.625rem] text-copper">
-                  {sorted ? SORT_GLYPH[sorted] : '↕'}
-                </span>
+                <SortGlyph sorted={sorted} />
               </button>
             </div>
           );

@@ -1,5 +1,6 @@
 import { memo, type MouseEvent, type ReactNode } from 'react';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
+import { isEditableColumn } from '../lib/cell-values.ts';
 import { isPinColumn, SELECT_COLUMN } from '../lib/columns.ts';
 import type { PinRow } from '../lib/rows.ts';
 import { CellContent } from './cell-content.tsx';
@@ -97,7 +98,7 @@ export const GridRow = memo(function GridRow({
             aria-colindex={c + 1}
             aria-selected={inRange || undefined}
             aria-invalid={error ? true : undefined}
-            aria-readonly={readOnly || !isEditable(column.id) || undefined}
+            aria-readonly={readOnly || !isEditableColumn(column.id) || undefined}
             title={error ? `${error.text}: ${error.message}` : undefined}
             onMouseDown={(e) => onCellMouseDown(rowIndex, c, e)}
             onDoubleClick={() => onCellDoubleClick(rowIndex, c)}
@@ -147,7 +148,3 @@ export const GridRow = memo(function GridRow({
     </div>
   );
 });
-
-function isEditable(id: string) {
-  return id !== SELECT_COLUMN && id !== 'connector' && id !== 'cavity';
-}

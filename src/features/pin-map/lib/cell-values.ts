@@ -165,7 +165,7 @@ function asChanges<T>(parsed: Parse<T>, toSet: (value: T) => PinChanges): CellPa
 }
 
 /** The columns a person can type into, and the fields each one sets. */
-export const EDITABLE_COLUMNS = [
+const EDITABLE_COLUMNS = [
   'function',
   'signalClass',
   'colour',

@@ -7,7 +7,7 @@ import { SIGNAL_CLASS_LABELS, SIGNAL_CLASSES } from '#shared/domain/signal-class
 import { editableWireSize } from '#shared/domain/wire-sizes.ts';
 import type { PinFields } from '#shared/schemas/pin-map.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
-import { isEditableColumn, type EditableColumnId } from './cell-values.ts';
+import type { EditableColumnId } from './cell-values.ts';
 import type { PinRow } from './rows.ts';
 
 export const PIN_COLUMNS = [
@@ -147,6 +147,3 @@ export function sortValue(row: PinRow, id: PinColumnId): string | number | undef
       return cellText(row, id, 'mm2');
   }
 }
-
-export { isEditableColumn };
-export type { EditableColumnId };

@@ -41,7 +41,7 @@ function matchesText(row: PinRow, needle: string): boolean {
 }
 
 /** Which filter clauses hide this row (empty when it shows). */
-export function clausesHiding(row: PinRow, filter: PinFilter): Array<keyof PinFilter> {
+function clausesHiding(row: PinRow, filter: PinFilter): Array<keyof PinFilter> {
   const hiding: Array<keyof PinFilter> = [];
   if (filter.connectorId !== null && row.pin.connectorId !== filter.connectorId)
     hiding.push('connectorId');

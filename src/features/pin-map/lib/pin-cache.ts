@@ -2,7 +2,7 @@
  * Pure updates of the cached list of pins, for optimistic edits: pins that do not change keep
  * their identity, so rows that did not change are not redrawn.
  */
-import type { Pin } from '#shared/schemas/pin-map.schema.ts';
+import type { Pin, PinChanges, PinFields } from '#shared/schemas/pin-map.schema.ts';
 import type { PinEdit } from './pin-edits.ts';
 
 /** The pins with the edits' values applied (versions untouched: the server assigns those). */
@@ -25,4 +25,11 @@ export function replacePins(pins: readonly Pin[], fresh: readonly Pin[]): Pin[] 
 
 export function pinsById(pins: readonly Pin[]): Map<number, Pin> {
   return new Map(pins.map((p) => [p.id, p]));
+}
+
+/** The pin's present values of the fields a change sets: what putting the pin back takes. */
+export function valuesBefore(pin: Pin, set: PinChanges): PinChanges {
+  return Object.fromEntries(
+    Object.keys(set).map((k) => [k, pin[k as keyof PinFields]]),
+  ) as PinChanges;
 }

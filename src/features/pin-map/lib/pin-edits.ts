@@ -3,14 +3,8 @@
  * unchanged values dropped, or a list of the cells that cannot take their value.
  */
 import type { Pin, PinChanges, PinFields } from '#shared/schemas/pin-map.schema.ts';
-import { type CellContext, parseCell } from './cell-values.ts';
-import {
-  type PinColumnId,
-  CLEARABLE_COLUMNS,
-  COLUMN_FIELDS,
-  cellText,
-  isEditableColumn,
-} from './columns.ts';
+import { type CellContext, isEditableColumn, parseCell } from './cell-values.ts';
+import { type PinColumnId, CLEARABLE_COLUMNS, COLUMN_FIELDS, cellText } from './columns.ts';
 import { placeBlock } from './clipboard.ts';
 import type { PinRow } from './rows.ts';
 

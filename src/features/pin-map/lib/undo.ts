@@ -2,7 +2,8 @@
  * The undo history of the pin grid: each entry holds, per pin, the values before and after one
  * change (a cell, a paste, a fill down, a selection edit). Undo writes the "before" values back.
  */
-import type { Pin, PinChanges, PinFields } from '#shared/schemas/pin-map.schema.ts';
+import type { Pin, PinChanges } from '#shared/schemas/pin-map.schema.ts';
+import { valuesBefore } from './pin-cache.ts';
 import type { PinEdit } from './pin-edits.ts';
 
 export interface UndoEntry {
@@ -12,7 +13,7 @@ export interface UndoEntry {
   changes: Array<{ id: number; before: PinChanges; after: PinChanges }>;
 }
 
-export const UNDO_LIMIT = 100;
+const UNDO_LIMIT = 100;
 
 /** Records the values the edits are about to replace, read from the pins as the grid shows them. */
 export function undoEntryFor(
@@ -27,10 +28,7 @@ export function undoEntryFor(
     changes: edits.flatMap((edit) => {
       const pin = pins.get(edit.id);
       if (!pin) return [];
-      const before = Object.fromEntries(
-        Object.keys(edit.set).map((k) => [k, pin[k as keyof PinFields]]),
-      ) as PinChanges;
-      return [{ id: edit.id, before, after: edit.set }];
+      return [{ id: edit.id, before: valuesBefore(pin, edit.set), after: edit.set }];
     }),
   };
 }

@@ -78,27 +78,27 @@ export function useSubmitRevision(conversionId: number) {
   });
 }
 
-export function useSignOff(conversionId: number, number: number) {
+/** A reviewer's decision; refreshed even when refused, as someone else may have decided first. */
+function useReviewDecision<Input>(
+  conversionId: number,
+  number: number,
+  decision: 'sign-off' | 'send-back',
+) {
   const invalidate = useInvalidateRevisions(conversionId);
   return useMutation({
-    mutationFn: (input: SignOffRequest) =>
+    mutationFn: (input: Input) =>
       api
-        .post<{ revision: RevisionSummary }>(`${base(conversionId)}/${number}/sign-off`, input)
+        .post<{ revision: RevisionSummary }>(`${base(conversionId)}/${number}/${decision}`, input)
         .then((r) => r.revision),
     onSettled: invalidate,
   });
 }
 
-export function useSendBack(conversionId: number, number: number) {
-  const invalidate = useInvalidateRevisions(conversionId);
-  return useMutation({
-    mutationFn: (input: SendBackRequest) =>
-      api
-        .post<{ revision: RevisionSummary }>(`${base(conversionId)}/${number}/send-back`, input)
-        .then((r) => r.revision),
-    onSettled: invalidate,
-  });
-}
+export const useSignOff = (conversionId: number, number: number) =>
+  useReviewDecision<SignOffRequest>(conversionId, number, 'sign-off');
+
+export const useSendBack = (conversionId: number, number: number) =>
+  useReviewDecision<SendBackRequest>(conversionId, number, 'send-back');
 
 export function useAddComment(conversionId: number, number: number) {
   const queryClient = useQueryClient();

@@ -1,4 +1,5 @@
 import { DISPOSITION_INFO, type Disposition } from '#shared/domain/dispositions.ts';
+import { countChanges } from '#shared/domain/revisions/diff.ts';
 import { SIGNAL_CLASS_LABELS, type SignalClass } from '#shared/domain/signal-classes.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import type { FieldChange, RevisionChanges } from '#shared/schemas/revisions.schema.ts';
@@ -121,14 +122,6 @@ export function ChangesView({
     ...changes.pins.changed.map((p) => ({ subject: p.name, fields: p.fields })),
     ...changes.feeds.changed.map((f) => ({ subject: `Feed: ${f.name}`, fields: f.fields })),
   ];
-  const nothing =
-    !rows.length &&
-    !changes.pins.added.length &&
-    !changes.pins.removed.length &&
-    !changes.feeds.added.length &&
-    !changes.feeds.removed.length &&
-    !changes.connectors.added.length &&
-    !changes.connectors.removed.length;
   return (
     <section
       aria-labelledby="changes-heading"
@@ -137,7 +130,7 @@ export function ChangesView({
       <h2 id="changes-heading" className="text-lg font-semibold">
         Changes since revision {comparedWith}
       </h2>
-      {nothing ? <p className="mt-2 text-ink-soft">Nothing changed.</p> : null}
+      {countChanges(changes) === 0 ? <p className="mt-2 text-ink-soft">Nothing changed.</p> : null}
       <div className="mt-2 flex flex-col gap-1">
         <NameList label="Connectors added" glyph="+" names={changes.connectors.added} />
         <NameList label="Connectors removed" glyph="−" names={changes.connectors.removed} />

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { pinNames } from '#shared/domain/pin-names.ts';
 import type { RevisionDetail } from '#shared/schemas/revisions.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextAreaField } from '@/components/ui/field.tsx';
@@ -18,13 +19,10 @@ export function CommentsPanel({
   const add = useAddComment(conversionId, revision.number);
   const [body, setBody] = useState('');
   const [subject, setSubject] = useState('');
-  const labels = new Map(revision.snapshot.connectors.map((c) => [c.id, c.label]));
+  const names = pinNames(revision.snapshot);
   const pinOptions = revision.snapshot.pins
     .filter((p) => p.disposition !== 'empty')
-    .map((p) => ({
-      value: `pin:${p.id}`,
-      label: `${labels.get(p.connectorId)}-${p.cavity} ${p.function}`,
-    }));
+    .map((p) => ({ value: `pin:${p.id}`, label: `${names.get(p.id)} ${p.function}` }));
   const feedOptions = revision.snapshot.feeds.map((f) => ({
     value: `feed:${f.id}`,
     label: `Feed: ${f.name}`,

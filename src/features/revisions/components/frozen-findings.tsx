@@ -1,7 +1,5 @@
 import type { Finding } from '#shared/schemas/checks.schema.ts';
-
-const GLYPH = { error: '✕', warning: '!', note: 'i' } as const;
-const WORD = { error: 'Error', warning: 'Warning', note: 'Note' } as const;
+import { SeverityLabel } from '@/components/ui/severity.tsx';
 
 /** The check findings frozen with a revision (errors are impossible: they block submission). */
 export function FrozenFindings({ findings }: { findings: Finding[] }) {
@@ -22,8 +20,8 @@ export function FrozenFindings({ findings }: { findings: Finding[] }) {
             <details className="rounded-md border border-rule px-3 py-2">
               <summary className="cursor-pointer">
                 <span className="font-semibold">
-                  <span aria-hidden>{GLYPH[f.severity]} </span>
-                  {WORD[f.severity]}: {f.title}
+                  <SeverityLabel severity={f.severity} className="mr-2 align-bottom" />
+                  {f.title}
                 </span>
                 <span className="block text-sm text-ink-soft">{f.message}</span>
               </summary>

@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import type { FormEvent } from 'react';
 import { INSULATION_RATINGS_C, type WorkshopSettings } from '#shared/schemas/workshop.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextField } from '@/components/ui/field.tsx';
@@ -8,25 +8,20 @@ import { useUpdateWorkshop } from '../api/workshop.ts';
 
 export function SettingsForm({ workshop }: { workshop: WorkshopSettings }) {
   const update = useUpdateWorkshop();
-  const [saved, setSaved] = useState(false);
   const errors = update.error instanceof ApiError ? update.error.fieldIssues() : {};
 
   function submit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = new FormData(event.currentTarget);
-    setSaved(false);
-    update.mutate(
-      {
-        name: String(form.get('name')),
-        paperSize: form.get('paperSize') as WorkshopSettings['paperSize'],
-        sizeUnit: form.get('sizeUnit') as WorkshopSettings['sizeUnit'],
-        systemVoltage: Number(form.get('systemVoltage')) as 12 | 24,
-        defaultInsulationC: Number(form.get('defaultInsulationC')),
-        serviceAllowancePct: Number(form.get('serviceAllowancePct')),
-        version: workshop.version,
-      },
-      { onSuccess: () => setSaved(true) },
-    );
+    update.mutate({
+      name: String(form.get('name')),
+      paperSize: form.get('paperSize') as WorkshopSettings['paperSize'],
+      sizeUnit: form.get('sizeUnit') as WorkshopSettings['sizeUnit'],
+      systemVoltage: Number(form.get('systemVoltage')) as 12 | 24,
+      defaultInsulationC: Number(form.get('defaultInsulationC')),
+      serviceAllowancePct: Number(form.get('serviceAllowancePct')),
+      version: workshop.version,
+    });
   }
 
   return (
@@ -94,7 +89,7 @@ export function SettingsForm({ workshop }: { workshop: WorkshopSettings }) {
             {update.error.message}
           </Notice>
         ) : null}
-        {saved ? <Notice tone="sound" title="Settings saved" /> : null}
+        {update.isSuccess ? <Notice tone="sound" title="Settings saved" /> : null}
         <div>
           <Button type="submit" variant="primary" busy={update.isPending}>
             Save settings
