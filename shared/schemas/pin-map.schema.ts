@@ -73,6 +73,27 @@ export const PinFields = z.strictObject({
 export type PinFields = z.infer<typeof PinFields>;
 export const PIN_FIELD_NAMES = Object.keys(PinFields.shape) as Array<keyof PinFields>;
 
+/** What a new cavity holds: nothing anyone entered. */
+export const BLANK_PIN_VALUES: PinFields = {
+  function: '',
+  signalClass: 'none',
+  colour: '',
+  sizeMm2: null,
+  insulationRatingC: null,
+  disposition: 'undecided',
+  destination: '',
+  destinationPinId: null,
+  destinationFeedId: null,
+  runLengthM: null,
+  loadCurrentA: null,
+  notes: '',
+};
+
+/** Whether a pin holds anything a person entered (so removing its cavity would lose work). */
+export function pinHoldsData(pin: PinFields): boolean {
+  return PIN_FIELD_NAMES.some((key) => pin[key] !== BLANK_PIN_VALUES[key]);
+}
+
 const atLeastOne = (v: object) => Object.keys(v).length > 0;
 
 export const PinChanges = PinFields.partial().refine(

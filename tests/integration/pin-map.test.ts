@@ -352,3 +352,50 @@ describe('saving without a change', () => {
     expect(await AuditEvent.count({ where: { conversionId, entityType: 'pin' } })).toBe(audit);
   });
 });
+
+describe('shrinking a connector', () => {
+  it('refuses to drop a cavity that holds any value or that another pin links to', async () => {
+    const { body } = await createConnector({ label: 'S1', side: 'vehicle', cavityCount: 4 });
+    const id = body.connector.id;
+    const pins = await pinsOf(id);
+    // Only a signal class on cavity 4: still work someone entered.
+    await request(ctx.app)
+      .patch(`/api/pins/${pins[3]!.id}`)
+      .set('Authorization', builder)
+      .send({ signalClass: 'power_ground', version: 0 })
+      .expect(200);
+    const refused = await request(ctx.app)
+      .patch(`/api/connectors/${id}`)
+      .set('Authorization', builder)
+      .send({ cavityCount: 3, version: 0 });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toMatch(/Cavities 4/);
+    // Cavity 3 is blank, but an ECU pin points at it.
+    const ecu = (await createConnector({ label: 'S2', side: 'ecu', cavityCount: 1 })).body
+      .connector;
+    const [source] = await pinsOf(ecu.id);
+    await request(ctx.app)
+      .patch(`/api/pins/${source!.id}`)
+      .set('Authorization', builder)
+      .send({ disposition: 'join', destinationPinId: pins[2]!.id, version: 0 })
+      .expect(200);
+    await request(ctx.app)
+      .patch(`/api/pins/${pins[3]!.id}`)
+      .set('Authorization', builder)
+      .send({ signalClass: 'none', version: 1 })
+      .expect(200);
+    const linked = await request(ctx.app)
+      .patch(`/api/connectors/${id}`)
+      .set('Authorization', builder)
+      .send({ cavityCount: 2, version: 0 });
+    expect(linked.status).toBe(409);
+    expect(linked.body.error.message).toMatch(/Cavities 3/);
+    expect(await pinsOf(id)).toHaveLength(4);
+    const ok = await request(ctx.app)
+      .patch(`/api/connectors/${id}`)
+      .set('Authorization', builder)
+      .send({ cavityCount: 3, version: 0 });
+    expect(ok.status).toBe(200);
+    expect(await pinsOf(id)).toHaveLength(3);
+  });
+});

@@ -23,8 +23,10 @@ import type {
   ImportSummary,
 } from '#shared/schemas/imports.schema.ts';
 import {
+  BLANK_PIN_VALUES,
   defaultFaceLayout,
   MAX_CAVITIES,
+  pinHoldsData,
   type ConnectorSide,
   type PinFields,
 } from '#shared/schemas/pin-map.schema.ts';
@@ -60,22 +62,6 @@ export interface PlanContext {
 /** The fields an import writes, beyond cavity and position: every field a person sets on a pin. */
 export type PinValues = PinFields;
 
-export const BLANK_VALUES: PinValues = {
-  function: '',
-  signalClass: 'none',
-  colour: '',
-  sizeMm2: null,
-  insulationRatingC: null,
-  disposition: 'undecided',
-  destination: '',
-  destinationPinId: null,
-  destinationFeedId: null,
-  runLengthM: null,
-  loadCurrentA: null,
-  notes: '',
-};
-const VALUE_KEYS = Object.keys(BLANK_VALUES) as Array<keyof PinValues>;
-
 export interface ConnectorPlan {
   connectorId: number;
   label: string;
@@ -94,11 +80,6 @@ export interface Plan {
   changes: ImportChange[];
   summary: ImportSummary;
   connectors: ConnectorPlan[];
-}
-
-/** Whether a pin holds anything a person entered. */
-export function holdsData(pin: PinValues): boolean {
-  return VALUE_KEYS.some((key) => pin[key] !== BLANK_VALUES[key]);
 }
 
 const FIELD_LABELS: Record<string, string> = {
@@ -394,21 +375,21 @@ export function planImport(
           newVersions.set(pin.id, { ...pin, ...after, version: pin.version + 1 });
         } else summary.unchanged++;
       } else {
-        const after = resolve(row, BLANK_VALUES, null);
+        const after = resolve(row, BLANK_PIN_VALUES, null);
         summary.added++;
         changes.push({
           kind: 'add',
           connector: connector.label,
           cavity: row.cavity,
           row: row.row,
-          fields: fieldChanges(BLANK_VALUES, after, names),
+          fields: fieldChanges(BLANK_PIN_VALUES, after, names),
         });
         addsInOrder.push({ ...after, cavity: row.cavity });
       }
     }
 
     const missing = existing.filter((p) => !kept.has(p.id) && !named?.has(p.cavity.toUpperCase()));
-    const inUse = missing.filter((p) => holdsData(p) || ctx.referencedPinIds.has(p.id));
+    const inUse = missing.filter((p) => pinHoldsData(p) || ctx.referencedPinIds.has(p.id));
     if (inUse.length) {
       const list = inUse.map((p) => p.cavity);
       errors.push({

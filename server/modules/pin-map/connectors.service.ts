@@ -2,12 +2,13 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import type { Disposition } from '#shared/domain/dispositions.ts';
 import {
   defaultFaceLayout,
+  pinHoldsData,
   type Connector as ConnectorDto,
   type CreateConnectorRequest,
   type UpdateConnectorRequest,
 } from '#shared/schemas/pin-map.schema.ts';
 import { db } from '../../db/index.ts';
-import { Connector, Pin } from '../../db/models/index.ts';
+import { Connector, Feed, FeedLoad, Pin } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, badRequest, notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
@@ -17,7 +18,6 @@ import {
   ofConversionInWorkshop,
 } from '../conversions/conversions.service.ts';
 import { toConnectorDto } from './pin-dto.ts';
-import { isBlankPin } from './pins.service.ts';
 
 export interface ConnectorWithCounts extends ConnectorDto {
   counts: Partial<Record<Disposition, number>>;
@@ -80,6 +80,28 @@ function assertLayoutHolds(rows: number, columns: number, cavityCount: number) {
       { field: 'rows', message: `${rows} × ${columns} cannot hold ${cavityCount} cavities` },
     ]);
   }
+}
+
+/** Which of these pins another pin, a feed's relay coil or a feed's load points at. */
+async function pinsReferenced(pinIds: number[], t: Transaction): Promise<Set<number>> {
+  const [linked, coils, loads] = await Promise.all([
+    Pin.findAll({
+      where: { destinationPinId: pinIds },
+      attributes: ['destinationPinId'],
+      transaction: t,
+    }),
+    Feed.findAll({
+      where: { relayCoilPinId: pinIds },
+      attributes: ['relayCoilPinId'],
+      transaction: t,
+    }),
+    FeedLoad.findAll({ where: { pinId: pinIds }, attributes: ['pinId'], transaction: t }),
+  ]);
+  return new Set([
+    ...linked.map((p) => p.destinationPinId!),
+    ...coils.map((f) => f.relayCoilPinId!),
+    ...loads.map((l) => l.pinId!),
+  ]);
 }
 
 /** Cavity labels for new cavities: the next numbers after the highest numeric label. */
@@ -186,12 +208,16 @@ export async function updateConnector(
         );
       } else {
         const dropped = pins.slice(cavityCount);
-        const worked = dropped.filter((p) => !isBlankPin(p));
+        const referenced = await pinsReferenced(
+          dropped.map((p) => p.id),
+          t,
+        );
+        const worked = dropped.filter((p) => pinHoldsData(p) || referenced.has(p.id));
         if (worked.length) {
           throw new AppError(
             409,
             'cavities_in_use',
-            `Cavities ${worked.map((p) => p.cavity).join(', ')} hold decisions or wire data; clear them before removing them.`,
+            `Cavities ${worked.map((p) => p.cavity).join(', ')} hold data or are linked from other pins or feeds; clear them before removing them.`,
           );
         }
         await Pin.destroy({ where: { id: dropped.map((p) => p.id) }, transaction: t });

@@ -267,17 +267,3 @@ export async function batchUpdatePins(
     return [...saved.values()].map(toPinDto);
   });
 }
-
-/** Pins blank enough to drop when a connector shrinks. */
-export function isBlankPin(pin: Pin): boolean {
-  return (
-    pin.disposition === 'undecided' &&
-    !pin.function &&
-    !pin.colour &&
-    pin.sizeMm2 == null &&
-    !pin.destination &&
-    pin.destinationPinId == null &&
-    pin.destinationFeedId == null &&
-    !pin.notes
-  );
-}

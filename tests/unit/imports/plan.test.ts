@@ -1,11 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { ImportField } from '#shared/schemas/imports.schema.ts';
-import {
-  BLANK_VALUES,
-  planImport,
-  type PinData,
-  type PlanContext,
-} from '#server/modules/imports/plan.ts';
+import { BLANK_PIN_VALUES } from '#shared/schemas/pin-map.schema.ts';
+import { planImport, type PinData, type PlanContext } from '#server/modules/imports/plan.ts';
 import type { PinRow } from '#server/modules/imports/rows.ts';
 
 let nextId = 100;
@@ -15,7 +11,7 @@ function pin(
   position: number,
   set: Partial<PinData> = {},
 ): PinData {
-  return { ...BLANK_VALUES, id: nextId++, connectorId, cavity, position, version: 3, ...set };
+  return { ...BLANK_PIN_VALUES, id: nextId++, connectorId, cavity, position, version: 3, ...set };
 }
 
 function context(pins: PinData[], extra: Partial<PlanContext> = {}): PlanContext {
