@@ -7,7 +7,7 @@ import {
 } from 'sequelize';
 import { ZodError } from 'zod';
 import type { ApiErrorBody, FieldIssue } from '#shared/schemas/common.schema.ts';
-import { AppError } from '../lib/errors.ts';
+import { AppError, busy } from '../lib/errors.ts';
 import { logger } from '../lib/logger.ts';
 import { isBusyError } from '../lib/transaction.ts';
 
@@ -54,17 +54,7 @@ function toAppError(err: unknown): AppError {
   if (err instanceof SequelizeValidationError) {
     return new AppError(400, 'validation_failed', err.errors.map((e) => e.message).join('; '));
   }
-  if (isBusyError(err)) {
-    return new AppError(
-      503,
-      'busy',
-      'The database is busy; nothing was saved. Try again.',
-      undefined,
-      {
-        'Retry-After': '2',
-      },
-    );
-  }
+  if (isBusyError(err)) return busy();
   const e = err as { status?: number; type?: string; code?: string; message?: string };
   // body-parser and multer errors carry their own status.
   if (e?.type === 'entity.parse.failed') {

@@ -83,7 +83,7 @@ export function SelectField({
       <select
         id={fieldId}
         aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${fieldId}-error` : undefined}
+        aria-describedby={error ? `${fieldId}-error` : hint ? `${fieldId}-hint` : undefined}
         className={`${CONTROL} ${className}`}
         {...rest}
       >
@@ -114,6 +114,7 @@ export function TextAreaField({
       <textarea
         id={fieldId}
         aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${fieldId}-error` : hint ? `${fieldId}-hint` : undefined}
         className={`${CONTROL} min-h-20 ${className}`}
         {...rest}
       />

@@ -8,7 +8,7 @@ const ACTIONS: Record<string, string> = {
   create: 'Created',
   update: 'Changed',
   delete: 'Removed',
-  bulk_update: 'Changed several',
+  bulk_update: 'Set a selection of',
   batch_update: 'Changed several',
   import: 'Imported',
   bench_record: 'Bench work on',
@@ -25,7 +25,7 @@ const ENTITIES: Record<string, string> = {
   revision: 'Revision',
 };
 
-/** "Changed pin", "Changed several pins", "Bench work on pin". */
+/** "Changed pin", "Changed several pins", "Set a selection of pins", "Bench work on pin". */
 function describe(action: string, entityType: string): string {
   const entity = ENTITIES[entityType]?.toLowerCase() ?? entityType;
   const several = action === 'bulk_update' || action === 'batch_update';

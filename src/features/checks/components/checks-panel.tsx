@@ -7,6 +7,7 @@ import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { AllClearLabel, SeverityLabel } from '@/components/ui/severity.tsx';
+import { pinNames } from '#shared/domain/pin-names.ts';
 import { paths } from '@/config/paths.ts';
 import { useCheckReport } from '../api/run-checks.ts';
 import {
@@ -52,10 +53,7 @@ export function ChecksPanel({
   const findings = useMemo(() => sortFindings(report.data?.findings ?? []), [report.data]);
 
   const names = useMemo(() => {
-    const connectorLabel = new Map((connectors ?? []).map((c) => [c.id, c.label]));
-    const pinName = new Map(
-      (pins ?? []).map((p) => [p.id, `${connectorLabel.get(p.connectorId) ?? '?'}-${p.cavity}`]),
-    );
+    const pinName = pinNames({ connectors: connectors ?? [], pins: pins ?? [] });
     const feedName = new Map((feeds ?? []).map((f) => [f.id, f.name]));
     return { pin: (id: number) => pinName.get(id), feed: (id: number) => feedName.get(id) };
   }, [pins, connectors, feeds]);

@@ -1,4 +1,5 @@
 /** How a feed reads in the table and the pickers: fuse colours, sources, pins, check results. */
+import { cavityName } from '#shared/domain/pin-names.ts';
 import { fuseColour } from '#shared/domain/electrical/fuses.ts';
 import { SEVERITIES, type Finding, type Severity } from '#shared/schemas/checks.schema.ts';
 import { FEED_SOURCE_LABELS, type Feed } from '#shared/schemas/feeds.schema.ts';
@@ -37,7 +38,7 @@ export function pinChoices(pins: readonly Pin[], connectors: readonly Connector[
     )
     .map((p) => {
       const connectorLabel = byId.get(p.connectorId)?.label ?? '?';
-      const name = `${connectorLabel}-${p.cavity}`;
+      const name = cavityName(connectorLabel, p.cavity);
       const fn = p.function.trim();
       return { id: p.id, name, label: fn ? `${name} ${fn}` : name, connectorLabel };
     });

@@ -57,7 +57,11 @@ export function CellContent({
           <span className="font-mono text-[0.8125rem]">
             <span aria-hidden>→ </span>
             {row.linkedDestination}
-            <span className="sr-only"> (linked vehicle-side cavity)</span>
+            <span className="sr-only">
+              {pin.destinationFeedId != null
+                ? ' (joined to this new feed)'
+                : ' (linked vehicle-side cavity)'}
+            </span>
           </span>
         );
       }

@@ -6,7 +6,7 @@ import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { faceCavities, type FaceCavity } from '../lib/face.ts';
 import type { DispositionCounts } from '../lib/progress.ts';
-import { pinName } from '../lib/rows.ts';
+import { cavityName } from '#shared/domain/pin-names.ts';
 import { DispositionGlyphPath, DispositionLabel } from '@/components/ui/disposition-glyph.tsx';
 import { WireColour } from '@/components/ui/wire-colour.tsx';
 
@@ -25,7 +25,7 @@ const MARGIN = 12;
 
 function describeCavity(connector: Connector, pin: Pin, unit: SizeUnit): string {
   const parts = [
-    `Cavity ${pinName(connector.label, pin.cavity)}`,
+    `Cavity ${cavityName(connector.label, pin.cavity)}`,
     pin.function || 'no function recorded',
     pin.colour ? `wire ${pin.colour}, ${describeWireColour(pin.colour)}` : 'no wire colour',
     pin.sizeMm2 != null ? formatWireSize(pin.sizeMm2, unit) : 'no size',
@@ -164,7 +164,7 @@ export const ConnectorFace = memo(function ConnectorFace({
           className="pointer-events-none absolute z-30 w-64 rounded-md border border-rule-strong bg-paper-raised px-3 py-2 text-sm shadow-lg"
           style={{ left: Math.min(tip.x, Math.max(0, width - 256)), top: tip.y + BOX + 6 }}
         >
-          <p className="font-mono font-semibold">{pinName(connector.label, shown.pin.cavity)}</p>
+          <p className="font-mono font-semibold">{cavityName(connector.label, shown.pin.cavity)}</p>
           <p className="text-ink">
             {shown.pin.function || <span className="text-ink-faint">No function recorded</span>}
           </p>

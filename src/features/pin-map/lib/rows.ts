@@ -1,3 +1,4 @@
+import { cavityName } from '#shared/domain/pin-names.ts';
 import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
 
 /** A pin as the grid shows it: with its connector's label and the name it goes by ("E1-5"). */
@@ -28,15 +29,13 @@ export interface DestinationCavity {
   function: string;
 }
 
-export const pinName = (connectorLabel: string, cavity: string) => `${connectorLabel}-${cavity}`;
-
 /** Connector labels by id; a pin whose connector is gone (mid-refetch) shows "?". */
 export function connectorLabels(connectors: readonly Connector[]): Map<number, string> {
   return new Map(connectors.map((c) => [c.id, c.label]));
 }
 
 export function nameOfPin(pin: Pin, labels: Map<number, string>): string {
-  return pinName(labels.get(pin.connectorId) ?? '?', pin.cavity);
+  return cavityName(labels.get(pin.connectorId) ?? '?', pin.cavity);
 }
 
 /** The cavities of vehicle-side connectors, in connector and face order. */
@@ -49,7 +48,7 @@ export function destinationCavities(
     .filter((p) => vehicle.has(p.connectorId))
     .map((p) => ({
       pinId: p.id,
-      name: pinName(vehicle.get(p.connectorId)!.label, p.cavity),
+      name: cavityName(vehicle.get(p.connectorId)!.label, p.cavity),
       function: p.function,
     }));
 }

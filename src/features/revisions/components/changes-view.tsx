@@ -2,6 +2,11 @@ import { DISPOSITION_INFO, type Disposition } from '#shared/domain/dispositions.
 import { countChanges } from '#shared/domain/revisions/diff.ts';
 import { SIGNAL_CLASS_LABELS, type SignalClass } from '#shared/domain/signal-classes.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
+import {
+  RETURN_PATH_LABELS,
+  WIRE_ZONE_LABELS,
+  type FeedWire,
+} from '#shared/schemas/feeds.schema.ts';
 import type { FieldChange, RevisionChanges } from '#shared/schemas/revisions.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 
@@ -46,14 +51,8 @@ function show(field: string, value: unknown, unit: SizeUnit): string {
   if (field === 'runLengthM') return `${String(value)} m`;
   if (field === 'loadCurrentA' || field === 'fuseA') return `${String(value)} A`;
   if (field === 'wire' && typeof value === 'object') {
-    const w = value as {
-      sizeMm2: number;
-      lengthM: number;
-      zone: string;
-      returnPath: string;
-      colour: string;
-    };
-    return `${formatWireSize(w.sizeMm2, unit)}, ${w.lengthM} m, ${w.zone === 'engine_bay' ? 'engine bay' : 'outside engine bay'}, ${w.returnPath} return${w.colour ? `, ${w.colour}` : ''}`;
+    const w = value as FeedWire;
+    return `${formatWireSize(w.sizeMm2, unit)}, ${w.lengthM} m, ${WIRE_ZONE_LABELS[w.zone].toLowerCase()}, ${RETURN_PATH_LABELS[w.returnPath].toLowerCase()}${w.colour ? `, ${w.colour}` : ''}`;
   }
   if (typeof value === 'object') return JSON.stringify(value);
   return String(value);
