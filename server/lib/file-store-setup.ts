@@ -1,8 +1,9 @@
+import { startOnPortOrAnother } from './ports.ts';
 import path from 'node:path';
 import type { Env } from '../config/env.ts';
 import { S3FileStore, setFileStore, uploadDir } from './file-store.ts';
 import { logger } from './logger.ts';
-import { S3_FAKE_CREDENTIALS, startS3Fake, type S3Fake } from './s3-fake.ts';
+import { S3_FAKE_CREDENTIALS, startS3Fake } from './s3-fake.ts';
 
 /**
  * Chooses where uploaded files go. A configured S3 endpoint wins; in demo mode without one, a local
@@ -19,14 +20,9 @@ export async function startFileStore(env: Env): Promise<() => Promise<void>> {
     return async () => {};
   }
   const directory = path.join(env.DATA_DIR, 's3');
-  let fake: S3Fake;
-  try {
-    fake = await startS3Fake({ directory, bucket: env.S3_BUCKET, port: env.S3_FAKE_PORT });
-  } catch (err) {
-    if ((err as NodeJS.ErrnoException).code !== 'EADDRINUSE') throw err;
-    fake = await startS3Fake({ directory, bucket: env.S3_BUCKET, port: 0 });
-    logger.warn({ wanted: env.S3_FAKE_PORT, port: fake.port }, 'S3 fake port busy; using another');
-  }
+  const fake = await startOnPortOrAnother('S3 fake', env.S3_FAKE_PORT, (port) =>
+    startS3Fake({ directory, bucket: env.S3_BUCKET, port }),
+  );
   const store = new S3FileStore({
     endpoint: fake.endpoint,
     bucket: env.S3_BUCKET,

@@ -31,3 +31,12 @@ export async function inTransaction<T>(
     }
   }
 }
+
+/** Runs `work` in the caller's transaction when there is one, else in a transaction of its own. */
+export function inTransactionOf<T>(
+  sequelize: Sequelize,
+  transaction: Transaction | undefined,
+  work: (t: Transaction) => Promise<T>,
+): Promise<T> {
+  return transaction ? work(transaction) : inTransaction(sequelize, work);
+}

@@ -6,6 +6,7 @@ export const PAPER_SIZES = ['A4', 'Letter'] as const;
 export const SIZE_UNITS = ['mm2', 'awg'] as const;
 export type PaperSize = (typeof PAPER_SIZES)[number];
 export type SizeUnit = (typeof SIZE_UNITS)[number];
+export const SIZE_UNIT_LABELS: Record<SizeUnit, string> = { mm2: 'mm²', awg: 'AWG' };
 
 /** SAE J1128 insulation temperature ratings, °C: GPT 85, TWP 105, TXL/GXL/SXL 125. */
 export const INSULATION_RATINGS_C = [60, 75, 80, 85, 90, 105, 125, 200] as const;

@@ -8,7 +8,7 @@ import { db } from '../../db/index.ts';
 import { Feed, FeedLoad, Pin } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound, versionConflict } from '../../lib/errors.ts';
-import { inTransaction } from '../../lib/transaction.ts';
+import { inTransaction, inTransactionOf } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
 
@@ -224,7 +224,7 @@ export async function createFeed(
     });
     return created;
   };
-  return transaction ? work(transaction) : inTransaction(db(), work);
+  return inTransactionOf(db(), transaction, work);
 }
 
 export async function updateFeed(

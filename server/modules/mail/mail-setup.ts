@@ -1,5 +1,6 @@
 import type { Env } from '../../config/env.ts';
 import { logger } from '../../lib/logger.ts';
+import { startOnPortOrAnother } from '../../lib/ports.ts';
 import { startFakeSmtp, type FakeSmtp } from './fake-smtp.ts';
 import {
   configureMail,
@@ -24,16 +25,9 @@ export async function startMail(env: Env): Promise<() => Promise<void>> {
       from: env.MAIL_FROM,
     });
   } else if (env.DEMO) {
-    try {
-      fake = await startFakeSmtp({ port: env.FAKE_SMTP_PORT });
-    } catch (err) {
-      if ((err as NodeJS.ErrnoException).code !== 'EADDRINUSE') throw err;
-      fake = await startFakeSmtp({ port: 0 });
-      logger.warn(
-        { wanted: env.FAKE_SMTP_PORT, port: fake.port },
-        'fake SMTP port busy; using another',
-      );
-    }
+    fake = await startOnPortOrAnother('fake SMTP', env.FAKE_SMTP_PORT, (port) =>
+      startFakeSmtp({ port }),
+    );
     configureMail({ host: fake.host, port: fake.port, secure: false, from: env.MAIL_FROM }, fake);
     logger.info(
       { port: fake.port },

@@ -11,7 +11,7 @@ import { db } from '../../db/index.ts';
 import { Connector, Feed, FeedLoad, Pin } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, badRequest, notFound, versionConflict } from '../../lib/errors.ts';
-import { inTransaction } from '../../lib/transaction.ts';
+import { inTransaction, inTransactionOf } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 import {
   findConversionInWorkshop,
@@ -161,7 +161,7 @@ export async function createConnector(
     });
     return toConnectorDto(connector);
   };
-  return transaction ? work(transaction) : inTransaction(db(), work);
+  return inTransactionOf(db(), transaction, work);
 }
 
 export async function updateConnector(

@@ -8,7 +8,11 @@ import {
   parseWireSize,
 } from '#shared/domain/wire-sizes.ts';
 import { RETURN_PATH_LABELS, WIRE_ZONE_LABELS } from '#shared/schemas/feeds.schema.ts';
-import { INSULATION_RATINGS_C, type SizeUnit } from '#shared/schemas/workshop.schema.ts';
+import {
+  INSULATION_RATINGS_C,
+  SIZE_UNIT_LABELS,
+  type SizeUnit,
+} from '#shared/schemas/workshop.schema.ts';
 import { SelectField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { ApiError } from '@/lib/api-client.ts';
@@ -20,8 +24,6 @@ import {
   type CalcFormValues,
 } from '../lib/calc-form.ts';
 import { CalcResultView } from './calc-result.tsx';
-
-const UNIT_LABELS: Record<SizeUnit, string> = { mm2: 'mm²', awg: 'AWG' };
 
 /** Two or more choices as a row of toggle buttons (a radio group underneath). */
 function UnitToggle({ value, onChange }: { value: SizeUnit; onChange: (unit: SizeUnit) => void }) {
@@ -45,7 +47,7 @@ function UnitToggle({ value, onChange }: { value: SizeUnit; onChange: (unit: Siz
               // Invisible but covering the label, so the whole button is the radio.
               className="absolute inset-0 cursor-pointer opacity-0"
             />
-            {UNIT_LABELS[unit]}
+            {SIZE_UNIT_LABELS[unit]}
           </label>
         ))}
       </div>
@@ -111,7 +113,7 @@ export function CalculatorScreen({
         {text('lengthM', 'One-way length', 'From the fuse to the load.', 'm')}
         <UnitToggle value={values.unit} onChange={switchUnit} />
         <TextField
-          label={`Wire size (${UNIT_LABELS[values.unit]})`}
+          label={`Wire size (${SIZE_UNIT_LABELS[values.unit]})`}
           name="size"
           autoComplete="off"
           list={listId}

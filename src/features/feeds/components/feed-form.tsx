@@ -21,7 +21,11 @@ import {
   WIRE_ZONES,
   type Feed,
 } from '#shared/schemas/feeds.schema.ts';
-import { INSULATION_RATINGS_C, type SizeUnit } from '#shared/schemas/workshop.schema.ts';
+import {
+  INSULATION_RATINGS_C,
+  SIZE_UNIT_LABELS,
+  type SizeUnit,
+} from '#shared/schemas/workshop.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextAreaField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
@@ -45,8 +49,6 @@ import {
 } from '../lib/feed-form.ts';
 import { LoadsEditor } from './loads-editor.tsx';
 import { PinOptions } from './pin-options.tsx';
-
-const SIZE_UNIT_LABEL: Record<SizeUnit, string> = { mm2: 'mm²', awg: 'AWG' };
 
 function Group({
   legend,
@@ -364,7 +366,7 @@ export function FeedForm({
 
           <Group legend="Wire" columns="sm:grid-cols-2 lg:grid-cols-3">
             <TextField
-              label={`Size (${SIZE_UNIT_LABEL[sizeUnit]})`}
+              label={`Size (${SIZE_UNIT_LABELS[sizeUnit]})`}
               name="wireSize"
               list={sizeListId}
               autoComplete="off"

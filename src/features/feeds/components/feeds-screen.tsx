@@ -3,7 +3,7 @@ import { useSearchParams } from 'react-router';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
 import type { Feed } from '#shared/schemas/feeds.schema.ts';
 import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
-import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
+import { SIZE_UNIT_LABELS, type SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
@@ -101,8 +101,8 @@ export function FeedsScreen({
           <h2 className="text-xl font-semibold">Feeds</h2>
           <p className="mt-1 max-w-3xl text-sm text-ink-soft">
             The new fused feeds this conversion adds: where each takes its power, its fuse and
-            relay, the wire and the loads it carries. Sizes in {sizeUnit === 'awg' ? 'AWG' : 'mm²'},
-            the workshop’s unit.
+            relay, the wire and the loads it carries. Sizes in {SIZE_UNIT_LABELS[sizeUnit]}, the
+            workshop’s unit.
           </p>
         </div>
         {readOnly ? null : (
