@@ -1,6 +1,6 @@
 import bcrypt from 'bcryptjs';
 import type { Sequelize, Transaction } from 'sequelize';
-import { benchItems } from '#shared/domain/bench.ts';
+import { benchPlanItems } from '#shared/domain/bench.ts';
 import { checkReport } from '#shared/domain/checks/run-checks.ts';
 import { revisionHash } from '#shared/domain/revisions/content-hash.ts';
 import {
@@ -275,16 +275,20 @@ async function seedSignedOffRevision(
     { transaction },
   );
   // The technician has started: the transmission and evaporative pins are de-pinned or cut back, and
-  // the first few continuity readings are in.
+  // the first joined wires are in with their continuity readings.
   const technician = await User.findByPk(users.technician!, { transaction });
-  for (const [i, item] of benchItems(snapshot).slice(0, 14).entries()) {
+  const items = benchPlanItems(snapshot);
+  const wired = items.filter((i) => i.reading !== null && i.kind === 'pin').slice(0, 6);
+  for (const [i, item] of [...items.slice(0, 14), ...wired].entries()) {
+    const tested = i >= 14;
     await BenchRecord.create(
       {
         revisionId: revision.id,
-        pinId: item.pin.id,
-        done: true,
-        tested: i < 6,
-        resistanceOhm: i < 6 ? Number((0.05 + 0.01 * i).toFixed(2)) : null,
+        itemKey: item.key,
+        ticksJson: JSON.stringify(
+          Object.fromEntries(item.ticks.map((t) => [t.key, t.key === 'tested' ? tested : true])),
+        ),
+        reading: tested ? Number((0.05 + 0.01 * (i - 14)).toFixed(2)) : null,
         note: i === 2 ? 'Terminal lock tab was broken; replaced the housing wedge.' : '',
         recordedById: technician!.id,
         recordedByName: technician!.name,

@@ -15,7 +15,7 @@ import {
 } from './modules/attachments/attachments.routes.ts';
 import { authRoutes } from './modules/auth/auth.routes.ts';
 import { auditRoutes } from './modules/audit/audit.routes.ts';
-import { benchRoutes } from './modules/bench/bench.routes.ts';
+import { benchPhotoRoutes, benchRoutes } from './modules/bench/bench.routes.ts';
 import { calcRoutes } from './modules/calc/calc.routes.ts';
 import { checksRoutes } from './modules/checks/checks.routes.ts';
 import { conversionsRoutes } from './modules/conversions/conversions.routes.ts';
@@ -103,6 +103,7 @@ export function createApp({ env, clientDir }: AppOptions) {
     connectorAttachmentRoutes,
   );
   api.use('/attachments', authenticate, attachmentRoutes);
+  api.use('/bench-photos', authenticate, benchPhotoRoutes);
   api.use('/library', authenticate, libraryRoutes);
   api.use('/pinouts', authenticate, pinoutRoutes);
   api.use('/pins', authenticate, pinRoutes);

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { BenchNotice } from './bench.schema.ts';
 import { optionalText, requiredText } from './common.schema.ts';
 
 export const SYSTEM_VOLTAGES = [12, 24] as const;
@@ -38,3 +39,6 @@ export const Conversion = z.object({
   updatedAt: z.string(),
 });
 export type Conversion = z.infer<typeof Conversion>;
+
+/** A row of the conversions list: the conversion and what its bench has to know. */
+export type ConversionListItem = Conversion & { bench: BenchNotice | null };

@@ -73,7 +73,11 @@ const ACCESS: Record<string, Role[] | typeof PUBLIC> = {
   'GET /api/conversions/:id/audit': ['admin', 'reviewer', 'builder'],
   'GET /api/admin/outbox': ['admin'],
   'GET /api/conversions/:id/bench': ALL,
-  'PUT /api/conversions/:id/revisions/:number/bench/:pinId': ['technician', 'admin'],
+  'GET /api/conversions/:id/revisions/:number/bench': ALL,
+  'GET /api/conversions/:id/revisions/:number/test-plan': ALL,
+  'PUT /api/conversions/:id/revisions/:number/bench/:key': ['technician', 'admin'],
+  'POST /api/conversions/:id/revisions/:number/bench/:key/photos': ['technician', 'admin'],
+  'GET /api/bench-photos/:id': ALL,
 };
 
 let ctx: TestContext;

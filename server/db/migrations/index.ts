@@ -6,6 +6,7 @@ import { feeds } from './0003-feeds.ts';
 import { importsLibrary } from './0004-imports-library.ts';
 import { reviews } from './0005-reviews.ts';
 import { bench } from './0006-bench.ts';
+import { benchItems } from './0007-bench-items.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -18,7 +19,15 @@ export interface Migration {
 }
 
 /** Every migration in order. Add new ones at the end; never edit one that has shipped. */
-export const MIGRATIONS: Migration[] = [foundation, pinMap, feeds, importsLibrary, reviews, bench];
+export const MIGRATIONS: Migration[] = [
+  foundation,
+  pinMap,
+  feeds,
+  importsLibrary,
+  reviews,
+  bench,
+  benchItems,
+];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {
   const umzug = new Umzug<Sequelize>({

@@ -1,7 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import { Attachment } from './attachment.model.ts';
 import { AuditEvent } from './audit-event.model.ts';
-import { BenchRecord } from './bench-record.model.ts';
+import { BenchPhoto, BenchRecord } from './bench-record.model.ts';
 import { Connector } from './connector.model.ts';
 import { Conversion } from './conversion.model.ts';
 import { Feed, FeedLoad } from './feed.model.ts';
@@ -16,6 +16,7 @@ import { Workshop } from './workshop.model.ts';
 export {
   Attachment,
   AuditEvent,
+  BenchPhoto,
   BenchRecord,
   Connector,
   Conversion,
@@ -52,6 +53,7 @@ export function initModels(sequelize: Sequelize) {
   MailOutbox.initModel(sequelize);
   Invitation.initModel(sequelize);
   BenchRecord.initModel(sequelize);
+  BenchPhoto.initModel(sequelize);
   PinImport.initModel(sequelize);
   ImportMapping.initModel(sequelize);
   PinoutTemplate.initModel(sequelize);

@@ -6,10 +6,17 @@ import type {
 } from '#shared/schemas/conversions.schema.ts';
 import { actorOf } from '../../lib/actor.ts';
 import { parsedParams } from '../../lib/request.ts';
+import { benchNotices } from '../bench/bench.service.ts';
 import * as conversionsService from './conversions.service.ts';
 
+/** The list carries, for each conversion, the revision its bench works from and the rework owed. */
 export async function list(req: Request, res: Response) {
-  res.json({ conversions: await conversionsService.listConversions(actorOf(req)) });
+  const actor = actorOf(req);
+  const [conversions, bench] = await Promise.all([
+    conversionsService.listConversions(actor),
+    benchNotices(actor),
+  ]);
+  res.json({ conversions: conversions.map((c) => ({ ...c, bench: bench.get(c.id) ?? null })) });
 }
 
 export async function get(req: Request, res: Response) {

@@ -25,6 +25,7 @@ import type { Actor } from '../../lib/actor.ts';
 import { AppError, forbidden, notFound, unprocessable } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
+import { carryBenchWork, noticeToBench } from '../bench/bench-carry.service.ts';
 import { checkConversion } from '../checks/checks.service.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
 import { appLink, kickMail, queueMail } from '../mail/outbox.service.ts';
@@ -244,6 +245,7 @@ async function decide(
         : { number, comment: decision.comment },
     });
     await notifySubmitter(t, actor, revision, decision.status, signing ? '' : decision.comment);
+    if (signing) await noticeToBench(t, actor, revision, await carryBenchWork(t, revision));
     return toSummary(revision);
   });
   kickMail();
