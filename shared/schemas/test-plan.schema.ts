@@ -1,3 +1,5 @@
+import type { BenchTick } from './bench.schema.ts';
+
 export const TEST_PHASES = ['unplugged', 'powered', 'first_start'] as const;
 export type TestPhase = (typeof TEST_PHASES)[number];
 
@@ -35,6 +37,8 @@ export interface TestPlan {
 export type TestVerdict = 'pass' | 'fail' | 'unknown';
 
 export interface TestResult {
+  /** Every tick of the record: a wire's continuity shares its record with the checklist item. */
+  ticks: Partial<Record<BenchTick, boolean>>;
   reading: number | null;
   passed: boolean;
   failed: boolean;

@@ -6,6 +6,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Role } from '#shared/auth/roles.ts';
 import type { Feed } from '#shared/schemas/feeds.schema.ts';
+import type { TestPlanResponse } from '#shared/schemas/test-plan.schema.ts';
 import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
 import type { WorkshopSettings } from '#shared/schemas/workshop.schema.ts';
 import { createOtherWorkshop } from '../factories/workshop.factory.ts';
@@ -239,6 +240,23 @@ describe('GET /api/conversions/:id/revisions/:number/worksheet.pdf', () => {
     expect(all).toContain(revision.hash.slice(0, 12));
     expect(all).not.toContain('Changed after sign-off');
     for (const page of pages) expect(page.text).not.toMatch(/\bDRAFT\b/);
+    // The test plan is printed: every wire's expected resistance and limit as the API gives them.
+    const testPlan = (
+      await request(ctx.app)
+        .get(`/api/conversions/${id}/revisions/1/test-plan`)
+        .set('Authorization', await ctx.authFor('technician'))
+    ).body as TestPlanResponse;
+    const first = pages.findIndex((p) => p.text.includes('ECU unplugged, battery disconnected'));
+    expect(first).toBeGreaterThan(0);
+    const planText = pages
+      .slice(first)
+      .map((p) => p.text)
+      .join('\n');
+    expect(planText).toContain('Key on, ECU plugged in');
+    expect(planText).toContain('First start');
+    const wires = testPlan.plan.steps.filter((s) => s.phase === 'unplugged' && s.unit === 'Ω');
+    expect(wires.length).toBeGreaterThan(3);
+    for (const w of wires) expect(planText).toContain(w.limitText);
   }, 60_000);
 
   it('answers 404 for an unknown revision and for another workshop', async () => {

@@ -277,6 +277,7 @@ export async function getTestPlan(
     const r = records.get(step.key);
     if (!r) continue;
     results[step.key] = {
+      ticks: r.ticks,
       reading: r.reading,
       passed: r.ticks.passed === true,
       failed: r.ticks.failed === true,

@@ -17,6 +17,7 @@ import {
   drawFuseSchedule,
   FUSES_TITLE,
 } from './sections/materials.ts';
+import { drawTestPlan, TEST_PLAN_TITLE } from './sections/test-plan.ts';
 import { drawTitlePage, fillContents } from './sections/title-page.ts';
 import { Sheet, type SheetOptions } from './sheet.ts';
 import { cleanText } from './text.ts';
@@ -63,6 +64,7 @@ export async function renderWorksheet(
     FUSES_TITLE,
     ACTIONS_TITLE,
     ...snapshot.connectors.map(connectorTitle),
+    TEST_PLAN_TITLE,
   ];
   const contents = await drawTitlePage(sheet, index, titles);
   await sheet.pause();
@@ -71,6 +73,7 @@ export async function renderWorksheet(
   await drawFuseSchedule(sheet, index);
   await drawActions(sheet, index);
   for (const connector of snapshot.connectors) await drawConnector(sheet, index, connector);
+  await drawTestPlan(sheet, index);
 
   fillContents(sheet, contents);
   sheet.drawFooters();

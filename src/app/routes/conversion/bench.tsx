@@ -1,11 +1,13 @@
-import { Link, useOutletContext } from 'react-router';
+import { Link, useOutletContext, useSearchParams } from 'react-router';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
 import { useCan } from '@/features/auth/hooks/use-can.ts';
 import { useBenchSheet } from '@/features/bench/api/bench.ts';
+import { useTestPlan } from '@/features/bench/api/test-plan.ts';
 import { BenchChecklist } from '@/features/bench/components/bench-checklist.tsx';
+import { TestPlanView } from '@/features/bench/components/test-plan.tsx';
 import { revisionWorksheetHref } from '@/features/revisions/api/revisions.ts';
 import { useWorkshop } from '@/features/workshop/api/workshop.ts';
 
@@ -14,6 +16,8 @@ export function ConversionBenchRoute() {
   const sheet = useBenchSheet(conversion.id);
   const workshop = useWorkshop();
   const canRecord = useCan('bench:record');
+  const [search, setSearch] = useSearchParams();
+  const view = search.get('view') === 'test-plan' ? 'test-plan' : 'checklist';
 
   if (sheet.isPending) return <Loading what="Loading the bench checklist" />;
   if (sheet.isError) {
@@ -60,12 +64,56 @@ export function ConversionBenchRoute() {
         circuit before first power-up, ideally from a current-limited supply. Local codes and
         licensed practice prevail.
       </Notice>
-      <BenchChecklist
-        conversionId={conversion.id}
-        sheet={sheet.data}
-        unit={workshop.data?.sizeUnit ?? 'mm2'}
-        canRecord={canRecord}
-      />
+      <div role="tablist" aria-label="Bench" className="flex gap-1">
+        {(
+          [
+            ['checklist', 'Checklist'],
+            ['test-plan', 'Test plan'],
+          ] as const
+        ).map(([v, label]) => (
+          <button
+            key={v}
+            type="button"
+            role="tab"
+            aria-selected={view === v}
+            onClick={() => setSearch(v === 'checklist' ? {} : { view: v }, { replace: true })}
+            className={`min-h-11 rounded-md border px-5 font-semibold ${view === v ? 'border-ink bg-ink text-paper' : 'border-rule-strong bg-paper-raised'}`}
+          >
+            {label}
+          </button>
+        ))}
+      </div>
+      {view === 'checklist' ? (
+        <BenchChecklist
+          conversionId={conversion.id}
+          sheet={sheet.data}
+          unit={workshop.data?.sizeUnit ?? 'mm2'}
+          canRecord={canRecord}
+        />
+      ) : (
+        <BenchTestPlan conversionId={conversion.id} number={r.number} canRecord={canRecord} />
+      )}
     </div>
   );
+}
+
+function BenchTestPlan({
+  conversionId,
+  number,
+  canRecord,
+}: {
+  conversionId: number;
+  number: number;
+  canRecord: boolean;
+}) {
+  const plan = useTestPlan(conversionId, number);
+  if (plan.isPending) return <Loading what="Loading the test plan" />;
+  if (plan.isError) {
+    return (
+      <Notice tone="fault" title="The test plan could not be loaded">
+        {plan.error.message}
+      </Notice>
+    );
+  }
+  return <TestPlanView conversionId={conversionId} data={plan.data} canRecord={canRecord} />;
 }

@@ -6,6 +6,8 @@ import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
 import { useSession } from '@/features/auth/api/get-session.ts';
 import { useCan } from '@/features/auth/hooks/use-can.ts';
+import { useRevisionBenchSheet } from '@/features/bench/api/bench.ts';
+import { BenchPhotosPanel } from '@/features/bench/components/bench-photos-panel.tsx';
 import {
   revisionWorksheetHref,
   useRevision,
@@ -27,6 +29,11 @@ export function ConversionRevisionRoute() {
   const workshop = useWorkshop();
   const mayReview = useCan('revision:review');
   const mayComment = useCan('revision:comment');
+  const bench = useRevisionBenchSheet(
+    conversion.id,
+    number,
+    revision.data?.status === 'signed_off',
+  );
 
   if (revision.isPending) return <Loading what={`Loading revision ${number}`} />;
   if (revision.isError) {
@@ -102,6 +109,7 @@ export function ConversionRevisionRoute() {
           There is no earlier signed-off revision to compare with: review the whole plan.
         </Notice>
       )}
+      {bench.data ? <BenchPhotosPanel sheet={bench.data} /> : null}
       <FrozenFindings findings={r.findings} />
       <CommentsPanel conversionId={conversion.id} revision={r} canComment={mayComment} />
     </div>

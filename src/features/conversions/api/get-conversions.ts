@@ -1,9 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Conversion } from '#shared/schemas/conversions.schema.ts';
+import type { ConversionListItem } from '#shared/schemas/conversions.schema.ts';
 import { api } from '@/lib/api-client.ts';
 import { conversionKeys } from './keys.ts';
 
-export const getConversions = () => api.get<{ conversions: Conversion[] }>('/api/conversions');
+export const getConversions = () =>
+  api.get<{ conversions: ConversionListItem[] }>('/api/conversions');
 
 export const getConversionsQueryOptions = () =>
   queryOptions({

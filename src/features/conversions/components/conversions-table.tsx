@@ -1,5 +1,5 @@
 import { Link } from 'react-router';
-import type { Conversion } from '#shared/schemas/conversions.schema.ts';
+import type { ConversionListItem as Conversion } from '#shared/schemas/conversions.schema.ts';
 import { SortableTable, type SortableColumn } from '@/components/ui/sortable-table.tsx';
 import { paths } from '@/config/paths.ts';
 
@@ -38,6 +38,38 @@ const columns: SortableColumn<Conversion>[] = [
     accessorFn: (c) => c.createdBy?.name ?? '—',
     header: 'Started by',
     sortFn: 'text',
+  },
+  {
+    id: 'bench',
+    accessorFn: (c) => c.bench?.signedAt ?? '',
+    header: 'Bench',
+    cell: ({ row }) => {
+      const bench = row.original.bench;
+      if (!bench) return <span className="text-ink-faint">Nothing signed off</span>;
+      // A sign-off in the last three days is news for the bench.
+      const fresh = Date.now() - new Date(bench.signedAt).getTime() < 3 * 86_400_000;
+      return (
+        <span className="flex flex-wrap items-center gap-2">
+          {fresh ? (
+            <span className="rounded border border-copper px-1.5 text-xs font-bold uppercase text-copper">
+              New
+            </span>
+          ) : null}
+          <Link
+            to={paths.conversionBench.getHref(row.original.id)}
+            className="underline decoration-rule-strong underline-offset-4"
+          >
+            Revision {bench.revisionNumber} signed off {dateFormat.format(new Date(bench.signedAt))}
+          </Link>
+          {bench.reworkOpen ? (
+            <span className="font-semibold text-caution">
+              <span aria-hidden>! </span>
+              {bench.reworkOpen} to rework
+            </span>
+          ) : null}
+        </span>
+      );
+    },
   },
   {
     id: 'updatedAt',
