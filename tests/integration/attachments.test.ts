@@ -279,3 +279,59 @@ describe('the folder store used without an S3 endpoint', () => {
     }
   });
 });
+
+describe('bench photos through the same S3 path', () => {
+  const photoUrl = (key: string) =>
+    `/api/conversions/${ctx.demo.conversions.signedOff}/revisions/1/bench/${encodeURIComponent(key)}/photos`;
+
+  it('stores a technician’s photo of a pin under a UUID and lists it on the revision’s sheet', async () => {
+    const tech = await ctx.authFor('technician');
+    const before = await bucketKeys();
+    const res = await request(ctx.app)
+      .post(photoUrl('pin:E2-2'))
+      .set('Authorization', tech)
+      .attach('file', PNG, { filename: 'crimp.png', contentType: 'image/png' });
+    expect(res.status).toBe(201);
+    const added = (await bucketKeys()).filter((k) => !before.includes(k));
+    expect(added).toHaveLength(1);
+    expect(added[0]).toMatch(UUID);
+    const sheet = await request(ctx.app)
+      .get(`/api/conversions/${ctx.demo.conversions.signedOff}/revisions/1/bench`)
+      .set('Authorization', await ctx.authFor('reviewer'));
+    expect(sheet.body.photos['pin:E2-2']).toEqual([
+      expect.objectContaining({ id: res.body.photo.id, takenBy: 'Sal Okafor' }),
+    ]);
+    const bytes = await request(ctx.app)
+      .get(`/api/bench-photos/${res.body.photo.id}`)
+      .set('Authorization', await ctx.authFor('reviewer'))
+      .buffer(true)
+      .parse((r, done) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => done(null, Buffer.concat(chunks)));
+      });
+    expect(bytes.status).toBe(200);
+    expect(bytes.headers['content-type']).toBe('image/png');
+    expect(bytes.headers['x-content-type-options']).toBe('nosniff');
+    expect(Buffer.compare(bytes.body as Buffer, PNG)).toBe(0);
+  });
+
+  it('refuses a PDF or HTML as a photo (415), an unknown item (404) and the builder (403)', async () => {
+    const tech = await ctx.authFor('technician');
+    const pdf = await request(ctx.app)
+      .post(photoUrl('pin:E2-2'))
+      .set('Authorization', tech)
+      .attach('file', PDF, { filename: 'x.jpg', contentType: 'image/jpeg' });
+    expect(pdf.status).toBe(415);
+    const unknown = await request(ctx.app)
+      .post(photoUrl('pin:Z9-9'))
+      .set('Authorization', tech)
+      .attach('file', JPEG, { filename: 'x.jpg', contentType: 'image/jpeg' });
+    expect(unknown.status).toBe(404);
+    const builderPhoto = await request(ctx.app)
+      .post(photoUrl('pin:E2-2'))
+      .set('Authorization', builder)
+      .attach('file', JPEG, { filename: 'x.jpg', contentType: 'image/jpeg' });
+    expect(builderPhoto.status).toBe(403);
+  });
+});

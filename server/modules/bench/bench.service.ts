@@ -345,6 +345,13 @@ export async function addBenchPhoto(
     );
   }
   const found = await signedOffRevision(actor, conversionId, number);
+  if (!found!.current) {
+    throw new AppError(
+      409,
+      'superseded',
+      `A later revision was signed off after revision ${number}: photos go on the revision the bench works from.`,
+    );
+  }
   const target = targetOf(snapshotOf(found!.revision), key, null);
   if (!target) throw notFound(`"${key}" in revision ${number}`);
   const storageKey = randomUUID();

@@ -7,6 +7,7 @@ import { useCan } from '@/features/auth/hooks/use-can.ts';
 import { useBenchSheet } from '@/features/bench/api/bench.ts';
 import { useTestPlan } from '@/features/bench/api/test-plan.ts';
 import { BenchChecklist } from '@/features/bench/components/bench-checklist.tsx';
+import { BenchQueueStatus } from '@/features/bench/components/bench-queue-status.tsx';
 import { TestPlanView } from '@/features/bench/components/test-plan.tsx';
 import { revisionWorksheetHref } from '@/features/revisions/api/revisions.ts';
 import { useWorkshop } from '@/features/workshop/api/workshop.ts';
@@ -64,24 +65,29 @@ export function ConversionBenchRoute() {
         circuit before first power-up, ideally from a current-limited supply. Local codes and
         licensed practice prevail.
       </Notice>
-      <div role="tablist" aria-label="Bench" className="flex gap-1">
-        {(
-          [
-            ['checklist', 'Checklist'],
-            ['test-plan', 'Test plan'],
-          ] as const
-        ).map(([v, label]) => (
-          <button
-            key={v}
-            type="button"
-            role="tab"
-            aria-selected={view === v}
-            onClick={() => setSearch(v === 'checklist' ? {} : { view: v }, { replace: true })}
-            className={`min-h-11 rounded-md border px-5 font-semibold ${view === v ? 'border-ink bg-ink text-paper' : 'border-rule-strong bg-paper-raised'}`}
-          >
-            {label}
-          </button>
-        ))}
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <div role="tablist" aria-label="Bench" className="flex gap-1">
+          {(
+            [
+              ['checklist', 'Checklist'],
+              ['test-plan', 'Test plan'],
+            ] as const
+          ).map(([v, label]) => (
+            <button
+              key={v}
+              type="button"
+              role="tab"
+              aria-selected={view === v}
+              onClick={() => setSearch(v === 'checklist' ? {} : { view: v }, { replace: true })}
+              className={`min-h-11 rounded-md border px-5 font-semibold ${view === v ? 'border-ink bg-ink text-paper' : 'border-rule-strong bg-paper-raised'}`}
+            >
+              {label}
+            </button>
+          ))}
+        </div>
+        <div className="flex flex-wrap items-center gap-3">
+          <BenchQueueStatus conversionId={conversion.id} />
+        </div>
       </div>
       {view === 'checklist' ? (
         <BenchChecklist

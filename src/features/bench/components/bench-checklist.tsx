@@ -15,7 +15,6 @@ import { DispositionGlyph } from '@/components/ui/disposition-glyph.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { WireColour } from '@/components/ui/wire-colour.tsx';
 import { benchPhotoHref, useAddBenchPhoto, useRecordBenchWork } from '../api/bench.ts';
-import { BenchQueueStatus } from './bench-queue-status.tsx';
 
 type Change = Omit<BenchRecordRequest, 'version'>;
 
@@ -395,7 +394,6 @@ export function BenchChecklist({
             <div className="h-full bg-sound" style={{ width: `${pct}%` }} />
           </div>
         </div>
-        <BenchQueueStatus conversionId={conversionId} />
         <div role="radiogroup" aria-label="Show" className="flex gap-1">
           {(['open', 'all'] as const).map((v) => (
             <button

@@ -22,7 +22,8 @@ export function BenchQueueStatus({ conversionId }: { conversionId: number }) {
       <p
         role="status"
         aria-live="polite"
-        className={`rounded-md border px-3 py-2 font-semibold ${waiting.length ? 'border-caution bg-caution-wash text-caution' : 'border-rule text-ink-soft'}`}
+        // While anything waits, the count stays in view however far down the list the technician is.
+        className={`rounded-md border px-3 py-2 font-semibold ${waiting.length ? 'fixed right-4 bottom-4 z-30 border-2 border-caution bg-caution-wash text-lg text-caution shadow-lg' : 'border-rule text-ink-soft'}`}
       >
         {waiting.length ? (
           <>
