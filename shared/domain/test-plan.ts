@@ -41,6 +41,31 @@ export const TEST_PHASE_INFO: Record<TestPhase, { title: string; caution: string
   },
 };
 
+const NO_SOURCE = 'common practice, no source';
+
+/** A step the technician passes or fails by eye or ear: no figure to type. */
+function check(
+  key: string,
+  phase: TestPhase,
+  subject: string,
+  what: string,
+  expectedText = '',
+  limitText = '',
+): TestStep {
+  return {
+    key,
+    phase,
+    subject,
+    what,
+    unit: 'check',
+    expected: null,
+    expectedText,
+    limit: null,
+    limitText,
+    source: NO_SOURCE,
+  };
+}
+
 const isWorked = (p: SnapshotPin) => p.disposition !== 'depin' && p.disposition !== 'cut';
 
 function neighbours(pin: SnapshotPin, snapshot: ConversionSnapshot, name: Map<number, string>) {
@@ -91,32 +116,28 @@ export function buildTestPlan(snapshot: ConversionSnapshot): TestPlan {
     });
   }
   for (const w of wires) {
-    steps.push({
-      key: `test:short-ground:${w.key}`,
-      phase: 'unplugged',
-      subject: w.name,
-      what: 'No short to ground: reads open (OL) to chassis',
-      unit: 'check',
-      expected: null,
-      expectedText: 'open',
-      limit: null,
-      limitText: 'open circuit',
-      source: 'common practice, no source',
-    });
+    steps.push(
+      check(
+        `test:short-ground:${w.key}`,
+        'unplugged',
+        w.name,
+        'No short to ground: reads open (OL) to chassis',
+        'open',
+        'open circuit',
+      ),
+    );
     const near = w.pin ? neighbours(w.pin, snapshot, names) : [];
     if (near.length) {
-      steps.push({
-        key: `test:short-neighbour:${w.key}`,
-        phase: 'unplugged',
-        subject: w.name,
-        what: `No short to the neighbouring cavities ${near.join(', ')}`,
-        unit: 'check',
-        expected: null,
-        expectedText: 'open',
-        limit: null,
-        limitText: 'open circuit',
-        source: 'common practice, no source',
-      });
+      steps.push(
+        check(
+          `test:short-neighbour:${w.key}`,
+          'unplugged',
+          w.name,
+          `No short to the neighbouring cavities ${near.join(', ')}`,
+          'open',
+          'open circuit',
+        ),
+      );
     }
   }
   for (const feed of snapshot.feeds) {
@@ -130,7 +151,7 @@ export function buildTestPlan(snapshot: ConversionSnapshot): TestPlan {
       expectedText: 'open',
       limit: { min: FEED_INSULATION_MIN_MOHM, max: null },
       limitText: `≥ ${FEED_INSULATION_MIN_MOHM} MΩ`,
-      source: 'common practice, no source',
+      source: NO_SOURCE,
     });
   }
 
@@ -164,7 +185,7 @@ export function buildTestPlan(snapshot: ConversionSnapshot): TestPlan {
     expectedText: `about ${system} V`,
     limit: null,
     limitText: 'recorded; the power pins are judged against it',
-    source: 'common practice, no source',
+    source: NO_SOURCE,
   });
   for (const p of ecuPins.filter((q) => q.signalClass === 'power_feed')) {
     steps.push({
@@ -177,7 +198,7 @@ export function buildTestPlan(snapshot: ConversionSnapshot): TestPlan {
       expectedText: 'battery voltage',
       limit: { min: null, max: null, withinOfBatteryV: POWER_PIN_WITHIN_V },
       limitText: `within ${POWER_PIN_WITHIN_V} V of the battery`,
-      source: 'common practice, no source',
+      source: NO_SOURCE,
     });
   }
   for (const p of ecuPins.filter((q) => q.signalClass === 'power_ground')) {
@@ -191,7 +212,7 @@ export function buildTestPlan(snapshot: ConversionSnapshot): TestPlan {
       expectedText: '0 V',
       limit: { min: null, max: GROUND_DROP_MAX_V },
       limitText: `≤ ${GROUND_DROP_MAX_V} V`,
-      source: 'common practice, no source',
+      source: NO_SOURCE,
     });
   }
   for (const p of ecuPins.filter((q) => q.signalClass === 'sensor_reference')) {
@@ -205,22 +226,20 @@ export function buildTestPlan(snapshot: ConversionSnapshot): TestPlan {
       expectedText: '5.0 V',
       limit: { min: REFERENCE_5V.min, max: REFERENCE_5V.max },
       limitText: `${REFERENCE_5V.min}–${REFERENCE_5V.max} V`,
-      source: 'common practice, no source',
+      source: NO_SOURCE,
     });
   }
   for (const feed of snapshot.feeds.filter((f) => f.relay)) {
-    steps.push({
-      key: `test:relay:feed:${feed.id}`,
-      phase: 'powered',
-      subject: `Feed: ${feed.name}`,
-      what: 'The relay clicks when its output is commanded',
-      unit: 'check',
-      expected: null,
-      expectedText: 'clicks',
-      limit: null,
-      limitText: 'clicks, output live',
-      source: 'common practice, no source',
-    });
+    steps.push(
+      check(
+        `test:relay:feed:${feed.id}`,
+        'powered',
+        `Feed: ${feed.name}`,
+        'The relay clicks when its output is commanded',
+        'clicks',
+        'clicks, output live',
+      ),
+    );
   }
 
   const firstStart: Array<[string, string]> = [
@@ -230,18 +249,7 @@ export function buildTestPlan(snapshot: ConversionSnapshot): TestPlan {
     ['fans', 'The cooling fans switch on at temperature'],
   ];
   for (const [key, what] of firstStart) {
-    steps.push({
-      key: `test:start:${key}`,
-      phase: 'first_start',
-      subject: 'Engine',
-      what,
-      unit: 'check',
-      expected: null,
-      expectedText: '',
-      limit: null,
-      limitText: '',
-      source: 'common practice, no source',
-    });
+    steps.push(check(`test:start:${key}`, 'first_start', 'Engine', what));
   }
   return { systemVoltage: system, benchTempC: BENCH_TEMP_C, steps };
 }

@@ -1,7 +1,6 @@
 import { z } from 'zod';
-import type { Rework } from '../domain/bench.ts';
+import type { BenchPlanItem, Rework } from '../domain/bench.ts';
 import { IdParam, optionalText } from './common.schema.ts';
-import type { SnapshotFeed, SnapshotPin } from './snapshot.schema.ts';
 
 /**
  * The ticks the bench can record. Each item offers only those that make sense for it: a de-pinned
@@ -64,19 +63,8 @@ export interface BenchPhoto {
   createdAt: string;
 }
 
-export interface BenchItem {
-  key: string;
-  kind: 'pin' | 'feed';
-  name: string;
-  asked: string;
-  pin: SnapshotPin | null;
-  feed: SnapshotFeed | null;
-  destinationLabel: string;
-  ticks: BenchTickDef[];
-  /** A continuity reading is offered: the wire alone (IACS copper, 20 °C) and the pass limit. */
-  reading: { expectedOhm: number | null; limitOhm: number } | null;
-  record: BenchRecord | null;
-}
+/** A checklist item as the API sends it: the plan item with its record. */
+export type BenchItem = Omit<BenchPlanItem, 'content'> & { record: BenchRecord | null };
 
 export interface BenchSheet {
   revision: {
