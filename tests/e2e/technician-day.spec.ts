@@ -9,6 +9,8 @@ import type { TestPlanResponse } from '#shared/schemas/test-plan.schema.ts';
 import { DEMO, signIn, signOut } from './support/session.ts';
 
 test.use({ viewport: { width: 1024, height: 1366 } });
+// Each test signs in as two or three people in turn: give them room on a busy machine.
+test.setTimeout(180_000);
 
 const CONVERSION = 'Pellow farm flatbed';
 
