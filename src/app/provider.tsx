@@ -12,7 +12,6 @@ import { createQueryClient } from '@/lib/query-client.ts';
 const persister = createAsyncStoragePersister({
   storage: typeof window === 'undefined' ? undefined : window.localStorage,
   key: 'loomwright-queued-writes',
-  throttleTime: 0,
 });
 
 function createAppQueryClient() {
