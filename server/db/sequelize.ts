@@ -18,22 +18,61 @@ export async function openDatabase(storage: string): Promise<Sequelize> {
     storage,
     logging: false,
     transactionType: Transaction.TYPES.IMMEDIATE,
+    // Sequelize retries a statement that met SQLITE_BUSY five more times by default, so a BEGIN
+    // waiting on another process took 6 × the busy timeout before inTransaction() could answer.
+    // Whole transactions are retried there instead (sequelize #10262).
+    retry: { max: 1 },
     define: { underscored: true },
   });
-  const manager = sequelize.connectionManager as unknown as {
-    getConnection: (options?: unknown) => Promise<SqliteDatabase>;
-  };
+  const manager = sequelize.connectionManager as unknown as ConnectionManager;
   const configured = new WeakSet<SqliteDatabase>();
-  const original = manager.getConnection.bind(manager);
-  manager.getConnection = async (options?: unknown) => {
-    const connection = await original(options);
+  const open = manager.getConnection.bind(manager);
+  const release = manager.releaseConnection.bind(manager);
+  const closeAll = manager._onProcessExit.bind(manager);
+  /**
+   * The handle write transactions reuse. inTransaction() runs one transaction at a time per
+   * process, so one handle serves them all; opening a fresh handle for each transaction (what
+   * Sequelize does) costs file opens, a schema parse and the settings below, every time. A second
+   * transaction at the same moment (a migration, a test calling sequelize.transaction directly)
+   * still gets a handle of its own.
+   */
+  let writer: Handle | null = null;
+
+  manager.getConnection = async (options?: { uuid?: string }) => {
+    const uuid = options?.uuid;
+    const forTransaction = uuid !== undefined && uuid !== 'default' && storage !== ':memory:';
+    if (forTransaction && writer && writer.uuid === undefined) {
+      manager.connections[uuid] = writer;
+      return writer;
+    }
+    const connection = await open(options);
     if (!configured.has(connection)) {
       configured.add(connection);
       connection.configure('busyTimeout', BUSY_TIMEOUT_MS);
       await exec(connection, 'PRAGMA foreign_keys = ON');
       await exec(connection, 'PRAGMA synchronous = FULL');
     }
+    if (forTransaction && !writer) writer = connection;
     return connection;
+  };
+  manager.releaseConnection = (connection: Handle) => {
+    if (connection !== writer) return release(connection);
+    if (connection.uuid) delete manager.connections[connection.uuid];
+  };
+  // Sequelize "destroys" a connection whose BEGIN, COMMIT or ROLLBACK failed (a busy database) by
+  // handing it to a pool the sqlite dialect never uses, which ignores it: the sqlite3 handle, its
+  // file descriptors and its map entry stayed open for good. Close it for real.
+  manager.destroyConnection = async (connection: Handle) => {
+    if (connection === writer) writer = null;
+    const uuid = connection.uuid;
+    if (uuid && manager.connections[uuid] === connection) delete manager.connections[uuid];
+    await closeHandle(connection);
+  };
+  manager._onProcessExit = async () => {
+    const idle = writer && writer.uuid === undefined ? writer : null;
+    writer = null;
+    if (idle) await closeHandle(idle);
+    return closeAll();
   };
 
   const [rows] = (await sequelize.query('PRAGMA journal_mode = WAL')) as [
@@ -45,6 +84,19 @@ export async function openDatabase(storage: string): Promise<Sequelize> {
     throw new Error(`SQLite refused WAL journal mode (got ${mode}) for ${storage}`);
   }
   return sequelize;
+}
+
+type Handle = SqliteDatabase & { uuid?: string };
+interface ConnectionManager {
+  connections: Record<string, Handle>;
+  getConnection: (options?: { uuid?: string }) => Promise<Handle>;
+  releaseConnection: (connection: Handle) => void;
+  destroyConnection: (connection: Handle) => Promise<void>;
+  _onProcessExit: () => Promise<void>;
+}
+
+function closeHandle(connection: SqliteDatabase): Promise<void> {
+  return new Promise((resolve) => connection.close(() => resolve()));
 }
 
 function exec(connection: SqliteDatabase, sql: string): Promise<void> {

@@ -1,9 +1,16 @@
+import { AsyncLocalStorage } from 'node:async_hooks';
+import { E_TIMEOUT, Mutex, withTimeout, type MutexInterface } from 'async-mutex';
 import type { Sequelize, Transaction } from 'sequelize';
 import { busy } from './errors.ts';
 
 const MAX_TRIES = 3;
 /** Once a try has already waited out the busy timeout, another try would only keep the client waiting. */
 const STOP_RETRYING_AFTER_MS = 4000;
+/**
+ * How long a write waits for its turn in this process before the client gets 503. Far above what
+ * a queue of ordinary writes takes (a few milliseconds each), so only a stuck writer trips it.
+ */
+export const WRITE_QUEUE_WAIT_MS = 10_000;
 
 export function isBusyError(err: unknown): boolean {
   const e = err as { original?: { code?: string }; parent?: { code?: string }; code?: string };
@@ -12,11 +19,53 @@ export function isBusyError(err: unknown): boolean {
 }
 
 /**
- * Runs `work` in one managed IMMEDIATE transaction. If SQLite reports the database busy, the
- * whole transaction is retried (not single statements: sequelize #10262) up to three tries with
- * jitter, then the caller gets 503 with Retry-After and nothing partial.
+ * One writer at a time per database in this process (docs/decisions/0009-write-queue-and-seal.md).
+ * SQLite allows one writer anyway; without this queue every waiting `BEGIN IMMEDIATE` sits in the
+ * busy handler inside one of libuv's four worker threads, and four waiting writers starve the one
+ * that holds the lock. Waiting here costs a promise, not a thread. The busy timeout still covers
+ * other processes (the sqlite3 CLI, a backup).
+ */
+const writeQueues = new WeakMap<Sequelize, MutexInterface>();
+const holdingTurn = new AsyncLocalStorage<Sequelize>();
+
+function writeQueueOf(sequelize: Sequelize): MutexInterface {
+  let queue = writeQueues.get(sequelize);
+  if (!queue) {
+    queue = withTimeout(new Mutex(), WRITE_QUEUE_WAIT_MS);
+    writeQueues.set(sequelize, queue);
+  }
+  return queue;
+}
+
+/**
+ * Runs `work` in one managed IMMEDIATE transaction, after the writes queued before it. If SQLite
+ * reports the database busy (another process holds the lock), the whole transaction is retried
+ * (not single statements: sequelize #10262) up to three tries with jitter, then the caller gets 503
+ * with Retry-After and nothing partial.
  */
 export async function inTransaction<T>(
+  sequelize: Sequelize,
+  work: (t: Transaction) => Promise<T>,
+): Promise<T> {
+  if (holdingTurn.getStore() === sequelize) {
+    // Waiting for our own turn would never end: the caller must pass its transaction down.
+    throw new Error('inTransaction called inside a transaction; pass the transaction instead');
+  }
+  let release: MutexInterface.Releaser;
+  try {
+    release = await writeQueueOf(sequelize).acquire();
+  } catch (err) {
+    if (err === E_TIMEOUT) throw busy();
+    throw err;
+  }
+  try {
+    return await holdingTurn.run(sequelize, () => withRetries(sequelize, work));
+  } finally {
+    release();
+  }
+}
+
+async function withRetries<T>(
   sequelize: Sequelize,
   work: (t: Transaction) => Promise<T>,
 ): Promise<T> {

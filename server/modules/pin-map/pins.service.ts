@@ -32,7 +32,11 @@ export async function listPins(actor: Actor, conversionId: number): Promise<PinD
   return rows.map(toPinDto);
 }
 
-async function findPinInWorkshop(actor: Actor, id: number, transaction: Transaction): Promise<Pin> {
+async function findPinInWorkshop(
+  actor: Actor,
+  id: number,
+  transaction?: Transaction,
+): Promise<Pin> {
   const pin = await Pin.findOne({
     where: { id },
     include: [ofConversionInWorkshop(actor)],
@@ -124,6 +128,10 @@ export async function updatePin(
   pinId: number,
   input: UpdatePinRequest,
 ): Promise<PinDto> {
+  // A copy already stale is refused before queueing for a write turn (versions only grow); the
+  // check inside the transaction is the one that counts.
+  const seen = await findPinInWorkshop(actor, pinId);
+  if (seen.version !== input.version) throw versionConflict(toPinDto(seen));
   return inTransaction(db(), async (t) => {
     const pin = await findPinInWorkshop(actor, pinId, t);
     if (pin.version !== input.version) throw versionConflict(toPinDto(pin));
