@@ -17,6 +17,7 @@ import {
 } from '../server/db/models/index.ts';
 import { toSessionUser } from '../server/modules/auth/auth.service.ts';
 import { loadConversionSnapshot } from '../server/modules/checks/snapshot.service.ts';
+import { sealOf } from '../server/modules/revisions/revisions.service.ts';
 import { saveTemplate } from '../server/modules/library/library.service.ts';
 import { DEMO_CONVERSIONS, DEMO_USERS, DEMO_WORKSHOP } from './demo-data.ts';
 import { DRAFT_FEEDS, SIGNED_OFF_FEEDS, type DemoFeed } from './feeds-data.ts';
@@ -39,7 +40,7 @@ export async function isEmpty(): Promise<boolean> {
  */
 export async function seedDemo(
   sequelize: Sequelize,
-  options: { password: string; bcryptCost: number },
+  options: { password: string; bcryptCost: number; sealKeyPem: string },
 ): Promise<DemoSeedResult> {
   const passwordHash = await bcrypt.hash(options.password, options.bcryptCost);
   const result = await sequelize.transaction(async (transaction) => {
@@ -63,7 +64,7 @@ export async function seedDemo(
     );
     const signedOffPins = await seedPinMap(signedOff.id, SIGNED_OFF_CONNECTORS, transaction);
     await seedFeeds(signedOff.id, SIGNED_OFF_FEEDS, signedOffPins, transaction);
-    await seedSignedOffRevision(workshop.id, signedOff.id, users, transaction);
+    await seedSignedOffRevision(workshop.id, signedOff.id, users, options.sealKeyPem, transaction);
     const draftPins = await seedPinMap(draft.id, DRAFT_CONNECTORS, transaction);
     await seedFeeds(draft.id, DRAFT_FEEDS, draftPins, transaction);
     await seedHistory(workshop.id, { signedOff: signedOff.id, draft: draft.id }, transaction);
@@ -243,6 +244,7 @@ async function seedSignedOffRevision(
   workshopId: number,
   conversionId: number,
   users: Record<string, number>,
+  sealKeyPem: string,
   transaction: Transaction,
 ) {
   const snapshot = await loadConversionSnapshot({ workshopId }, conversionId, transaction);
@@ -254,26 +256,25 @@ async function seedSignedOffRevision(
   const reviewer = await User.findByPk(users.reviewer!, { transaction });
   const submittedAt = new Date(Date.now() - 7 * 86_400_000);
   const signedAt = new Date(Date.now() - 5 * 86_400_000);
-  const revision = await Revision.create(
-    {
-      conversionId,
-      number: 1,
-      status: 'signed_off',
-      snapshotJson: JSON.stringify(snapshot),
-      findingsJson: JSON.stringify(findings),
-      hash: await revisionHash(snapshot, findings),
-      submittedById: builder!.id,
-      submittedByName: builder!.name,
-      submittedAt,
-      reviewedById: reviewer!.id,
-      reviewedByName: reviewer!.name,
-      reviewedAt: signedAt,
-      signedAt,
-      reviewComment:
-        'Checked against the donor pinout sheet. Fuel pump wire upsized to 4 mm² as discussed.',
-    },
-    { transaction },
-  );
+  const revision = Revision.build({
+    conversionId,
+    number: 1,
+    status: 'signed_off',
+    snapshotJson: JSON.stringify(snapshot),
+    findingsJson: JSON.stringify(findings),
+    hash: await revisionHash(snapshot, findings),
+    submittedById: builder!.id,
+    submittedByName: builder!.name,
+    submittedAt,
+    reviewedById: reviewer!.id,
+    reviewedByName: reviewer!.name,
+    reviewedAt: signedAt,
+    signedAt,
+    reviewComment:
+      'Checked against the donor pinout sheet. Fuel pump wire upsized to 4 mm² as discussed.',
+  });
+  revision.set(sealOf(revision, sealKeyPem));
+  await revision.save({ transaction });
   // The technician has started: the transmission and evaporative pins are de-pinned or cut back, and
   // the first joined wires are in with their continuity readings.
   const technician = await User.findByPk(users.technician!, { transaction });

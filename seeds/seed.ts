@@ -17,7 +17,11 @@ if (process.argv.includes('--reset')) {
 }
 const sequelize = await connectDatabase(env.DATABASE_PATH);
 if (await isEmpty()) {
-  await seedDemo(sequelize, { password: env.DEMO_PASSWORD, bcryptCost: env.BCRYPT_COST });
+  await seedDemo(sequelize, {
+    password: env.DEMO_PASSWORD,
+    bcryptCost: env.BCRYPT_COST,
+    sealKeyPem: env.SEAL_PRIVATE_KEY,
+  });
   process.stdout.write(`Seeded the demo workshop into ${env.DATABASE_PATH}\n`);
 } else {
   process.stdout.write(

@@ -16,7 +16,11 @@ async function main() {
   const sequelize = await connectDatabase(env.DATABASE_PATH);
   const fresh = await isEmpty();
   if (env.DEMO && fresh) {
-    await seedDemo(sequelize, { password: env.DEMO_PASSWORD, bcryptCost: env.BCRYPT_COST });
+    await seedDemo(sequelize, {
+      password: env.DEMO_PASSWORD,
+      bcryptCost: env.BCRYPT_COST,
+      sealKeyPem: env.SEAL_PRIVATE_KEY,
+    });
     logger.info({ database: env.DATABASE_PATH }, 'seeded the demo workshop');
   }
   const stopMail = await startMail(env);

@@ -19,7 +19,11 @@ export async function benchContext() {
     LOG_LEVEL: 'silent',
   });
   const sequelize = await connectDatabase(env.DATABASE_PATH);
-  const demo = await seedDemo(sequelize, { password: 'loomwright-demo', bcryptCost: 10 });
+  const demo = await seedDemo(sequelize, {
+    password: 'loomwright-demo',
+    bcryptCost: 10,
+    sealKeyPem: env.SEAL_PRIVATE_KEY,
+  });
   const app = createApp({ env });
   const builder = await User.findByPk(demo.users.builder!);
   const auth = { Authorization: `Bearer ${signSessionToken(builder!.id, builder!.tokenVersion)}` };

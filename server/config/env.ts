@@ -1,4 +1,4 @@
-import { randomBytes } from 'node:crypto';
+import { generateKeyPairSync, randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { z } from 'zod';
@@ -70,9 +70,16 @@ const EnvSchema = z.object({
     .max(100_000_000)
     .default(10 * 1024 * 1024),
   LOG_LEVEL: z.enum(['silent', 'fatal', 'error', 'warn', 'info', 'debug']).default('info'),
+  /** The seal key's file; default `seal-key.pem` beside the database (and the JWT secret). */
+  SEAL_KEY_FILE: z.string().min(1).optional(),
 });
 
-export type Env = z.infer<typeof EnvSchema> & { JWT_SECRET: string; DATA_DIR: string };
+export type Env = z.infer<typeof EnvSchema> & {
+  JWT_SECRET: string;
+  DATA_DIR: string;
+  /** PKCS#8 PEM of the Ed25519 key that seals reviewers' decisions (docs/decisions/0009). */
+  SEAL_PRIVATE_KEY: string;
+};
 
 export class EnvError extends Error {}
 
@@ -89,7 +96,25 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
   const env = parsed.data;
   const dataDir = path.dirname(path.resolve(env.DATABASE_PATH));
   const jwtSecret = env.JWT_SECRET ?? readOrCreateSecret(path.join(dataDir, 'jwt-secret'));
-  return { ...env, JWT_SECRET: jwtSecret, DATA_DIR: dataDir };
+  const sealKey = readOrCreateSealKey(env.SEAL_KEY_FILE ?? path.join(dataDir, 'seal-key.pem'));
+  return { ...env, JWT_SECRET: jwtSecret, DATA_DIR: dataDir, SEAL_PRIVATE_KEY: sealKey };
+}
+
+/**
+ * The Ed25519 private key that seals decisions, kept outside the database (someone who can write
+ * the database file must not be able to forge a seal), generated on first start with mode 0600.
+ */
+function readOrCreateSealKey(file: string): string {
+  if (existsSync(file)) {
+    const pem = readFileSync(file, 'utf8');
+    if (pem.includes('BEGIN PRIVATE KEY')) return pem;
+    throw new EnvError(`${file} does not hold a PEM private key`);
+  }
+  mkdirSync(path.dirname(file), { recursive: true });
+  const { privateKey } = generateKeyPairSync('ed25519');
+  const pem = privateKey.export({ type: 'pkcs8', format: 'pem' }).toString();
+  writeFileSync(file, pem, { mode: 0o600, flag: 'wx' });
+  return pem;
 }
 
 function readOrCreateSecret(file: string): string {

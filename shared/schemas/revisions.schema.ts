@@ -75,6 +75,29 @@ export interface RevisionDetail extends RevisionSummary {
   /** Differences from the last signed-off revision before this one; null for the first. */
   changes: RevisionChanges | null;
   comparedWith: number | null;
+  /** The reviewer's decision sealed with the server's Ed25519 key; null while in review. */
+  seal: RevisionSeal | null;
+}
+
+/** `GET …/verify`: the content hash recomputed, and whether the content and decision match the seal. */
+export interface RevisionVerification {
+  ok: boolean;
+  hash: string;
+  storedHash: string;
+  /** Decided revisions carry a seal; a revision in review has only its content hash. */
+  sealed: boolean;
+  /** Why it does not match, or null. */
+  problem: string | null;
+}
+
+export interface RevisionSeal {
+  algorithm: 'Ed25519';
+  /** The raw public key, base64. */
+  publicKey: string;
+  /** The public key's fingerprint in groups of four hex digits, for reading aloud. */
+  fingerprint: string;
+  /** The signature, base64. */
+  signature: string;
 }
 
 export interface FieldChange {

@@ -49,6 +49,7 @@ test('builder submits, reviewer sees the differences and signs off, technician p
   await page.getByRole('button', { name: 'Sign off revision 2' }).click();
   await page.getByRole('button', { name: 'Confirm sign-off' }).click();
   await expect(page.getByText('Signed off').first()).toBeVisible();
+  await expect(page.getByText(/Sealed by this server.s Ed25519 key/)).toBeVisible();
   await signOut(page);
 
   // The technician sees revision 2 as the one the bench works from, and prints it.

@@ -46,7 +46,11 @@ export async function createTestContext(
     ...overrides,
   });
   const sequelize = await connectDatabase(databasePath);
-  const demo = await seedDemo(sequelize, { password: TEST_PASSWORD, bcryptCost: 10 });
+  const demo = await seedDemo(sequelize, {
+    password: TEST_PASSWORD,
+    bcryptCost: 10,
+    sealKeyPem: env.SEAL_PRIVATE_KEY,
+  });
   const app = createApp({ env });
 
   const tokenFor = async (role: Role) => {

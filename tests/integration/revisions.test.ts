@@ -133,7 +133,7 @@ describe('the whole workflow', () => {
     const res = await request(ctx.app)
       .get(`/api/conversions/${draftId}/revisions/${number}/verify`)
       .set('Authorization', await as('technician'));
-    expect(res.body).toEqual({ ok: true, hash, storedHash: hash });
+    expect(res.body).toEqual({ ok: true, hash, storedHash: hash, sealed: false, problem: null });
   });
 
   it('lets the reviewer comment on a pin and read the revision', async () => {

@@ -7,6 +7,7 @@ import { importsLibrary } from './0004-imports-library.ts';
 import { reviews } from './0005-reviews.ts';
 import { bench } from './0006-bench.ts';
 import { benchItems } from './0007-bench-items.ts';
+import { seals } from './0008-seals.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -27,6 +28,7 @@ export const MIGRATIONS: Migration[] = [
   reviews,
   bench,
   benchItems,
+  seals,
 ];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {

@@ -25,6 +25,10 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
   declare reviewedAt: CreationOptional<Date | null>;
   declare signedAt: CreationOptional<Date | null>;
   declare reviewComment: CreationOptional<string>;
+  /** Ed25519 signature of the decision (server/lib/seal.ts); null until decided. */
+  declare seal: CreationOptional<string | null>;
+  /** Fingerprint of the key that made the seal. */
+  declare sealKey: CreationOptional<string | null>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -47,6 +51,8 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
         reviewedAt: { type: DataTypes.DATE, allowNull: true },
         signedAt: { type: DataTypes.DATE, allowNull: true },
         reviewComment: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        seal: { type: DataTypes.TEXT, allowNull: true },
+        sealKey: { type: DataTypes.TEXT, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -23,7 +23,9 @@ import { db } from '../../db/index.ts';
 import { Conversion, ReviewComment, Revision, User } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, forbidden, notFound, unprocessable } from '../../lib/errors.ts';
+import { sealDecision, sealKeyFrom, sealMatches, type SealedDecision } from '../../lib/seal.ts';
 import { inTransaction } from '../../lib/transaction.ts';
+import { config } from '../../config/runtime.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 import { carryBenchWork, noticeToBench } from '../bench/bench-carry.service.ts';
 import { checkConversion } from '../checks/checks.service.ts';
@@ -49,6 +51,77 @@ function toSummary(r: Revision): RevisionSummary {
     reviewComment: r.reviewComment,
     counts: countFindings(findingsOf(r)),
     version: r.version,
+  };
+}
+
+const sealKey = () => sealKeyFrom(config().SEAL_PRIVATE_KEY);
+
+/** What a decided revision's seal covers, with the content hash recomputed from its content. */
+function decisionOf(r: Revision, contentHash: string): SealedDecision {
+  return {
+    conversionId: r.conversionId,
+    number: r.number,
+    contentHash,
+    decision: r.status as SealedDecision['decision'],
+    reviewerId: r.reviewedById ?? null,
+    reviewerName: r.reviewedByName ?? '',
+    decidedAt: iso(r.reviewedAt) ?? '',
+    submittedByName: r.submittedByName,
+    submittedAt: iso(r.submittedAt)!,
+  };
+}
+
+/** Seals a revision decided outside the review flow (the demo's signed-off revision). */
+export function sealOf(r: Revision, sealKeyPem: string): { seal: string; sealKey: string } {
+  const key = sealKeyFrom(sealKeyPem);
+  return { seal: sealDecision(key, decisionOf(r, r.hash)), sealKey: key.fingerprint };
+}
+
+const contentHashOf = (r: Revision) =>
+  sha256Hex(canonicalRevisionContent(snapshotOf(r), findingsOf(r)));
+
+/**
+ * Whether a revision is what was submitted and, once decided, what its reviewer sealed: the
+ * content hash is recomputed from the stored snapshot and findings (never trusted from its column)
+ * and the seal checked against it with the public key. Null when intact, else the reason.
+ */
+async function sealProblem(r: Revision): Promise<string | null> {
+  let contentHash: string;
+  try {
+    contentHash = await contentHashOf(r);
+  } catch {
+    return 'its stored content cannot be read';
+  }
+  if (contentHash !== r.hash) return 'its content does not match its content hash';
+  if (r.status === 'in_review') return null;
+  if (!r.seal) return 'it carries no seal';
+  const key = sealKey();
+  if (r.sealKey !== key.fingerprint) return 'it was sealed with another key than this server holds';
+  if (!sealMatches(key, decisionOf(r, contentHash), r.seal)) {
+    return 'its content, reviewer, time or decision differ from what was sealed';
+  }
+  return null;
+}
+
+/** Refuses to serve a revision that does not match its seal: nobody must build from it. */
+async function assertSealIntact(r: Revision): Promise<void> {
+  const problem = await sealProblem(r);
+  if (problem) {
+    throw new AppError(
+      409,
+      'seal_mismatch',
+      `Revision ${r.number} does not match its seal: ${problem}. It may have been changed outside Loomwright, so its content is withheld. Ask your administrator to restore the database from a backup.`,
+    );
+  }
+}
+
+/** The public half of the seal key, shown on the revision page and printed on the worksheet. */
+export function sealPublicKey() {
+  const key = sealKey();
+  return {
+    algorithm: 'Ed25519' as const,
+    publicKey: key.publicKeyBase64,
+    fingerprint: key.fingerprint,
   };
 }
 
@@ -208,8 +281,18 @@ async function decide(
   const summary = await inTransaction(db(), async (t) => {
     const revision = await findRevision(actor, conversionId, number, t);
     await assertReviewable(actor, revision, version);
+    // Never seal content that changed since it was submitted.
+    await assertSealIntact(revision);
     const now = new Date();
     const signing = decision.status === 'signed_off';
+    const key = sealKey();
+    const seal = sealDecision(key, {
+      ...decisionOf(revision, revision.hash),
+      decision: decision.status,
+      reviewerId: actor.id,
+      reviewerName: actor.name,
+      decidedAt: now.toISOString(),
+    });
     const [updated] = await Revision.update(
       {
         status: decision.status,
@@ -217,6 +300,8 @@ async function decide(
         reviewedByName: actor.name,
         reviewedAt: now,
         ...(signing ? { signedAt: now } : { reviewComment: decision.comment }),
+        seal,
+        sealKey: key.fingerprint,
         version: revision.version + 1,
       },
       {
@@ -368,6 +453,7 @@ export async function getRevision(
   number: number,
 ): Promise<RevisionDetail> {
   const revision = await findRevision(actor, conversionId, number);
+  await assertSealIntact(revision);
   const snapshot = snapshotOf(revision);
   const comments = await ReviewComment.findAll({
     where: { revisionId: revision.id },
@@ -384,25 +470,33 @@ export async function getRevision(
     comments: comments.map(toCommentDto),
     changes: previous ? diffSnapshots(snapshotOf(previous), snapshot) : null,
     comparedWith: previous?.number ?? null,
+    seal: revision.seal ? { ...sealPublicKey(), signature: revision.seal } : null,
   };
 }
 
-/** Recomputes the content hash from the stored snapshot and findings. */
+/** Recomputes the content hash from the stored snapshot and findings, and checks the seal. */
 export async function verifyRevision(actor: Actor, conversionId: number, number: number) {
   const revision = await findRevision(actor, conversionId, number);
-  const recomputed = await sha256Hex(
-    canonicalRevisionContent(snapshotOf(revision), findingsOf(revision)),
-  );
-  return { ok: recomputed === revision.hash, hash: recomputed, storedHash: revision.hash };
+  const recomputed = await contentHashOf(revision);
+  const problem = await sealProblem(revision);
+  return {
+    ok: problem === null,
+    hash: recomputed,
+    storedHash: revision.hash,
+    sealed: revision.status !== 'in_review',
+    problem,
+  };
 }
 
 /** The revision a worksheet or the bench prints: its frozen snapshot, findings and sign-off. */
 export async function revisionForPrint(actor: Actor, conversionId: number, number: number) {
   const revision = await findRevision(actor, conversionId, number);
+  await assertSealIntact(revision);
   return {
     revision,
     snapshot: snapshotOf(revision),
     findings: findingsOf(revision),
+    seal: revision.seal ? sealPublicKey() : null,
   };
 }
 
@@ -412,8 +506,10 @@ export async function currentSignedOff(
   conversionId: number,
 ): Promise<Revision | null> {
   await findConversionInWorkshop(actor, conversionId);
-  return Revision.findOne({
+  const revision = await Revision.findOne({
     where: { conversionId, status: 'signed_off' },
     order: [['number', 'DESC']],
   });
+  if (revision) await assertSealIntact(revision);
+  return revision;
 }

@@ -49,7 +49,11 @@ export async function revisionWorksheetInput(
   number: number,
   now = new Date(),
 ): Promise<WorksheetInput> {
-  const { revision, snapshot, findings } = await revisionForPrint(actor, conversionId, number);
+  const { revision, snapshot, findings, seal } = await revisionForPrint(
+    actor,
+    conversionId,
+    number,
+  );
   const settings = await getWorkshopSettings(actor);
   return {
     snapshot,
@@ -65,6 +69,7 @@ export async function revisionWorksheetInput(
                 reviewerName: revision.reviewedByName ?? '',
                 signedAt: revision.signedAt,
                 hash: revision.hash,
+                seal: seal ? { publicKey: seal.publicKey, fingerprint: seal.fingerprint } : null,
               }
             : null,
       },

@@ -8,6 +8,8 @@ export interface WorksheetSignOff {
   signedAt: Date | string;
   /** The content hash the reviewer signed (hex SHA-256). */
   hash: string;
+  /** The public key whose seal was checked before printing (base64 Ed25519, and its fingerprint). */
+  seal?: { publicKey: string; fingerprint: string } | null;
 }
 
 export interface WorksheetRevision {

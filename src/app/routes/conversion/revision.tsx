@@ -4,6 +4,7 @@ import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
+import { ApiError } from '@/lib/api-client.ts';
 import { useSession } from '@/features/auth/api/get-session.ts';
 import { useCan } from '@/features/auth/hooks/use-can.ts';
 import { useRevisionBenchSheet } from '@/features/bench/api/bench.ts';
@@ -37,6 +38,19 @@ export function ConversionRevisionRoute() {
 
   if (revision.isPending) return <Loading what={`Loading revision ${number}`} />;
   if (revision.isError) {
+    if (revision.error instanceof ApiError && revision.error.code === 'seal_mismatch') {
+      return (
+        <div role="alert" className="rounded-lg border-4 border-fault bg-paper-raised p-6">
+          <h2 className="text-2xl font-bold text-fault">
+            Revision {number} does not match its seal
+          </h2>
+          <p className="mt-3 max-w-2xl">{revision.error.message}</p>
+          <p className="mt-3 max-w-2xl font-semibold">
+            Do not build from this revision or from any printout of it.
+          </p>
+        </div>
+      );
+    }
     return (
       <Notice tone="fault" title={`Revision ${number} could not be loaded`}>
         {revision.error.message}
@@ -68,19 +82,29 @@ export function ConversionRevisionRoute() {
             </p>
           ) : null}
           <p className="mt-3 break-all font-mono text-xs text-ink-soft">SHA-256 {r.hash}</p>
+          {r.seal ? (
+            <p className="mt-1 break-all font-mono text-xs text-ink-soft">
+              Sealed by this server&rsquo;s {r.seal.algorithm} key {r.seal.publicKey} (key print{' '}
+              {r.seal.fingerprint}); the seal was checked when this page loaded.
+            </p>
+          ) : (
+            <p className="mt-1 text-xs text-ink-soft">Sealed when a reviewer decides.</p>
+          )}
           <div className="mt-2 flex flex-wrap items-center gap-3">
             <Button size="sm" busy={verify.isFetching} onClick={() => void verify.refetch()}>
-              Verify content hash
+              {r.seal ? 'Verify hash and seal' : 'Verify content hash'}
             </Button>
             {verify.data ? (
               verify.data.ok ? (
                 <span className="text-sm text-sound">
-                  <span aria-hidden>✓ </span>The stored content still hashes to this value.
+                  <span aria-hidden>✓ </span>
+                  {verify.data.sealed
+                    ? 'The stored content still hashes to this value and matches its seal.'
+                    : 'The stored content still hashes to this value.'}
                 </span>
               ) : (
                 <span className="text-sm text-fault">
-                  <span aria-hidden>✕ </span>Mismatch: the content hashes to{' '}
-                  {verify.data.hash.slice(0, 12)}.
+                  <span aria-hidden>✕ </span>Mismatch: {verify.data.problem}.
                 </span>
               )
             ) : null}

@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type {
+  RevisionVerification,
   ReviewComment,
   ReviewCommentRequest,
   RevisionDetail,
@@ -48,9 +49,7 @@ export const useRevision = (conversionId: number, number: number) =>
   useQuery(getRevisionQueryOptions(conversionId, number));
 
 export const verifyRevision = (conversionId: number, number: number) =>
-  api.get<{ ok: boolean; hash: string; storedHash: string }>(
-    `${base(conversionId)}/${number}/verify`,
-  );
+  api.get<RevisionVerification>(`${base(conversionId)}/${number}/verify`);
 
 /** Verification runs only when asked for (enabled: false until refetch). */
 export const useVerifyRevision = (conversionId: number, number: number) =>

@@ -41,12 +41,17 @@ function standing(sheet: Sheet): string {
   return `Revision ${revision.number}, ${statusLabel(revision.status)}: frozen but not signed off yet. Do not start bench work until it is signed off.`;
 }
 
+/** Room for the sign-off rows; a sealed sign-off also prints its key. */
+function signOffHeight(sheet: Sheet): number {
+  return sheet.meta.revision?.signOff?.seal ? 120 : 92;
+}
+
 /** Reviewer's sign-off beside the bench record; blank lines to fill in by hand where unsigned. */
 function drawSignOff(sheet: Sheet): void {
   const gap = 12;
   const w = (sheet.contentWidth - gap) / 2;
   const top = sheet.y;
-  const height = 92;
+  const height = signOffHeight(sheet);
   const revision = sheet.meta.revision;
   const signOff = revision?.signOff ?? null;
   const inner = w - 16;
@@ -80,6 +85,11 @@ function drawSignOff(sheet: Sheet): void {
     row('Reviewer', signOff.reviewerName);
     row('Signed', formatDateTime(signOff.signedAt));
     row('Content hash', signOff.hash, { face: 'mono', size: 6.5 });
+    if (signOff.seal) {
+      // Checked against the seal before printing; the key lets anyone check it again.
+      row('Seal key', `Ed25519 ${signOff.seal.publicKey}`, { face: 'mono', size: 6.5 });
+      row('Key print', signOff.seal.fingerprint, { face: 'mono', size: 6.5 });
+    }
     if (signOff.hash !== revision.hash) {
       sheet.line(
         'The signed hash does not match this content: do not use this sheet.',
