@@ -29,7 +29,8 @@ async function main() {
   const server = app.listen(env.PORT, env.HOST, () => {
     const url = `http://localhost:${env.PORT}`;
     logger.info({ url, database: env.DATABASE_PATH }, 'Loomwright is listening');
-    if (env.DEMO) {
+    // The demo password is printed once, when the demo is seeded; later starts print none.
+    if (env.DEMO && fresh) {
       const lines = DEMO_USERS.map((u) => `  ${u.role.padEnd(11)} ${u.email}`).join('\n');
       process.stdout.write(
         `\nLoomwright is running at ${url}\nDemo workshop sign-ins (password "${env.DEMO_PASSWORD}"):\n${lines}\n\n`,

@@ -1,3 +1,5 @@
+import { chmodSync, closeSync, existsSync, mkdirSync, openSync } from 'node:fs';
+import path from 'node:path';
 import { Sequelize, Transaction } from 'sequelize';
 import type { Database as SqliteDatabase } from 'sqlite3';
 
@@ -13,6 +15,7 @@ export const BUSY_TIMEOUT_MS = 5000;
  *   connection manager is wrapped here.
  */
 export async function openDatabase(storage: string): Promise<Sequelize> {
+  if (storage !== ':memory:') ownerOnly(storage);
   const sequelize = new Sequelize({
     dialect: 'sqlite',
     storage,
@@ -84,6 +87,19 @@ export async function openDatabase(storage: string): Promise<Sequelize> {
     throw new Error(`SQLite refused WAL journal mode (got ${mode}) for ${storage}`);
   }
   return sequelize;
+}
+
+/**
+ * The database file readable and writable by its owner only (0600), created so before SQLite
+ * opens it. SQLite gives the -wal and -shm files the main file's permissions.
+ */
+function ownerOnly(storage: string): void {
+  mkdirSync(path.dirname(path.resolve(storage)), { recursive: true });
+  closeSync(openSync(storage, 'a', 0o600));
+  chmodSync(storage, 0o600);
+  for (const companion of [`${storage}-wal`, `${storage}-shm`]) {
+    if (existsSync(companion)) chmodSync(companion, 0o600);
+  }
 }
 
 type Handle = SqliteDatabase & { uuid?: string };

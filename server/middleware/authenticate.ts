@@ -13,8 +13,12 @@ function tokenOf(req: Parameters<RequestHandler>[0]): string | null {
   return cookies[SECURE_SESSION_COOKIE] ?? cookies[SESSION_COOKIE] ?? null;
 }
 
-/** Requires a valid session; sets `req.user` from the database. */
-export const authenticate: RequestHandler = async (req, _res, next) => {
+/**
+ * Requires a valid session; sets `req.user` from the database. What an authenticated request
+ * answers is one person's view of their workshop: no cache may keep it (ASVS 14.2.2).
+ */
+export const authenticate: RequestHandler = async (req, res, next) => {
+  res.set('Cache-Control', 'no-store');
   const token = tokenOf(req);
   const user = token ? await userForToken(token) : null;
   if (!user) return next(unauthenticated());

@@ -74,6 +74,13 @@ describe('SQLite settings', () => {
     expect(await refusal(`DELETE FROM audit_events WHERE id = ${row.id}`)).toMatch(/append-only/);
   });
 
+  it('keeps the database files readable by their owner only', async () => {
+    const { statSync, existsSync } = await import('node:fs');
+    for (const file of [ctx.databasePath, `${ctx.databasePath}-wal`, `${ctx.databasePath}-shm`]) {
+      if (existsSync(file)) expect(statSync(file).mode & 0o777, file).toBe(0o600);
+    }
+  });
+
   it('passes the integrity check', async () => {
     expect(await pragma('integrity_check')).toBe('ok');
   });

@@ -67,6 +67,13 @@ describe('invitations', () => {
       to: 'apprentice@example.com',
     });
     expect(res.body.received.length).toBeGreaterThan(0);
+    // The one-time link is there, its token is not: an admin must not take over an invited account.
+    const invitation = (res.body.received as Array<{ text: string }>).find((m) =>
+      m.text.includes('/set-password#token='),
+    );
+    expect(invitation!.text).toContain('#token=[hidden]');
+    expect(JSON.stringify(res.body)).not.toMatch(/#token=(?!\[hidden\])/);
+    expect(res.headers['cache-control']).toBe('no-store');
     expect(
       (
         await request(ctx.app)
