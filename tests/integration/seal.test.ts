@@ -61,8 +61,8 @@ describe('a sealed revision', () => {
       .get(`/api/conversions/${conversionId}/revisions/1/verify`)
       .set('Authorization', reviewer);
     expect(verify.body).toMatchObject({ ok: true, sealed: true, problem: null });
-    expect((await pdf(1)).status).toBe(200);
-  }, 60_000);
+    // Printing a sealed revision is covered in worksheet.test.ts (the demo's revision is sealed).
+  });
 
   it('is sealed when signed off through the API, with the reviewer and time it stores', async () => {
     const builder = await ctx.authFor('builder');
