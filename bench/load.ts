@@ -1,7 +1,7 @@
 /**
  * `npm run load`: concurrent writers and simultaneous sign-offs against a real server process on a
  * fresh demo database, on 127.0.0.1 only. Prints the figures and exits non-zero when a target is
- * missed (docs/decisions/0009-write-queue-and-seal.md):
+ * missed (docs/decisions/0010-write-queue-and-seal.md):
  * - LOAD_WRITERS (20) clients PATCH pins with the version they read, for LOAD_SECONDS (60):
  *   no 5xx, no client time-out (LOAD_CLIENT_TIMEOUT_MS, 10 s), p99 under 1 s, and every pin's final
  *   version equals its start version plus its 2xx writes;

@@ -77,7 +77,7 @@ const EnvSchema = z.object({
 export type Env = z.infer<typeof EnvSchema> & {
   JWT_SECRET: string;
   DATA_DIR: string;
-  /** PKCS#8 PEM of the Ed25519 key that seals reviewers' decisions (docs/decisions/0009). */
+  /** PKCS#8 PEM of the Ed25519 key that seals reviewers' decisions (docs/decisions/0010). */
   SEAL_PRIVATE_KEY: string;
 };
 

@@ -1,5 +1,5 @@
 /**
- * The seal on a reviewer's decision (docs/decisions/0009-write-queue-and-seal.md): an Ed25519
+ * The seal on a reviewer's decision (docs/decisions/0010-write-queue-and-seal.md): an Ed25519
  * signature over the revision's content hash, recomputed from its snapshot and findings, plus who
  * decided what and when. The private key lives outside the database, so whoever can write the
  * database file can change a revision and recompute its hash but cannot make a seal match.

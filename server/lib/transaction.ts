@@ -19,7 +19,7 @@ export function isBusyError(err: unknown): boolean {
 }
 
 /**
- * One writer at a time per database in this process (docs/decisions/0009-write-queue-and-seal.md).
+ * One writer at a time per database in this process (docs/decisions/0010-write-queue-and-seal.md).
  * SQLite allows one writer anyway; without this queue every waiting `BEGIN IMMEDIATE` sits in the
  * busy handler inside one of libuv's four worker threads, and four waiting writers starve the one
  * that holds the lock. Waiting here costs a promise, not a thread. The busy timeout still covers

@@ -1,5 +1,5 @@
 /**
- * The seal on reviewers' decisions (docs/decisions/0009-write-queue-and-seal.md): a revision
+ * The seal on reviewers' decisions (docs/decisions/0010-write-queue-and-seal.md): a revision
  * rewritten in the database file, triggers dropped and hash recomputed, is refused by the revision
  * page, the worksheet PDF and the bench instead of being served.
  */

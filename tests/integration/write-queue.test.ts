@@ -1,6 +1,6 @@
 /**
  * One writer at a time inside the process, and no SQLite handle left behind by a failed
- * transaction (docs/decisions/0009-write-queue-and-seal.md).
+ * transaction (docs/decisions/0010-write-queue-and-seal.md).
  */
 import { readdirSync, readlinkSync } from 'node:fs';
 import request from 'supertest';

@@ -1,7 +1,7 @@
 import type { Migration } from './index.ts';
 
 /**
- * Seals on reviewers' decisions (docs/decisions/0009-write-queue-and-seal.md): the Ed25519
+ * Seals on reviewers' decisions (docs/decisions/0010-write-queue-and-seal.md): the Ed25519
  * signature and the fingerprint of the key that made it. A decided revision (signed off or sent
  * back) refuses every update, and its review comments can no longer be deleted.
  */
