@@ -89,6 +89,24 @@ export function exactIsoSize(areaMm2: number): number | null {
   return ISO_6722_SIZES_MM2.find((s) => sameSize(areaMm2, s)) ?? null;
 }
 
+/**
+ * The one set of sizes Loomwright accepts, mm², thinnest first: the ISO 6722 series and the stored
+ * area of every AWG gauge. The two series never fall within 1 % of each other, so each accepted
+ * size belongs to exactly one of them.
+ */
+export const WIRE_SIZES_MM2: readonly number[] = [
+  ...ISO_6722_SIZES_MM2,
+  ...AWG_GAUGES.map(storedAwgAreaMm2),
+].sort((a, b) => a - b);
+
+/** The accepted size this area is (within 1 %, as typed or as an older import stored it), or null. */
+export function acceptedWireSize(areaMm2: number): number | null {
+  const iso = exactIsoSize(areaMm2);
+  if (iso !== null) return iso;
+  const gauge = exactAwg(areaMm2);
+  return gauge === null ? null : storedAwgAreaMm2(gauge);
+}
+
 function trimNumber(n: number): string {
   return String(Number(n.toFixed(n < 1 ? 3 : 2)));
 }
@@ -105,11 +123,23 @@ export function formatWireSize(areaMm2: number | null | undefined, unit: SizeUni
   return `${trimNumber(exactIsoSize(areaMm2) ?? areaMm2)} mm²`;
 }
 
-/** The value to put in an editor: "0.75" in mm², "18" in AWG. */
+/**
+ * The value to put in an editor, which `parseWireSize` reads back to the same size: "0.75" in mm²,
+ * "18" in AWG, and a size of the other series with its unit spelled out ("4 mm²" in an AWG
+ * workshop, "18 AWG" in a metric one), so saving it unchanged never moves the wire to the nearest
+ * size of the workshop's series.
+ */
 export function editableWireSize(areaMm2: number | null | undefined, unit: SizeUnit): string {
   if (areaMm2 == null) return '';
-  if (unit === 'awg') return formatAwgGauge(exactAwg(areaMm2) ?? nearestAwg(areaMm2));
-  return trimNumber(exactIsoSize(areaMm2) ?? areaMm2);
+  const gauge = exactAwg(areaMm2);
+  const iso = exactIsoSize(areaMm2);
+  if (unit === 'awg') {
+    if (gauge !== null) return formatAwgGauge(gauge);
+    return `${trimNumber(iso ?? areaMm2)} mm²`;
+  }
+  if (iso !== null) return trimNumber(iso);
+  if (gauge !== null) return `${formatAwgGauge(gauge)} AWG`;
+  return trimNumber(areaMm2);
 }
 
 export type SizeParse = { ok: true; areaMm2: number | null } | { ok: false; error: string };

@@ -1,10 +1,7 @@
 import { z } from 'zod';
-import { DISPOSITIONS } from '../domain/dispositions.ts';
-import { SIGNAL_CLASSES } from '../domain/signal-classes.ts';
-import { parseWireColour } from '../domain/wire-colours.ts';
-import { exactAwg, exactIsoSize } from '../domain/wire-sizes.ts';
+import { blankRecord, fieldKeys, fieldShape } from '../domain/fields/field-table.ts';
+import { PIN_FIELDS, type PinValues } from '../domain/fields/pin-fields.ts';
 import { optionalText, requiredText } from './common.schema.ts';
-import { INSULATION_RATINGS_C } from './workshop.schema.ts';
 
 export const CONNECTOR_SIDES = ['ecu', 'engine', 'vehicle', 'other'] as const;
 export type ConnectorSide = (typeof CONNECTOR_SIDES)[number];
@@ -18,76 +15,22 @@ export const CONNECTOR_SIDE_LABELS: Record<ConnectorSide, string> = {
 export const MAX_CAVITIES = 400;
 export const MAX_BULK_PINS = 5000;
 
-// ---------- field schemas, shared by single, bulk and batch edits ----------
+// ---------- pin fields: built from the pin field table (shared/domain/fields/pin-fields.ts) ----------
 
-export const DispositionSchema = z.enum(DISPOSITIONS);
-export const SignalClassSchema = z.enum(SIGNAL_CLASSES);
+export {
+  DispositionSchema,
+  InsulationRatingSchema,
+  SignalClassSchema,
+  WireColourSchema,
+  WireSizeMm2Schema,
+} from './wire-fields.schema.ts';
 
-/** '' (not recorded) or an IEC 60757 colour, normalised to "BU/WH". */
-export const WireColourSchema = z
-  .string()
-  .max(20)
-  .transform((value, ctx) => {
-    if (value.trim() === '') return '';
-    const parsed = parseWireColour(value);
-    if (!parsed.ok) {
-      ctx.addIssue({ code: 'custom', message: parsed.error });
-      return z.NEVER;
-    }
-    return parsed.value;
-  });
-
-/** A conductor area in mm² that is an ISO 6722 size or an AWG size; null when not recorded. */
-export const WireSizeMm2Schema = z
-  .number()
-  .positive()
-  .max(120)
-  .refine((v) => exactIsoSize(v) !== null || exactAwg(v) !== null, {
-    message: 'must be an ISO 6722 size in mm² or the area of an AWG size',
-  })
-  .nullable();
-
-export const InsulationRatingSchema = z
-  .number()
-  .refine((v) => (INSULATION_RATINGS_C as readonly number[]).includes(v), {
-    message: `must be one of ${INSULATION_RATINGS_C.join(', ')} °C`,
-  })
-  .nullable();
-
-export const PinFields = z.strictObject({
-  function: optionalText(200),
-  signalClass: SignalClassSchema,
-  colour: WireColourSchema,
-  sizeMm2: WireSizeMm2Schema,
-  insulationRatingC: InsulationRatingSchema,
-  disposition: DispositionSchema,
-  destination: optionalText(200),
-  /** A cavity of a vehicle-side connector of the same conversion. */
-  destinationPinId: z.number().int().positive().nullable(),
-  /** A new fused feed of the same conversion this pin is joined to. */
-  destinationFeedId: z.number().int().positive().nullable(),
-  runLengthM: z.number().min(0).max(100).nullable(),
-  loadCurrentA: z.number().min(0).max(200).nullable(),
-  notes: optionalText(2000),
-});
-export type PinFields = z.infer<typeof PinFields>;
-export const PIN_FIELD_NAMES = Object.keys(PinFields.shape) as Array<keyof PinFields>;
+export const PinFields = z.strictObject(fieldShape(PIN_FIELDS));
+export type PinFields = PinValues;
+export const PIN_FIELD_NAMES = fieldKeys(PIN_FIELDS);
 
 /** What a new cavity holds: nothing anyone entered. */
-export const BLANK_PIN_VALUES: PinFields = {
-  function: '',
-  signalClass: 'none',
-  colour: '',
-  sizeMm2: null,
-  insulationRatingC: null,
-  disposition: 'undecided',
-  destination: '',
-  destinationPinId: null,
-  destinationFeedId: null,
-  runLengthM: null,
-  loadCurrentA: null,
-  notes: '',
-};
+export const BLANK_PIN_VALUES: PinFields = blankRecord(PIN_FIELDS);
 
 /** Whether a pin holds anything a person entered (so removing its cavity would lose work). */
 export function pinHoldsData(pin: PinFields): boolean {

@@ -1,10 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { awgAreaMm2 } from '../../../shared/domain/wire-sizes.ts';
+import { parseDisposition, parseSignalClass } from '../../../shared/domain/fields/text-parsers.ts';
 import {
   parseCell,
   parseDestination,
-  parseDisposition,
-  parseSignalClass,
   type CellContext,
 } from '../../../src/features/pin-map/lib/cell-values.ts';
 

@@ -2,29 +2,32 @@
  * The pin grid's columns as data: what each shows as text (to edit, copy and search), which pin
  * fields it owns, and whether it can be typed into. The React rendering lives in components/.
  */
-import { DISPOSITION_INFO, DISPOSITIONS } from '#shared/domain/dispositions.ts';
-import { SIGNAL_CLASS_LABELS, SIGNAL_CLASSES } from '#shared/domain/signal-classes.ts';
-import { editableWireSize } from '#shared/domain/wire-sizes.ts';
+import { DISPOSITIONS } from '#shared/domain/dispositions.ts';
+import { SIGNAL_CLASSES } from '#shared/domain/signal-classes.ts';
+import {
+  fieldColumns,
+  type FieldSpec,
+  type GridColumnOf,
+} from '#shared/domain/fields/field-table.ts';
+import { PIN_FIELDS } from '#shared/domain/fields/pin-fields.ts';
 import type { PinFields } from '#shared/schemas/pin-map.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import type { EditableColumnId } from './cell-values.ts';
 import type { PinRow } from './rows.ts';
 
-export const PIN_COLUMNS = [
-  'connector',
-  'cavity',
-  'function',
-  'signalClass',
-  'colour',
-  'size',
-  'insulation',
-  'disposition',
-  'destination',
-  'runLength',
-  'load',
-  'notes',
-] as const;
-export type PinColumnId = (typeof PIN_COLUMNS)[number];
+const FIELD_COLUMNS = fieldColumns(PIN_FIELDS) as Array<
+  GridColumnOf<PinFields> & { id: EditableColumnId }
+>;
+const FIELD_COLUMN = new Map(FIELD_COLUMNS.map((c) => [c.id, c]));
+
+/** Which pin a row is; shown in every grid, never typed into. */
+const IDENTITY_COLUMNS = ['connector', 'cavity'] as const;
+
+export const PIN_COLUMNS: ReadonlyArray<PinColumnId> = [
+  ...IDENTITY_COLUMNS,
+  ...FIELD_COLUMNS.map((c) => c.id),
+];
+export type PinColumnId = (typeof IDENTITY_COLUMNS)[number] | EditableColumnId;
 
 /** The row-selection checkbox column: navigable, never edited, never pasted into. */
 export const SELECT_COLUMN = 'select';
@@ -34,61 +37,25 @@ export const isPinColumn = (id: string): id is PinColumnId =>
   (PIN_COLUMNS as readonly string[]).includes(id);
 
 export function columnHeader(id: PinColumnId, unit: SizeUnit): string {
-  switch (id) {
-    case 'connector':
-      return 'Connector';
-    case 'cavity':
-      return 'Cavity';
-    case 'function':
-      return 'Function';
-    case 'signalClass':
-      return 'Signal class';
-    case 'colour':
-      return 'Colour';
-    case 'size':
-      return unit === 'awg' ? 'Size AWG' : 'Size mm²';
-    case 'insulation':
-      return 'Insul. °C';
-    case 'disposition':
-      return 'Disposition';
-    case 'destination':
-      return 'Destination';
-    case 'runLength':
-      return 'Run m';
-    case 'load':
-      return 'Load A';
-    case 'notes':
-      return 'Notes';
-  }
+  if (id === 'connector') return 'Connector';
+  if (id === 'cavity') return 'Cavity';
+  const heading = FIELD_COLUMN.get(id)!.heading;
+  return typeof heading === 'string' ? heading : heading(unit);
 }
 
 /** The fields a column owns: what fill down copies and undo restores. */
-export const COLUMN_FIELDS: Record<EditableColumnId, Array<keyof PinFields>> = {
-  function: ['function'],
-  signalClass: ['signalClass'],
-  colour: ['colour'],
-  size: ['sizeMm2'],
-  insulation: ['insulationRatingC'],
-  disposition: ['disposition'],
-  destination: ['destination', 'destinationPinId', 'destinationFeedId'],
-  runLength: ['runLengthM'],
-  load: ['loadCurrentA'],
-  notes: ['notes'],
-};
+export const COLUMN_FIELDS = Object.fromEntries(
+  FIELD_COLUMNS.map((c) => [c.id, c.fields]),
+) as Record<EditableColumnId, Array<keyof PinFields>>;
 
-/** Columns that Delete empties; disposition and signal class always hold a choice. */
-export const CLEARABLE_COLUMNS: ReadonlySet<PinColumnId> = new Set([
-  'function',
-  'colour',
-  'size',
-  'insulation',
-  'destination',
-  'runLength',
-  'load',
-  'notes',
-]);
+/** Columns that Delete empties; a column whose fields have no empty value (a choice) keeps it. */
+export const CLEARABLE_COLUMNS: ReadonlySet<PinColumnId> = new Set(
+  FIELD_COLUMNS.filter((c) => c.fields.every((f) => isEmpty(PIN_FIELDS[f].blank))).map((c) => c.id),
+);
 
-const numberText = (n: number | null) => (n == null ? '' : String(n));
+function isEmpty(value: unknown): boolean {
+  return value === null || value === '';
+}
 
 /**
  * A cell as text, in the form its parser reads back: what the editor starts from, what copy puts
@@ -96,32 +63,12 @@ const numberText = (n: number | null) => (n == null ? '' : String(n));
  */
 export function cellText(row: PinRow, id: PinColumnId, unit: SizeUnit): string {
   const { pin } = row;
-  switch (id) {
-    case 'connector':
-      return row.connectorLabel;
-    case 'cavity':
-      return pin.cavity;
-    case 'function':
-      return pin.function;
-    case 'signalClass':
-      return pin.signalClass === 'none' ? '' : SIGNAL_CLASS_LABELS[pin.signalClass];
-    case 'colour':
-      return pin.colour;
-    case 'size':
-      return editableWireSize(pin.sizeMm2, unit);
-    case 'insulation':
-      return numberText(pin.insulationRatingC);
-    case 'disposition':
-      return DISPOSITION_INFO[pin.disposition].label;
-    case 'destination':
-      return row.linkedDestination || pin.destination;
-    case 'runLength':
-      return numberText(pin.runLengthM);
-    case 'load':
-      return numberText(pin.loadCurrentA);
-    case 'notes':
-      return pin.notes;
-  }
+  if (id === 'connector') return row.connectorLabel;
+  if (id === 'cavity') return pin.cavity;
+  if (id === 'destination') return row.linkedDestination || pin.destination;
+  const [key] = COLUMN_FIELDS[id] as [keyof PinFields];
+  const spec = PIN_FIELDS[key] as FieldSpec<PinFields[typeof key]>;
+  return spec.format(pin[key], unit);
 }
 
 const DISPOSITION_ORDER = new Map(DISPOSITIONS.map((d, i) => [d, i]));

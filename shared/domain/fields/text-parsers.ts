@@ -1,0 +1,112 @@
+/**
+ * Readers for what a person types or pastes into a field, shared by the grid, the CSV import and
+ * the field tables: a value means the same thing however it arrives.
+ */
+import { DISPOSITION_INFO, DISPOSITIONS, type Disposition } from '../dispositions.ts';
+import { SIGNAL_CLASS_LABELS, SIGNAL_CLASSES, type SignalClass } from '../signal-classes.ts';
+import { INSULATION_RATINGS_C } from '../../schemas/workshop.schema.ts';
+import { parsed, refused, type FieldParse } from './field-table.ts';
+
+/** Lower case, letters and digits only: "De-pin" → "depin", "Shield / drain" → "shielddrain". */
+const squash = (text: string) => text.toLowerCase().replace(/[^a-z0-9]/g, '');
+
+function aliasTable<T extends string>(entries: Array<[T, string[]]>): Map<string, T> {
+  const table = new Map<string, T>();
+  for (const [value, aliases] of entries) {
+    for (const alias of aliases) table.set(squash(alias), value);
+  }
+  return table;
+}
+
+const DISPOSITION_ALIASES = aliasTable<Disposition>(
+  DISPOSITIONS.map((d) => {
+    const info = DISPOSITION_INFO[d];
+    const firstWord = info.label.split(/[\s/]+/)[0] ?? d;
+    return [d, [d, info.label, info.short === '?' ? 'undecided' : info.short, firstWord]];
+  }),
+);
+// The other half of "Extend / reroute" is a word people use on its own.
+DISPOSITION_ALIASES.set('reroute', 'extend');
+
+/** "De-pin", "depin", "Keep as is", "keep", "ext": by label, code or short word. Empty is undecided. */
+export function parseDisposition(text: string): FieldParse<Disposition> {
+  if (text.trim() === '') return parsed('undecided');
+  const found = DISPOSITION_ALIASES.get(squash(text));
+  if (found) return parsed(found);
+  const words = DISPOSITIONS.map((d) => DISPOSITION_INFO[d].label).join(', ');
+  return refused(`"${text.trim()}" is not a disposition: use one of ${words}`);
+}
+
+const SIGNAL_CLASS_ALIASES = aliasTable<SignalClass>(
+  SIGNAL_CLASSES.map((s) => [s, [s, SIGNAL_CLASS_LABELS[s]]]),
+);
+SIGNAL_CLASS_ALIASES.set('shield', 'shield');
+SIGNAL_CLASS_ALIASES.set('drain', 'shield');
+SIGNAL_CLASS_ALIASES.set('none', 'none');
+
+/** "Sensor ground" or "sensor_ground"; empty is "Not set". */
+export function parseSignalClass(text: string): FieldParse<SignalClass> {
+  if (text.trim() === '') return parsed('none');
+  const found = SIGNAL_CLASS_ALIASES.get(squash(text));
+  if (found) return parsed(found);
+  const words = SIGNAL_CLASSES.map((s) => SIGNAL_CLASS_LABELS[s]).join(', ');
+  return refused(`"${text.trim()}" is not a signal class: use one of ${words}`);
+}
+
+export interface Measure {
+  suffixes: RegExp;
+  name: string;
+  min: number;
+  max: number;
+}
+
+/** "1.5", "1,5", "1.5 m": a number with an optional unit, within [min, max]; empty is null. */
+export function parseMeasure(text: string, unit: Measure): FieldParse<number | null> {
+  const bare = text.trim().replace(unit.suffixes, '').trim().replace(',', '.');
+  if (bare === '') return parsed(null);
+  const value = Number(bare);
+  // Exponent notation too: it is how the shortest exact text of a very small number is written.
+  if (!/^\d*\.?\d+(e[-+]?\d+)?$/i.test(bare) || !Number.isFinite(value)) {
+    return refused(`"${text.trim()}" is not a number of ${unit.name}`);
+  }
+  if (value < unit.min || value > unit.max) {
+    return refused(`${value} is outside ${unit.min} to ${unit.max} ${unit.name}`);
+  }
+  return parsed(value);
+}
+
+export const RUN_LENGTH: Measure = {
+  suffixes: /\s*(m|metres?|meters?)$/i,
+  name: 'metres',
+  min: 0,
+  max: 100,
+};
+export const LOAD_CURRENT: Measure = {
+  suffixes: /\s*(a|amps?|amperes?)$/i,
+  name: 'amperes',
+  min: 0,
+  max: 200,
+};
+
+/** "105", "105 °C", "105C": one of the insulation ratings wire is sold in. */
+export function parseInsulationRating(text: string): FieldParse<number | null> {
+  const bare = text
+    .trim()
+    .replace(/\s*°?\s*c$/i, '')
+    .trim();
+  if (bare === '') return parsed(null);
+  const value = Number(bare);
+  if (!(INSULATION_RATINGS_C as readonly number[]).includes(value)) {
+    return refused(
+      `"${text.trim()}" is not an insulation rating: use ${INSULATION_RATINGS_C.join(', ')} °C`,
+    );
+  }
+  return parsed(value);
+}
+
+/** Text trimmed (and on one line when `oneLine`), at most `max` characters. */
+export function parseText(text: string, max: number, oneLine = false): FieldParse<string> {
+  const trimmed = oneLine ? text.replace(/\s+/g, ' ').trim() : text.trim();
+  if (trimmed.length > max) return refused(`at most ${max} characters (this is ${trimmed.length})`);
+  return parsed(trimmed);
+}
