@@ -1,44 +1,29 @@
 import { z } from 'zod';
+import { csvColumns } from '../domain/fields/field-table.ts';
+import { PIN_FIELDS } from '../domain/fields/pin-fields.ts';
+
+/** The columns that say which pin a row is, before the pin's own fields. */
+const IDENTITY_COLUMNS = [
+  { header: 'connector', label: 'Connector' },
+  { header: 'cavity', label: 'Cavity' },
+] as const;
+
+const PIN_CSV_COLUMNS = csvColumns(PIN_FIELDS);
 
 /**
- * The columns a pinout CSV can carry, in the order Loomwright writes them. The first nine after
- * `connector` are the canonical pinout headers; `insulation_c`, `feed`, `run_length_m` and
- * `load_current_a` carry the rest of a pin so that export → import loses nothing.
+ * The columns a pinout CSV can carry, in the order Loomwright writes them: `connector`, `cavity`,
+ * then each pin field's columns from the pin field table, so that export → import loses nothing.
  */
-export const IMPORT_FIELDS = [
-  'connector',
-  'cavity',
-  'function',
-  'signal_class',
-  'colour',
-  'size_mm2',
-  'awg',
-  'insulation_c',
-  'disposition',
-  'destination',
-  'feed',
-  'run_length_m',
-  'load_current_a',
-  'notes',
-] as const;
-export type ImportField = (typeof IMPORT_FIELDS)[number];
+export const IMPORT_FIELDS: readonly string[] = [
+  ...IDENTITY_COLUMNS.map((c) => c.header),
+  ...PIN_CSV_COLUMNS.map((c) => c.column.header),
+];
+export type ImportField = string;
 
-export const IMPORT_FIELD_LABELS: Record<ImportField, string> = {
-  connector: 'Connector',
-  cavity: 'Cavity',
-  function: 'Function',
-  signal_class: 'Signal class',
-  colour: 'Wire colour (IEC 60757)',
-  size_mm2: 'Wire size, mm²',
-  awg: 'Wire size, AWG',
-  insulation_c: 'Insulation rating, °C',
-  disposition: 'Disposition',
-  destination: 'Destination',
-  feed: 'Joined to feed',
-  run_length_m: 'Run length, m',
-  load_current_a: 'Load current, A',
-  notes: 'Notes',
-};
+export const IMPORT_FIELD_LABELS: Readonly<Record<ImportField, string>> = Object.fromEntries([
+  ...IDENTITY_COLUMNS.map((c) => [c.header, c.label]),
+  ...PIN_CSV_COLUMNS.map((c) => [c.column.header, c.column.label]),
+]);
 
 /** What a column of the file is used for: one field, or nothing. */
 export const IGNORE = 'ignore' as const;
@@ -46,10 +31,12 @@ export type ColumnTarget = ImportField | typeof IGNORE;
 export const COLUMN_TARGETS = [...IMPORT_FIELDS, IGNORE] as const;
 
 /** Headers recognised without a mapping (after lower-casing; spaces and hyphens read as `_`). */
-export const HEADER_ALIASES: Readonly<Record<string, ImportField>> = Object.freeze({
-  ...Object.fromEntries(IMPORT_FIELDS.map((f) => [f, f])),
-  color: 'colour',
-});
+export const HEADER_ALIASES: Readonly<Record<string, ImportField>> = Object.freeze(
+  Object.fromEntries([
+    ...IMPORT_FIELDS.map((f) => [f, f]),
+    ...PIN_CSV_COLUMNS.flatMap((c) => (c.column.aliases ?? []).map((a) => [a, c.column.header])),
+  ]),
+);
 
 /** `?dryRun=1` previews; anything else applies. */
 export const ImportQuery = z.strictObject({

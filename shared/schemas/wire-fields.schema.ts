@@ -11,13 +11,6 @@ import { INSULATION_RATINGS_C } from './workshop.schema.ts';
 export const DispositionSchema = z.enum(DISPOSITIONS);
 export const SignalClassSchema = z.enum(SIGNAL_CLASSES);
 
-/** Text on one line: runs of white space (line breaks too) become one space, ends trimmed. */
-export const oneLineText = (max: number) =>
-  z
-    .string()
-    .transform((s) => s.replace(/\s+/g, ' ').trim())
-    .pipe(z.string().max(max));
-
 /** '' (not recorded) or an IEC 60757 colour, normalised to "BU/WH". */
 export const WireColourSchema = z
   .string()

@@ -496,7 +496,7 @@ describe('export', () => {
     expect(preview.body.errors).toEqual([]);
     expect(preview.body.changes[0].fields).toEqual(
       expect.arrayContaining([
-        expect.objectContaining({ field: 'feed', after: 'ECU main' }),
+        expect.objectContaining({ field: 'destinationFeedId', after: 'ECU main' }),
         expect.objectContaining({ field: 'disposition', after: 'Join to vehicle circuit' }),
       ]),
     );

@@ -1,7 +1,9 @@
 import { csvRecord, UTF8_BOM } from '#shared/domain/csv.ts';
 import { cavityName } from '#shared/domain/pin-names.ts';
-import { exactAwg, formatAwgGauge } from '#shared/domain/wire-sizes.ts';
+import { csvColumns, type FieldSpec } from '#shared/domain/fields/field-table.ts';
+import { PIN_FIELDS } from '#shared/domain/fields/pin-fields.ts';
 import { IMPORT_FIELDS, type ImportField } from '#shared/schemas/imports.schema.ts';
+import { BLANK_PIN_VALUES, type PinFields } from '#shared/schemas/pin-map.schema.ts';
 import { Connector, Feed, Pin } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
@@ -14,40 +16,29 @@ export const TEMPLATE_FIELDS: readonly ImportField[] = IMPORT_FIELDS.filter(
   (f) => f !== 'connector',
 );
 
-interface ExportPin {
-  cavity: string;
-  function: string;
-  signalClass: string;
-  colour: string;
-  sizeMm2: number | null;
-  insulationRatingC: number | null;
-  disposition: string;
-  destination: string;
-  feed: string;
-  runLengthM: number | null;
-  loadCurrentA: number | null;
-  notes: string;
-}
+const PIN_CSV_COLUMNS = csvColumns(PIN_FIELDS);
 
-/** One pin as a row of cells in IMPORT_FIELDS order; the size also in AWG when it is one exactly. */
-function pinCells(connector: string | null, pin: ExportPin): Record<ImportField, Cell> {
-  const awg = pin.sizeMm2 == null ? null : exactAwg(pin.sizeMm2);
-  return {
-    connector,
-    cavity: pin.cavity,
-    function: pin.function,
-    signal_class: pin.signalClass,
-    colour: pin.colour,
-    size_mm2: pin.sizeMm2,
-    awg: awg === null ? null : formatAwgGauge(awg),
-    insulation_c: pin.insulationRatingC,
-    disposition: pin.disposition,
-    destination: pin.destination,
-    feed: pin.feed,
-    run_length_m: pin.runLengthM,
-    load_current_a: pin.loadCurrentA,
-    notes: pin.notes,
-  };
+/**
+ * One pin as a row of cells in IMPORT_FIELDS order, each column written as the pin field table
+ * says. A link travels by name: `destination` holds the linked cavity's name when there is one.
+ */
+function pinCells(
+  connector: string | null,
+  cavity: string,
+  pin: PinFields,
+  feedName: string,
+): Record<ImportField, Cell> {
+  const cells: Record<ImportField, Cell> = { connector, cavity };
+  for (const { key, column } of PIN_CSV_COLUMNS) {
+    const spec = PIN_FIELDS[key] as FieldSpec<unknown>;
+    cells[column.header] =
+      column.names === 'feed'
+        ? feedName
+        : column.write
+          ? column.write(pin[key])
+          : spec.format(pin[key], 'mm2');
+  }
+  return cells;
 }
 
 /** A name safe for Content-Disposition: letters, digits, dot, dash and underscore. */
@@ -84,13 +75,17 @@ export async function exportPinsCsv(
   let body = UTF8_BOM + csvRecord(IMPORT_FIELDS);
   for (const pin of pins) {
     const target = pin.destinationPinId == null ? undefined : byId.get(pin.destinationPinId);
-    const cells = pinCells(labels.get(pin.connectorId) ?? '', {
-      ...pin,
-      destination: target
-        ? cavityName(labels.get(target.connectorId) ?? '', target.cavity)
-        : pin.destination,
-      feed: pin.destinationFeedId == null ? '' : (feedNames.get(pin.destinationFeedId) ?? ''),
-    });
+    const cells = pinCells(
+      labels.get(pin.connectorId) ?? '',
+      pin.cavity,
+      {
+        ...pin,
+        destination: target
+          ? cavityName(labels.get(target.connectorId) ?? '', target.cavity)
+          : pin.destination,
+      },
+      pin.destinationFeedId == null ? '' : (feedNames.get(pin.destinationFeedId) ?? ''),
+    );
     body += csvRecord(IMPORT_FIELDS.map((f) => cells[f]));
   }
   return { fileName: `${safeFileName(conversion.name)}-pins.csv`, body };
@@ -98,19 +93,22 @@ export async function exportPinsCsv(
 
 /** The blank pinout file: the headers and one example row (an invented pin of the demo's E2). */
 export function templateCsv(): string {
-  const example = pinCells(null, {
-    cavity: '2',
-    function: 'ECU main feed 1 (from main relay)',
-    signalClass: 'power_feed',
-    colour: 'RD',
-    sizeMm2: 1.5,
-    insulationRatingC: 105,
-    disposition: 'join',
-    destination: '',
-    feed: 'ECU main',
-    runLengthM: 1.5,
-    loadCurrentA: 5,
-    notes: 'Example row: replace it with your pinout.',
-  });
+  const example = pinCells(
+    null,
+    '2',
+    {
+      ...BLANK_PIN_VALUES,
+      function: 'ECU main feed 1 (from main relay)',
+      signalClass: 'power_feed',
+      colour: 'RD',
+      sizeMm2: 1.5,
+      insulationRatingC: 105,
+      disposition: 'join',
+      runLengthM: 1.5,
+      loadCurrentA: 5,
+      notes: 'Example row: replace it with your pinout.',
+    },
+    'ECU main',
+  );
   return UTF8_BOM + csvRecord(TEMPLATE_FIELDS) + csvRecord(TEMPLATE_FIELDS.map((f) => example[f]));
 }

@@ -8,6 +8,7 @@ import {
   type ImportResult,
 } from '#shared/schemas/imports.schema.ts';
 import { PIN_FIELD_NAMES } from '#shared/schemas/pin-map.schema.ts';
+import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { db } from '../../db/index.ts';
 import {
   Connector,
@@ -17,6 +18,7 @@ import {
   Pin,
   PinImport,
   User,
+  Workshop,
 } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound } from '../../lib/errors.ts';
@@ -49,18 +51,22 @@ interface Where {
   conversionId: number;
   connectorId: number | null;
   label: string | null;
+  /** The workshop's size unit, in which the plan shows sizes. */
+  sizeUnit: SizeUnit;
 }
 
 async function locate(actor: Actor, target: ImportTarget): Promise<Where> {
+  const sizeUnit = (await Workshop.findByPk(actor.workshopId))?.sizeUnit ?? 'mm2';
   if (target.kind === 'conversion') {
     await findConversionInWorkshop(actor, target.conversionId);
-    return { conversionId: target.conversionId, connectorId: null, label: null };
+    return { conversionId: target.conversionId, connectorId: null, label: null, sizeUnit };
   }
   const connector = await findConnectorInWorkshop(actor, target.connectorId);
   return {
     conversionId: connector.conversionId,
     connectorId: connector.id,
     label: connector.label,
+    sizeUnit,
   };
 }
 
@@ -105,6 +111,7 @@ async function loadContext(where: Where, transaction?: Transaction): Promise<Pla
     pins,
     feeds: feeds.map((f) => ({ id: f.id, name: f.name })),
     referencedPinIds,
+    sizeUnit: where.sizeUnit,
     target:
       where.connectorId === null
         ? { kind: 'conversion' }

@@ -10,11 +10,10 @@
  * - a cavity of the connector that the file does not name is removed if it is blank; if it holds
  *   anything, or other pins or feeds point at it, the import is refused naming those cavities.
  */
-import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
+import { fieldKeys, showField } from '#shared/domain/fields/field-table.ts';
+import { PIN_FIELDS } from '#shared/domain/fields/pin-fields.ts';
 import { pinNames } from '#shared/domain/pin-names.ts';
-import { SIGNAL_CLASS_LABELS } from '#shared/domain/signal-classes.ts';
 import { parseWireColour } from '#shared/domain/wire-colours.ts';
-import { exactAwg, formatAwgGauge, formatWireSize } from '#shared/domain/wire-sizes.ts';
 import type {
   FieldChange,
   ImportChange,
@@ -30,6 +29,7 @@ import {
   type ConnectorSide,
   type PinFields,
 } from '#shared/schemas/pin-map.schema.ts';
+import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import type { PinRow } from './rows.ts';
 
 export interface PinData extends PinFields {
@@ -57,16 +57,15 @@ export interface PlanContext {
   /** Pins that feeds or other pins point at: never removed by an import. */
   referencedPinIds: ReadonlySet<number>;
   target: { kind: 'connector'; connectorId: number } | { kind: 'conversion' };
+  /** The workshop's unit, in which the plan shows sizes; mm² when not given. */
+  sizeUnit?: SizeUnit;
 }
-
-/** The fields an import writes, beyond cavity and position: every field a person sets on a pin. */
-export type PinValues = PinFields;
 
 export interface ConnectorPlan {
   connectorId: number;
   label: string;
   /** New cavities, with their face position. */
-  adds: Array<PinValues & { cavity: string; position: number }>;
+  adds: Array<PinFields & { cavity: string; position: number }>;
   /** Existing pins whose fields or face position change; `version` is the new version. */
   updates: PinData[];
   removes: number[];
@@ -82,83 +81,42 @@ export interface Plan {
   connectors: ConnectorPlan[];
 }
 
-const FIELD_LABELS: Record<string, string> = {
-  function: 'Function',
-  signalClass: 'Signal class',
-  colour: 'Colour',
-  sizeMm2: 'Size',
-  insulationRatingC: 'Insulation',
-  disposition: 'Disposition',
-  destination: 'Destination',
-  feed: 'Joined to feed',
-  runLengthM: 'Run length',
-  loadCurrentA: 'Load current',
-  notes: 'Notes',
-};
-
 export interface Names {
   pinName: (id: number | null) => string;
   feedName: (id: number | null) => string;
 }
 
-function display(field: string, pin: PinValues, names: Names): string {
-  switch (field) {
-    case 'signalClass':
-      return pin.signalClass === 'none' ? '' : SIGNAL_CLASS_LABELS[pin.signalClass];
-    case 'sizeMm2': {
-      if (pin.sizeMm2 == null) return '';
-      const awg = exactAwg(pin.sizeMm2);
-      return `${formatWireSize(pin.sizeMm2, 'mm2')}${awg !== null ? ` (${formatAwgGauge(awg)} AWG)` : ''}`;
-    }
-    case 'insulationRatingC':
-      return pin.insulationRatingC == null ? '' : `${pin.insulationRatingC} °C`;
-    case 'disposition':
-      return DISPOSITION_INFO[pin.disposition].label;
-    case 'destination':
-      return pin.destinationPinId != null
-        ? `→ ${names.pinName(pin.destinationPinId)}`
-        : pin.destination;
-    case 'feed':
-      return names.feedName(pin.destinationFeedId);
-    case 'runLengthM':
-      return pin.runLengthM == null ? '' : `${pin.runLengthM} m`;
-    case 'loadCurrentA':
-      return pin.loadCurrentA == null ? '' : `${pin.loadCurrentA} A`;
-    default:
-      return String(pin[field as keyof PinValues] ?? '');
+/**
+ * A plan lists changes in the file's terms: a link to a cavity travels in the destination's column,
+ * so the destination and its link are one "Destination"; a joined feed is shown by its name.
+ */
+const SHOWN_FIELDS = fieldKeys(PIN_FIELDS).filter((key) => key !== 'destinationPinId');
+
+function display(key: keyof PinFields, pin: PinFields, names: Names, unit: SizeUnit): string {
+  if (key === 'destination' && pin.destinationPinId != null) {
+    return `→ ${names.pinName(pin.destinationPinId)}`;
   }
+  if (key === 'destinationFeedId') return names.feedName(pin.destinationFeedId);
+  return showField(PIN_FIELDS, key, pin[key], unit);
 }
 
-/** Display fields in file-column terms: destination text and link are one "Destination". */
-const DISPLAY_FIELDS = [
-  'function',
-  'signalClass',
-  'colour',
-  'sizeMm2',
-  'insulationRatingC',
-  'disposition',
-  'destination',
-  'feed',
-  'runLengthM',
-  'loadCurrentA',
-  'notes',
-];
+function differs(key: keyof PinFields, before: PinFields, after: PinFields): boolean {
+  if (key === 'destination' && before.destinationPinId !== after.destinationPinId) return true;
+  return before[key] !== after[key];
+}
 
-export function fieldChanges(before: PinValues, after: PinValues, names: Names): FieldChange[] {
-  const changes: FieldChange[] = [];
-  for (const field of DISPLAY_FIELDS) {
-    const b = display(field, before, names);
-    const a = display(field, after, names);
-    const differs =
-      field === 'destination'
-        ? before.destination !== after.destination ||
-          before.destinationPinId !== after.destinationPinId
-        : field === 'feed'
-          ? before.destinationFeedId !== after.destinationFeedId
-          : before[field as keyof PinValues] !== after[field as keyof PinValues];
-    if (differs) changes.push({ field, label: FIELD_LABELS[field]!, before: b, after: a });
-  }
-  return changes;
+export function fieldChanges(
+  before: PinFields,
+  after: PinFields,
+  names: Names,
+  unit: SizeUnit = 'mm2',
+): FieldChange[] {
+  return SHOWN_FIELDS.filter((key) => differs(key, before, after)).map((key) => ({
+    field: key,
+    label: PIN_FIELDS[key].label,
+    before: display(key, before, names, unit),
+    after: display(key, after, names, unit),
+  }));
 }
 
 export function makeNames(ctx: Pick<PlanContext, 'connectors' | 'pins' | 'feeds'>): Names {
@@ -169,6 +127,14 @@ export function makeNames(ctx: Pick<PlanContext, 'connectors' | 'pins' | 'feeds'
     feedName: (id) => (id == null ? '' : (feeds.get(id) ?? '')),
   };
 }
+
+/**
+ * Fields a row's value is copied into as read; the colour is compared as a colour, and the
+ * destination and feed name links the plan resolves.
+ */
+const VALUE_FIELDS = fieldKeys(PIN_FIELDS).filter(
+  (key) => !['colour', 'destination', 'destinationPinId', 'destinationFeedId'].includes(key),
+);
 
 function sameColour(stored: string, imported: string): boolean {
   if (stored === imported) return true;
@@ -198,6 +164,7 @@ export function planImport(
   const changes: ImportChange[] = [];
   const summary: ImportSummary = { added: 0, changed: 0, unchanged: 0, removed: 0 };
   const names = makeNames(ctx);
+  const unit = ctx.sizeUnit ?? 'mm2';
 
   // Destinations: "V1-3" (any case, optionally after "→") names a vehicle-side cavity.
   const vehicleConnectors = new Set(
@@ -289,22 +256,13 @@ export function planImport(
       byFolded.set(key, byFolded.has(key) ? null : p);
     }
 
-    const resolve = (row: PinRow, before: PinValues, selfId: number | null): PinValues => {
+    const resolve = (row: PinRow, before: PinFields, selfId: number | null): PinFields => {
       const v = row.values;
-      const after: PinValues = { ...before };
+      const after: PinFields = { ...before };
       // "GN/YE" stored by hand and "GNYE" from the file are one colour: not a change.
       if (v.colour !== undefined && !sameColour(before.colour, v.colour)) after.colour = v.colour;
-      for (const key of [
-        'function',
-        'signalClass',
-        'sizeMm2',
-        'insulationRatingC',
-        'disposition',
-        'runLengthM',
-        'loadCurrentA',
-        'notes',
-      ] as const) {
-        if (v[key] !== undefined) (after as Record<string, unknown>)[key] = v[key];
+      for (const key of VALUE_FIELDS) {
+        if (v[key] !== undefined) (after as unknown as Record<string, unknown>)[key] = v[key];
       }
       if (v.destination !== undefined) {
         const text = v.destination.replace(/^→\s*/, '').trim();
@@ -355,13 +313,13 @@ export function planImport(
     };
     const kept = new Map<number, PinData>();
     const newVersions = new Map<number, PinData>();
-    const addsInOrder: Array<PinValues & { cavity: string }> = [];
+    const addsInOrder: Array<PinFields & { cavity: string }> = [];
     for (const row of fileRows ?? []) {
       const pin = byCavity.get(row.cavity) ?? byFolded.get(row.cavity.toUpperCase()) ?? null;
       if (pin) {
         kept.set(pin.id, pin);
         const after = resolve(row, pin, pin.id);
-        const fields = fieldChanges(pin, after, names);
+        const fields = fieldChanges(pin, after, names, unit);
         if (fields.length) {
           summary.changed++;
           changes.push({
@@ -382,7 +340,7 @@ export function planImport(
           connector: connector.label,
           cavity: row.cavity,
           row: row.row,
-          fields: fieldChanges(BLANK_PIN_VALUES, after, names),
+          fields: fieldChanges(BLANK_PIN_VALUES, after, names, unit),
         });
         addsInOrder.push({ ...after, cavity: row.cavity });
       }

@@ -8,7 +8,6 @@ import { optionalText } from '../../schemas/common.schema.ts';
 import {
   DispositionSchema,
   InsulationRatingSchema,
-  oneLineText,
   SignalClassSchema,
   WireColourSchema,
   WireSizeMm2Schema,
@@ -101,9 +100,9 @@ const LinkId = z.number().int().positive().nullable();
 export const PIN_FIELDS = {
   function: field({
     label: 'Function',
-    schema: oneLineText(200),
+    schema: optionalText(200),
     blank: '',
-    parse: (text) => parseText(text, 200, true),
+    parse: (text) => parseText(text, 200),
     format: (v) => v,
     csv: [{ header: 'function', label: 'Function' }],
     column: { id: 'function', heading: 'Function' },
@@ -177,9 +176,9 @@ export const PIN_FIELDS = {
   }),
   destination: field({
     label: 'Destination',
-    schema: oneLineText(200),
+    schema: optionalText(200),
     blank: '',
-    parse: (text) => parseText(text, 200, true),
+    parse: (text) => parseText(text, 200),
     format: (v) => v,
     // The column also carries a link to a vehicle-side cavity, written as its name ("V1-3").
     csv: [{ header: 'destination', label: 'Destination' }],

@@ -33,7 +33,7 @@ export function parseDisposition(text: string): FieldParse<Disposition> {
   if (text.trim() === '') return parsed('undecided');
   const found = DISPOSITION_ALIASES.get(squash(text));
   if (found) return parsed(found);
-  const words = DISPOSITIONS.map((d) => DISPOSITION_INFO[d].label).join(', ');
+  const words = DISPOSITIONS.map((d) => `${d} (${DISPOSITION_INFO[d].label})`).join(', ');
   return refused(`"${text.trim()}" is not a disposition: use one of ${words}`);
 }
 
@@ -49,7 +49,7 @@ export function parseSignalClass(text: string): FieldParse<SignalClass> {
   if (text.trim() === '') return parsed('none');
   const found = SIGNAL_CLASS_ALIASES.get(squash(text));
   if (found) return parsed(found);
-  const words = SIGNAL_CLASSES.map((s) => SIGNAL_CLASS_LABELS[s]).join(', ');
+  const words = SIGNAL_CLASSES.map((s) => `${s} (${SIGNAL_CLASS_LABELS[s]})`).join(', ');
   return refused(`"${text.trim()}" is not a signal class: use one of ${words}`);
 }
 
@@ -104,9 +104,9 @@ export function parseInsulationRating(text: string): FieldParse<number | null> {
   return parsed(value);
 }
 
-/** Text trimmed (and on one line when `oneLine`), at most `max` characters. */
-export function parseText(text: string, max: number, oneLine = false): FieldParse<string> {
-  const trimmed = oneLine ? text.replace(/\s+/g, ' ').trim() : text.trim();
+/** Text trimmed, at most `max` characters (as the API's `optionalText` reads it). */
+export function parseText(text: string, max: number): FieldParse<string> {
+  const trimmed = text.trim();
   if (trimmed.length > max) return refused(`at most ${max} characters (this is ${trimmed.length})`);
   return parsed(trimmed);
 }
