@@ -5,6 +5,7 @@
 import PDFDocument from 'pdfkit';
 import { DISPOSITION_INFO, type Disposition } from '../../shared/domain/dispositions.ts';
 import { formatWireSize } from '../../shared/domain/wire-sizes.ts';
+import { BLANK_PIN_VALUES } from '../../shared/schemas/pin-map.schema.ts';
 import type { ConversionSnapshot, SnapshotPin } from '../../shared/schemas/snapshot.schema.ts';
 import { registerFonts } from '../../server/modules/worksheets/pdf/fonts.ts';
 import type { WorksheetMeta } from '../../server/modules/worksheets/pdf/meta.ts';
@@ -38,6 +39,7 @@ function snapshot300(): ConversionSnapshot {
         conversionId: 1,
         cavity: String(i + 1),
         position: i,
+        ...BLANK_PIN_VALUES,
         function: `Generated circuit ${c + 1}.${i + 1} to the bench test point`,
         signalClass: 'sensor_signal',
         colour: 'BU/WH',
@@ -45,8 +47,6 @@ function snapshot300(): ConversionSnapshot {
         insulationRatingC: 105,
         disposition,
         destination: disposition === 'join' ? `Bench test point ${i}` : '',
-        destinationPinId: null,
-        destinationFeedId: null,
         runLengthM: disposition === 'join' || disposition === 'extend' ? 1.5 : null,
         loadCurrentA: 0.1,
         notes: i % 10 === 0 ? 'Route along the existing loom; tie every 150 mm.' : '',

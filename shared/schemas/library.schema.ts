@@ -1,6 +1,5 @@
 import { z } from 'zod';
-import type { Disposition } from '../domain/dispositions.ts';
-import type { SignalClass } from '../domain/signal-classes.ts';
+import type { PinValues, TemplatePinKey } from '../domain/fields/pin-fields.ts';
 import { optionalText, requiredText } from './common.schema.ts';
 import { CONNECTOR_SIDES, type ConnectorSide } from './pin-map.schema.ts';
 
@@ -21,17 +20,8 @@ export const ConnectorFromTemplateRequest = z.strictObject({
 });
 export type ConnectorFromTemplateRequest = z.infer<typeof ConnectorFromTemplateRequest>;
 
-export interface TemplatePin {
-  cavity: string;
-  position: number;
-  function: string;
-  signalClass: SignalClass;
-  colour: string;
-  sizeMm2: number | null;
-  insulationRatingC: number | null;
-  disposition: Disposition;
-  notes: string;
-}
+/** A cavity of a template with the pin fields a template keeps (the pin field table says which). */
+export type TemplatePin = { cavity: string; position: number } & Pick<PinValues, TemplatePinKey>;
 
 export interface PinoutTemplate {
   id: number;

@@ -1,4 +1,5 @@
 import type { Feed } from '#shared/schemas/feeds.schema.ts';
+import { BLANK_PIN_VALUES } from '#shared/schemas/pin-map.schema.ts';
 import type { ConversionSnapshot, SnapshotPin } from '#shared/schemas/snapshot.schema.ts';
 
 /** A small conversion for rule tests: one ECU connector (id 1) and one vehicle connector (id 2). */
@@ -11,18 +12,11 @@ export function snapshot(
     conversionId: 1,
     cavity: String(i + 1),
     position: i,
+    ...BLANK_PIN_VALUES,
     function: `Pin ${i + 1}`,
-    signalClass: 'none',
-    colour: '',
     sizeMm2: 0.5,
     insulationRatingC: 105,
     disposition: 'keep',
-    destination: '',
-    destinationPinId: null,
-    destinationFeedId: null,
-    runLengthM: null,
-    loadCurrentA: null,
-    notes: '',
     ...p,
   }));
   const feeds = (parts.feeds ?? []).map((f, i) => ({

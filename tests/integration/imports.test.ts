@@ -6,7 +6,7 @@ import { QueryTypes } from 'sequelize';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ImportResult } from '#shared/schemas/imports.schema.ts';
-import type { Pin } from '#shared/schemas/pin-map.schema.ts';
+import { BLANK_PIN_VALUES, type Pin } from '#shared/schemas/pin-map.schema.ts';
 import { db } from '#server/db/index.ts';
 import { AuditEvent, Connector, Pin as PinModel, PinImport } from '#server/db/models/index.ts';
 import { createOtherWorkshop } from '../factories/workshop.factory.ts';
@@ -542,23 +542,7 @@ describe('export', () => {
     const file = await exportCsv();
     expect(file).toContain(',18,125,');
 
-    await PinModel.update(
-      {
-        function: '',
-        signalClass: 'none',
-        colour: '',
-        sizeMm2: null,
-        insulationRatingC: null,
-        disposition: 'undecided',
-        destination: '',
-        destinationPinId: null,
-        destinationFeedId: null,
-        runLengthM: null,
-        loadCurrentA: null,
-        notes: '',
-      },
-      { where: { conversionId: conversion } },
-    );
+    await PinModel.update(BLANK_PIN_VALUES, { where: { conversionId: conversion } });
     const res = await upload(intoConversion(conversion), file, { filename: 'export.csv' });
     expect(res.status).toBe(200);
     expect(res.body.errors).toEqual([]);

@@ -6,7 +6,8 @@ import type {
   SaveTemplateRequest,
   TemplatePin,
 } from '#shared/schemas/library.schema.ts';
-import type { Connector as ConnectorDto } from '#shared/schemas/pin-map.schema.ts';
+import type { Connector as ConnectorDto, PinFields } from '#shared/schemas/pin-map.schema.ts';
+import { TEMPLATE_PIN_FIELDS, type TemplatePinKey } from '#shared/domain/fields/pin-fields.ts';
 import { db } from '../../db/index.ts';
 import { Pin, PinoutTemplate, PinoutTemplatePin, User } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
@@ -30,18 +31,16 @@ function toTemplateDto(t: PinoutTemplate): TemplateDto {
   };
 }
 
+/** The pin fields a template keeps, taken from a pin or a template's pin. */
+function templateFields(p: Pick<PinFields, TemplatePinKey>): Pick<PinFields, TemplatePinKey> {
+  return Object.fromEntries(TEMPLATE_PIN_FIELDS.map((k) => [k, p[k]])) as Pick<
+    PinFields,
+    TemplatePinKey
+  >;
+}
+
 function toTemplatePin(p: PinoutTemplatePin): TemplatePin {
-  return {
-    cavity: p.cavity,
-    position: p.position,
-    function: p.function,
-    signalClass: p.signalClass,
-    colour: p.colour,
-    sizeMm2: p.sizeMm2,
-    insulationRatingC: p.insulationRatingC,
-    disposition: p.disposition,
-    notes: p.notes,
-  };
+  return { cavity: p.cavity, position: p.position, ...templateFields(p) };
 }
 
 /** Templates a workshop can see: its own and the built-in ones. */
@@ -128,13 +127,7 @@ export async function saveTemplate(
         templateId: template.id,
         cavity: p.cavity,
         position,
-        function: p.function,
-        signalClass: p.signalClass,
-        colour: p.colour,
-        sizeMm2: p.sizeMm2,
-        insulationRatingC: p.insulationRatingC,
-        disposition: p.disposition,
-        notes: p.notes,
+        ...templateFields(p),
       })),
       { transaction: t },
     );
@@ -202,27 +195,10 @@ export async function connectorFromTemplate(
     await Pin.bulkCreate(
       created.map((pin) => {
         const from = byCavity.get(pin.cavity)!;
-        return {
-          ...pin.get({ plain: true }),
-          function: from.function,
-          signalClass: from.signalClass,
-          colour: from.colour,
-          sizeMm2: from.sizeMm2,
-          insulationRatingC: from.insulationRatingC,
-          disposition: from.disposition,
-          notes: from.notes,
-        };
+        return { ...pin.get({ plain: true }), ...templateFields(from) };
       }),
       {
-        updateOnDuplicate: [
-          'function',
-          'signalClass',
-          'colour',
-          'sizeMm2',
-          'insulationRatingC',
-          'disposition',
-          'notes',
-        ],
+        updateOnDuplicate: TEMPLATE_PIN_FIELDS,
         transaction: t,
       },
     );

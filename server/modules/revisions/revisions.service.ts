@@ -1,5 +1,6 @@
 import { Op, type Transaction } from 'sequelize';
 import { countFindings } from '#shared/domain/checks/run-checks.ts';
+import { showFinding } from '#shared/domain/checks/finding-sizes.ts';
 import {
   canonicalRevisionContent,
   revisionHash,
@@ -31,12 +32,19 @@ import { carryBenchWork, noticeToBench } from '../bench/bench-carry.service.ts';
 import { checkConversion } from '../checks/checks.service.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
 import { appLink, kickMail, queueMail } from '../mail/outbox.service.ts';
+import { getWorkshopSettings } from '../workshop/workshop.service.ts';
 
 const iso = (d: Date | null | undefined) => (d ? new Date(d).toISOString() : null);
 
 /** What a revision froze: the plan as submitted and the findings the checks gave on it. */
 export const snapshotOf = (r: Revision) => JSON.parse(r.snapshotJson) as ConversionSnapshot;
-const findingsOf = (r: Revision) => JSON.parse(r.findingsJson) as Finding[];
+/** The findings as frozen: sizes as numbers (finding-sizes.ts); what the hash covers. */
+const storedFindingsOf = (r: Revision) => JSON.parse(r.findingsJson) as Finding[];
+/** The frozen findings shown in the workshop's unit of today, like every other size beside them. */
+async function findingsOf(r: Revision, actor: Pick<Actor, 'workshopId'>): Promise<Finding[]> {
+  const { sizeUnit } = await getWorkshopSettings(actor);
+  return storedFindingsOf(r).map((f) => showFinding(f, sizeUnit));
+}
 
 function toSummary(r: Revision): RevisionSummary {
   return {
@@ -49,7 +57,7 @@ function toSummary(r: Revision): RevisionSummary {
     reviewedAt: iso(r.reviewedAt),
     signedAt: iso(r.signedAt),
     reviewComment: r.reviewComment,
-    counts: countFindings(findingsOf(r)),
+    counts: countFindings(storedFindingsOf(r)),
     version: r.version,
   };
 }
@@ -78,7 +86,7 @@ export function sealOf(r: Revision, sealKeyPem: string): { seal: string; sealKey
 }
 
 const contentHashOf = (r: Revision) =>
-  sha256Hex(canonicalRevisionContent(snapshotOf(r), findingsOf(r)));
+  sha256Hex(canonicalRevisionContent(snapshotOf(r), storedFindingsOf(r)));
 
 /**
  * Whether a revision is what was submitted and, once decided, what its reviewer sealed: the
@@ -178,6 +186,7 @@ export async function submitRevision(
     const {
       snapshot,
       report: { findings },
+      stored,
     } = await checkConversion(actor, conversionId, t);
     const errors = findings.filter((f) => f.severity === 'error');
     if (errors.length) {
@@ -192,7 +201,7 @@ export async function submitRevision(
       transaction: t,
     });
     const number = (last ?? 0) + 1;
-    const hash = await revisionHash(snapshot, findings);
+    const hash = await revisionHash(snapshot, stored);
     const now = new Date();
     const revision = await Revision.create(
       {
@@ -200,7 +209,7 @@ export async function submitRevision(
         number,
         status: 'in_review',
         snapshotJson: JSON.stringify(snapshot),
-        findingsJson: JSON.stringify(findings),
+        findingsJson: JSON.stringify(stored),
         hash,
         submittedById: actor.id,
         submittedByName: actor.name,
@@ -466,7 +475,7 @@ export async function getRevision(
   return {
     ...toSummary(revision),
     snapshot,
-    findings: findingsOf(revision),
+    findings: await findingsOf(revision, actor),
     comments: comments.map(toCommentDto),
     changes: previous ? diffSnapshots(snapshotOf(previous), snapshot) : null,
     comparedWith: previous?.number ?? null,
@@ -495,7 +504,7 @@ export async function revisionForPrint(actor: Actor, conversionId: number, numbe
   return {
     revision,
     snapshot: snapshotOf(revision),
-    findings: findingsOf(revision),
+    findings: await findingsOf(revision, actor),
     seal: revision.seal ? sealPublicKey() : null,
   };
 }

@@ -12,10 +12,10 @@ import type {
 } from '../../schemas/snapshot.schema.ts';
 import { citeSources, type SourceId } from '../electrical/sources.ts';
 import { cavityName } from '../pin-names.ts';
-import { formatWireSize } from '../wire-sizes.ts';
+import { sizeMark } from './finding-sizes.ts';
 
 export interface CheckOptions {
-  /** The workshop's unit for sizes in messages and suggestions. */
+  /** The workshop's unit: the series sizes are suggested from, and the unit findings are shown in. */
   sizeUnit: SizeUnit;
 }
 
@@ -73,8 +73,9 @@ export class CheckContext {
     return cavityName(this.connectors.get(pin.connectorId)?.label ?? '?', pin.cavity);
   }
 
+  /** A size as findings keep it: a number, written in a unit only when shown (finding-sizes.ts). */
   size(areaMm2: number): string {
-    return formatWireSize(areaMm2, this.options.sizeUnit);
+    return sizeMark(areaMm2);
   }
 
   /**

@@ -106,7 +106,7 @@ export function checkFeed(ctx: CheckContext, feed: SnapshotFeed): Finding[] {
         message:
           `The ${fmt(fuse.fuseA)} A fuse${inherited} of "${feed.name}" is larger than its ${ctx.size(feed.wire.sizeMm2)} wire can carry ${ZONE_WORDS[feed.wire.zone]} (${fmt(rating.ampacityA, 1)} A): the wire can overheat before the fuse blows.` +
           (suggestion
-            ? ` Use at least ${suggestion.label} wire`
+            ? ` Use at least ${ctx.size(suggestion.areaMm2)} wire`
             : ' No listed wire size is enough') +
           (smallerFuseWorks
             ? `, or a ${fmt(maxFuse!)} A fuse, which still carries the load.`
@@ -117,7 +117,10 @@ export function checkFeed(ctx: CheckContext, feed: SnapshotFeed): Finding[] {
           wireSize: value('Wire size', ctx.size(feed.wire.sizeMm2)),
           tableAwg: value('Table 5 row', `${rating.tableAwg} AWG`),
           deratingFactor: value('Derating factor', rating.deratingFactor, undefined, 3),
-          suggestedSize: value('Smallest wire this fuse protects', suggestion?.label ?? null),
+          suggestedSize: value(
+            'Smallest wire this fuse protects',
+            suggestion ? ctx.size(suggestion.areaMm2) : null,
+          ),
         },
         working: [
           ...ampacityWorking(ctx, feed.wire.sizeMm2, rating, feed),
@@ -239,7 +242,7 @@ export function checkFeed(ctx: CheckContext, feed: SnapshotFeed): Finding[] {
           message:
             `"${feed.name}" loses ${fmt(drop.voltageDropV)} V (${fmt(drop.voltageDropPct, 1)} % of ${ctx.systemV} V) over ${fmt(feed.wire.lengthM)} m of ${ctx.size(feed.wire.sizeMm2)} at ${fmt(current.totalA)} A; the limit for a ${feed.dropClass} circuit is ${fmt(limitPct)} %.` +
             (minSize
-              ? ` Use at least ${minSize.label}.`
+              ? ` Use at least ${ctx.size(minSize.areaMm2)}.`
               : ' No listed size keeps it within the limit: shorten the run.'),
           values: {
             voltageDropV: value('Voltage drop', drop.voltageDropV, 'V', 3),
@@ -249,7 +252,10 @@ export function checkFeed(ctx: CheckContext, feed: SnapshotFeed): Finding[] {
             conductorLengthM: value('Conductor length', drop.conductorLengthM, 'm'),
             resistanceOhm: value('Conductor resistance', drop.resistanceOhm, 'Ω', 4),
             conductorTempC: value('Conductor temperature', conductorTempC, '°C'),
-            suggestedSize: value('Smallest size within the limit', minSize?.label ?? null),
+            suggestedSize: value(
+              'Smallest size within the limit',
+              minSize ? ctx.size(minSize.areaMm2) : null,
+            ),
           },
           working: [
             ...drop.notes,

@@ -91,12 +91,15 @@ export function checkJoinedPins(ctx: CheckContext): Finding[] {
         title: 'Wire smaller than its fuse protects',
         message:
           `${ctx.pinName(pin)} is wired in ${ctx.size(pin.sizeMm2)} (${fmt(rating.ampacityA, 1)} A) on "${feed.name}", whose ${fmt(fuse.fuseA)} A fuse does not protect it.` +
-          (suggestion ? ` Use at least ${suggestion.label}.` : ''),
+          (suggestion ? ` Use at least ${ctx.size(suggestion.areaMm2)}.` : ''),
         values: {
           fuseA: value('Fuse', fuse.fuseA, 'A'),
           wireSize: value('Wire size', ctx.size(pin.sizeMm2)),
           ampacityA: value('Wire ampacity, derated', rating.ampacityA, 'A', 1),
-          suggestedSize: value('Smallest wire this fuse protects', suggestion?.label ?? null),
+          suggestedSize: value(
+            'Smallest wire this fuse protects',
+            suggestion ? ctx.size(suggestion.areaMm2) : null,
+          ),
         },
         working: [
           `${ctx.size(pin.sizeMm2)}, ${insulationC} °C insulation, zone of "${feed.name}": ${fmt(rating.ampacityA, 1)} A`,

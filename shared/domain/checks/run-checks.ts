@@ -4,8 +4,10 @@
  */
 import type { CheckReport, Finding, Severity } from '../../schemas/checks.schema.ts';
 import type { ConversionSnapshot } from '../../schemas/snapshot.schema.ts';
+import type { SizeUnit } from '../../schemas/workshop.schema.ts';
 import { CheckContext, type CheckOptions } from './check-context.ts';
 import { checkFeed } from './feed-rules.ts';
+import { showFinding } from './finding-sizes.ts';
 import {
   checkJoinedPins,
   checkSensorGrounds,
@@ -15,7 +17,11 @@ import {
 
 const ORDER: Record<Severity, number> = { error: 0, warning: 1, note: 2 };
 
-export function runChecks(snapshot: ConversionSnapshot, options: CheckOptions): Finding[] {
+/**
+ * Every finding as stored with a revision: sizes kept as numbers (finding-sizes.ts), so the
+ * findings can be shown in any unit later.
+ */
+export function storedFindings(snapshot: ConversionSnapshot, options: CheckOptions): Finding[] {
   const ctx = new CheckContext(snapshot, options);
   const findings = [
     ...checkUndecided(ctx),
@@ -28,10 +34,25 @@ export function runChecks(snapshot: ConversionSnapshot, options: CheckOptions): 
   return findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity]);
 }
 
+/** Every finding, shown in the workshop's unit. */
+export function runChecks(snapshot: ConversionSnapshot, options: CheckOptions): Finding[] {
+  return storedFindings(snapshot, options).map((f) => showFinding(f, options.sizeUnit));
+}
+
 export function countFindings(findings: readonly Finding[]): CheckReport['counts'] {
   const counts: Record<Severity, number> = { error: 0, warning: 0, note: 0 };
   for (const f of findings) counts[f.severity] += 1;
   return counts;
+}
+
+/** A report of stored findings, shown in `unit`. */
+export function reportOf(
+  stored: readonly Finding[],
+  unit: SizeUnit,
+  now = new Date(),
+): CheckReport {
+  const findings = stored.map((f) => showFinding(f, unit));
+  return { findings, counts: countFindings(findings), checkedAt: now.toISOString() };
 }
 
 export function checkReport(
@@ -39,8 +60,7 @@ export function checkReport(
   options: CheckOptions,
   now = new Date(),
 ): CheckReport {
-  const findings = runChecks(snapshot, options);
-  return { findings, counts: countFindings(findings), checkedAt: now.toISOString() };
+  return reportOf(storedFindings(snapshot, options), options.sizeUnit, now);
 }
 
 export type { CheckOptions };

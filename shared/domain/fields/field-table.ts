@@ -54,15 +54,30 @@ export interface FieldSpec<T> {
   csv: readonly CsvColumn<T>[];
   /** The grid column that shows and edits it; several fields may share one (a destination). */
   column: FieldColumn | null;
+  /**
+   * Kept when a record is saved as a reusable template (a connector's pinout in the library): a
+   * property of the part itself, not of one conversion's wiring.
+   */
+  inTemplate?: boolean;
 }
 
 /** A record's fields in order, one spec per key. */
 export type FieldTable<R> = { readonly [K in keyof R]: FieldSpec<R[K]> };
 
 /** One field of a table; keeps its column id as a literal type, so grids can name columns safely. */
-export const field = <T, const C extends FieldColumn | null>(
-  spec: FieldSpec<T> & { column: C },
-): FieldSpec<T> & { column: C } => spec;
+export const field = <T, const C extends FieldColumn | null, const L extends boolean = false>(
+  spec: FieldSpec<T> & { column: C; inTemplate?: L },
+): FieldSpec<T> & { column: C; inTemplate?: L } => spec;
+
+/** The keys of the fields a template keeps. */
+export type TemplateKeyOf<Table> = {
+  [K in keyof Table]: Table[K] extends { inTemplate?: true } ? K : never;
+}[keyof Table];
+
+/** The keys of the fields a template keeps, in table order. */
+export function templateKeys<R>(table: FieldTable<R>): Array<keyof R & string> {
+  return fieldKeys(table).filter((k) => table[k].inTemplate === true);
+}
 
 /** The ids of the grid columns a table's fields show in. */
 export type ColumnIdOf<Table> = {

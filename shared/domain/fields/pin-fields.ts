@@ -30,7 +30,9 @@ import {
   field,
   parsed,
   refused,
+  templateKeys,
   type ColumnIdOf,
+  type TemplateKeyOf,
   type FieldParse,
   type FieldTable,
 } from './field-table.ts';
@@ -99,6 +101,7 @@ const LinkId = z.number().int().positive().nullable();
 
 export const PIN_FIELDS = {
   function: field({
+    inTemplate: true,
     label: 'Function',
     schema: optionalText(200),
     blank: '',
@@ -108,6 +111,7 @@ export const PIN_FIELDS = {
     column: { id: 'function', heading: 'Function' },
   }),
   signalClass: field({
+    inTemplate: true,
     label: 'Signal class',
     schema: SignalClassSchema,
     blank: 'none' as SignalClass,
@@ -117,6 +121,7 @@ export const PIN_FIELDS = {
     column: { id: 'signalClass', heading: 'Signal class' },
   }),
   colour: field({
+    inTemplate: true,
     label: 'Colour',
     schema: WireColourSchema,
     blank: '',
@@ -132,6 +137,7 @@ export const PIN_FIELDS = {
     column: { id: 'colour', heading: 'Colour' },
   }),
   sizeMm2: field({
+    inTemplate: true,
     label: 'Size',
     schema: WireSizeMm2Schema,
     blank: null,
@@ -156,6 +162,7 @@ export const PIN_FIELDS = {
     column: { id: 'size', heading: (unit) => (unit === 'awg' ? 'Size AWG' : 'Size mm²') },
   }),
   insulationRatingC: field({
+    inTemplate: true,
     label: 'Insulation',
     schema: InsulationRatingSchema,
     blank: null,
@@ -166,6 +173,7 @@ export const PIN_FIELDS = {
     column: { id: 'insulation', heading: 'Insul. °C' },
   }),
   disposition: field({
+    inTemplate: true,
     label: 'Disposition',
     schema: DispositionSchema,
     blank: 'undecided' as Disposition,
@@ -223,6 +231,7 @@ export const PIN_FIELDS = {
     column: { id: 'load', heading: 'Load A' },
   }),
   notes: field({
+    inTemplate: true,
     label: 'Notes',
     schema: optionalText(2000),
     blank: '',
@@ -232,6 +241,10 @@ export const PIN_FIELDS = {
     column: { id: 'notes', heading: 'Notes' },
   }),
 } satisfies FieldTable<PinValues>;
+
+/** The fields a connector's pinout template in the library keeps. */
+export type TemplatePinKey = TemplateKeyOf<typeof PIN_FIELDS>;
+export const TEMPLATE_PIN_FIELDS = templateKeys<PinValues>(PIN_FIELDS) as TemplatePinKey[];
 
 /** The grid columns the pin fields show in ("size", "destination"…). */
 export type PinFieldColumnId = ColumnIdOf<typeof PIN_FIELDS>;

@@ -1,10 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { runCircuitCalc } from '../../../shared/domain/electrical/circuit-calc.ts';
-import { awgAreaMm2 } from '../../../shared/domain/wire-sizes.ts';
+import { awgAreaMm2, editableWireSize } from '../../../shared/domain/wire-sizes.ts';
 import { CalcRequest } from '../../../shared/schemas/calc.schema.ts';
 import type { Feed } from '../../../shared/schemas/feeds.schema.ts';
 import {
-  editableSize,
   emptyFeedForm,
   feedToForm,
   formToCalcRequest,
@@ -87,8 +86,8 @@ describe('feed form ↔ request', () => {
   });
 
   it('shows a size in the workshop unit when it is one of that series', () => {
-    expect(editableSize(1.5, 'mm2')).toBe('1.5');
-    expect(editableSize(Number(awgAreaMm2(12).toFixed(4)), 'awg')).toBe('12');
+    expect(editableWireSize(1.5, 'mm2')).toBe('1.5');
+    expect(editableWireSize(Number(awgAreaMm2(12).toFixed(4)), 'awg')).toBe('12');
   });
 
   it('reads sizes typed in either unit', () => {

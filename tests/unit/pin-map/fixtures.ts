@@ -1,4 +1,8 @@
-import type { Connector, Pin } from '../../../shared/schemas/pin-map.schema.ts';
+import {
+  BLANK_PIN_VALUES,
+  type Connector,
+  type Pin,
+} from '../../../shared/schemas/pin-map.schema.ts';
 
 /** Invented connectors and pins for the pin map's pure functions. */
 export function connector(overrides: Partial<Connector> = {}): Connector {
@@ -24,18 +28,7 @@ export function pin(overrides: Partial<Pin> = {}): Pin {
     conversionId: 1,
     cavity: String(id),
     position: id - 1,
-    function: '',
-    signalClass: 'none',
-    colour: '',
-    sizeMm2: null,
-    insulationRatingC: null,
-    disposition: 'undecided',
-    destination: '',
-    destinationPinId: null,
-    destinationFeedId: null,
-    runLengthM: null,
-    loadCurrentA: null,
-    notes: '',
+    ...BLANK_PIN_VALUES,
     version: 0,
     updatedAt: '2025-01-01T00:00:00.000Z',
     ...overrides,

@@ -5,10 +5,9 @@
 import { CONDUCTOR_TEMP_C } from '#shared/domain/checks/check-context.ts';
 import { DROP_LIMIT_PCT } from '#shared/domain/electrical/voltage-drop.ts';
 import {
+  editableWireSize,
   exactAwg,
   exactIsoSize,
-  formatAwgGauge,
-  formatWireSize,
   parseWireSize,
 } from '#shared/domain/wire-sizes.ts';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
@@ -100,23 +99,6 @@ export function emptyFeedForm(defaults: { insulationRatingC: number }): FeedForm
   };
 }
 
-/**
- * A stored size as editable text. In the workshop's unit when the size is one of that series;
- * otherwise with its own unit spelled out ("4 mm²" in an AWG workshop), so saving the form unchanged
- * never moves the wire to the nearest size of the other series.
- */
-export function editableSize(areaMm2: number, unit: SizeUnit): string {
-  const gauge = exactAwg(areaMm2);
-  const iso = exactIsoSize(areaMm2);
-  if (unit === 'awg') {
-    if (gauge !== null) return formatAwgGauge(gauge);
-    return formatWireSize(areaMm2, 'mm2');
-  }
-  if (iso !== null) return String(iso);
-  if (gauge !== null) return `${formatAwgGauge(gauge)} AWG`;
-  return formatWireSize(areaMm2, 'mm2');
-}
-
 export function feedToForm(feed: Feed, unit: SizeUnit): FeedFormValues {
   return {
     name: feed.name,
@@ -127,7 +109,7 @@ export function feedToForm(feed: Feed, unit: SizeUnit): FeedFormValues {
     relayContactRatingA: feed.relay ? String(feed.relay.contactRatingA) : '30',
     relayCoilCurrentA: feed.relay ? String(feed.relay.coilCurrentA) : '0.15',
     relayCoilPinId: feed.relay?.coilPinId == null ? '' : String(feed.relay.coilPinId),
-    wireSize: editableSize(feed.wire.sizeMm2, unit),
+    wireSize: editableWireSize(feed.wire.sizeMm2, unit),
     insulationRatingC: String(feed.wire.insulationRatingC),
     lengthM: String(feed.wire.lengthM),
     zone: feed.wire.zone,

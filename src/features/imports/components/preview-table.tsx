@@ -13,7 +13,7 @@ import { cellKey, plural, visibleRows, type PreviewIndex } from '../lib/preview.
 const FIRST_ROWS = 200;
 
 function targetLabel(target: ColumnTarget): string {
-  return target === IGNORE ? 'Not imported' : IMPORT_FIELD_LABELS[target];
+  return target === IGNORE ? 'Not imported' : (IMPORT_FIELD_LABELS[target] ?? target);
 }
 
 /** A problem told in words and a glyph, never by colour alone. */

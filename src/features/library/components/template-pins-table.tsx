@@ -1,8 +1,23 @@
-import { SIGNAL_CLASS_LABELS } from '#shared/domain/signal-classes.ts';
-import { formatWireSize } from '#shared/domain/wire-sizes.ts';
+import { showField } from '#shared/domain/fields/field-table.ts';
+import { PIN_FIELDS, TEMPLATE_PIN_FIELDS } from '#shared/domain/fields/pin-fields.ts';
 import type { TemplatePin } from '#shared/schemas/library.schema.ts';
 import { DispositionLabel } from '@/components/ui/disposition-glyph.tsx';
 import { WireColour } from '@/components/ui/wire-colour.tsx';
+
+const faint = <span className="text-ink-faint">—</span>;
+
+/** One field of a template pin: colours as swatches, dispositions with their glyph, else as text. */
+function FieldCell({
+  pin,
+  field,
+}: {
+  pin: TemplatePin;
+  field: (typeof TEMPLATE_PIN_FIELDS)[number];
+}) {
+  if (field === 'colour') return <WireColour value={pin.colour} />;
+  if (field === 'disposition') return <DispositionLabel disposition={pin.disposition} />;
+  return showField(PIN_FIELDS, field, pin[field], 'mm2') || faint;
+}
 
 /** A template's cavities in face order with what each carries. */
 export function TemplatePinsTable({ pins, caption }: { pins: TemplatePin[]; caption: string }) {
@@ -12,13 +27,14 @@ export function TemplatePinsTable({ pins, caption }: { pins: TemplatePin[]; capt
         <caption className="sr-only">{caption}</caption>
         <thead className="border-b border-rule bg-paper-sunk/60">
           <tr>
-            {['Cavity', 'Function', 'Signal class', 'Colour', 'Size', 'Disposition', 'Notes'].map(
-              (h) => (
-                <th key={h} scope="col" className="px-3 py-2">
-                  {h}
-                </th>
-              ),
-            )}
+            <th scope="col" className="px-3 py-2">
+              Cavity
+            </th>
+            {TEMPLATE_PIN_FIELDS.map((field) => (
+              <th key={field} scope="col" className="px-3 py-2">
+                {PIN_FIELDS[field].label}
+              </th>
+            ))}
           </tr>
         </thead>
         <tbody>
@@ -30,26 +46,16 @@ export function TemplatePinsTable({ pins, caption }: { pins: TemplatePin[]; capt
               >
                 {pin.cavity}
               </th>
-              <td className="px-3 py-2">
-                {pin.function || <span className="text-ink-faint">—</span>}
-              </td>
-              <td className="px-3 py-2 text-ink-soft">
-                {pin.signalClass === 'none' ? '—' : SIGNAL_CLASS_LABELS[pin.signalClass]}
-              </td>
-              <td className="px-3 py-2">
-                <WireColour value={pin.colour} />
-              </td>
-              <td className="px-3 py-2 whitespace-nowrap">
-                {pin.sizeMm2 == null ? (
-                  <span className="text-ink-faint">—</span>
-                ) : (
-                  formatWireSize(pin.sizeMm2, 'mm2')
-                )}
-              </td>
-              <td className="px-3 py-2">
-                <DispositionLabel disposition={pin.disposition} />
-              </td>
-              <td className="max-w-[24rem] px-3 py-2 text-ink-soft">{pin.notes}</td>
+              {TEMPLATE_PIN_FIELDS.map((field) => (
+                <td
+                  key={field}
+                  className={
+                    field === 'notes' ? 'max-w-[24rem] px-3 py-2 text-ink-soft' : 'px-3 py-2'
+                  }
+                >
+                  <FieldCell pin={pin} field={field} />
+                </td>
+              ))}
             </tr>
           ))}
         </tbody>

@@ -1,28 +1,19 @@
-import { DISPOSITION_INFO, type Disposition } from '#shared/domain/dispositions.ts';
+import { fieldLabels, showField } from '#shared/domain/fields/field-table.ts';
+import { PIN_FIELDS } from '#shared/domain/fields/pin-fields.ts';
 import { countChanges } from '#shared/domain/revisions/diff.ts';
-import { SIGNAL_CLASS_LABELS, type SignalClass } from '#shared/domain/signal-classes.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import {
   RETURN_PATH_LABELS,
   WIRE_ZONE_LABELS,
   type FeedWire,
 } from '#shared/schemas/feeds.schema.ts';
+import type { PinFields } from '#shared/schemas/pin-map.schema.ts';
 import type { FieldChange, RevisionChanges } from '#shared/schemas/revisions.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 
+/** Pin fields by the pin field table; a feed's, a connector's and a conversion's by name. */
 const FIELD_LABELS: Record<string, string> = {
-  function: 'Function',
-  signalClass: 'Signal class',
-  colour: 'Colour',
-  sizeMm2: 'Size',
-  insulationRatingC: 'Insulation',
-  disposition: 'Disposition',
-  destination: 'Destination',
-  destinationPinId: 'Linked cavity',
-  destinationFeedId: 'Joined feed',
-  runLengthM: 'Run length',
-  loadCurrentA: 'Load',
-  notes: 'Notes',
+  ...fieldLabels(PIN_FIELDS),
   fuseA: 'Fuse',
   relay: 'Relay',
   wire: 'Wire',
@@ -41,15 +32,15 @@ const FIELD_LABELS: Record<string, string> = {
   columns: 'Columns',
 };
 
+/** Links arrive named ("V1-3", a feed's name) rather than as ids: shown as they come. */
+const LINK_FIELDS: ReadonlySet<string> = new Set(['destinationPinId', 'destinationFeedId']);
+const isPinField = (field: string): field is keyof PinFields =>
+  Object.hasOwn(PIN_FIELDS, field) && !LINK_FIELDS.has(field);
+
 function show(field: string, value: unknown, unit: SizeUnit): string {
   if (value === null || value === undefined || value === '') return '—';
-  if (field === 'sizeMm2' && typeof value === 'number') return formatWireSize(value, unit);
-  if (field === 'disposition')
-    return DISPOSITION_INFO[value as Disposition]?.label ?? String(value);
-  if (field === 'signalClass') return SIGNAL_CLASS_LABELS[value as SignalClass] ?? String(value);
-  if (field === 'insulationRatingC') return `${String(value)} °C`;
-  if (field === 'runLengthM') return `${String(value)} m`;
-  if (field === 'loadCurrentA' || field === 'fuseA') return `${String(value)} A`;
+  if (isPinField(field)) return showField(PIN_FIELDS, field, value as never, unit) || '—';
+  if (field === 'fuseA') return `${String(value)} A`;
   if (field === 'wire' && typeof value === 'object') {
     const w = value as FeedWire;
     return `${formatWireSize(w.sizeMm2, unit)}, ${w.lengthM} m, ${WIRE_ZONE_LABELS[w.zone].toLowerCase()}, ${RETURN_PATH_LABELS[w.returnPath].toLowerCase()}${w.colour ? `, ${w.colour}` : ''}`;
