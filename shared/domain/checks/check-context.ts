@@ -1,6 +1,6 @@
 /**
  * Lookups the rules share: pins, connectors and feeds by id, which fuse protects each feed, and the
- * current each feed carries (its own loads and those of the feeds its relay powers).
+ * current each feed carries (its own loads and those of the feeds its relay powers; feed-chain.ts).
  */
 import type { Finding, FindingValue } from '../../schemas/checks.schema.ts';
 import type { SizeUnit } from '../../schemas/workshop.schema.ts';
@@ -12,6 +12,7 @@ import type {
 } from '../../schemas/snapshot.schema.ts';
 import { citeSources, type SourceId } from '../electrical/sources.ts';
 import { cavityName } from '../pin-names.ts';
+import { FeedChain, type FeedCurrent, type ProtectingFuse } from './feed-chain.ts';
 import { sizeMark } from './finding-sizes.ts';
 
 export interface CheckOptions {
@@ -19,19 +20,7 @@ export interface CheckOptions {
   sizeUnit: SizeUnit;
 }
 
-export interface FeedCurrent {
-  continuousA: number;
-  nonContinuousA: number;
-  totalA: number;
-  /** Feeds (this one first) whose loads make up the total. */
-  feedIds: number[];
-}
-
-export interface ProtectingFuse {
-  fuseA: number;
-  /** The feed whose fuse it is: this feed, or one up the chain of relay outputs. */
-  feedId: number;
-}
+export type { FeedCurrent, ProtectingFuse };
 
 /**
  * Conductor temperature for voltage drop: the ambient the ampacity table assumes, 30 °C outside
@@ -43,8 +32,8 @@ export const CONDUCTOR_TEMP_C = { cabin: 30, engine_bay: 50 } as const;
 export class CheckContext {
   readonly pins = new Map<number, SnapshotPin>();
   readonly connectors = new Map<number, SnapshotConnector>();
-  readonly feeds = new Map<number, SnapshotFeed>();
-  private readonly feedsPoweredBy = new Map<number, SnapshotFeed[]>();
+  readonly feeds: Map<number, SnapshotFeed>;
+  private readonly chain: FeedChain<SnapshotFeed>;
 
   constructor(
     readonly snapshot: ConversionSnapshot,
@@ -52,14 +41,8 @@ export class CheckContext {
   ) {
     for (const c of snapshot.connectors) this.connectors.set(c.id, c);
     for (const p of snapshot.pins) this.pins.set(p.id, p);
-    for (const f of snapshot.feeds) this.feeds.set(f.id, f);
-    for (const f of snapshot.feeds) {
-      if (f.source === 'relay_output' && f.sourceFeedId != null) {
-        const list = this.feedsPoweredBy.get(f.sourceFeedId) ?? [];
-        list.push(f);
-        this.feedsPoweredBy.set(f.sourceFeedId, list);
-      }
-    }
+    this.chain = new FeedChain(snapshot.feeds);
+    this.feeds = this.chain.feeds;
   }
 
   get systemV(): number {
@@ -78,36 +61,14 @@ export class CheckContext {
     return sizeMark(areaMm2);
   }
 
-  /**
-   * The fuse that protects a feed's wire: its own, else the nearest one up the chain of relay
-   * outputs. Null when the chain reaches the battery or ignition without a fuse.
-   */
+  /** The fuse that protects a feed's wire (feed-chain.ts). */
   protectingFuse(feed: SnapshotFeed): ProtectingFuse | null {
-    const seen = new Set<number>();
-    for (let at: SnapshotFeed | undefined = feed; at && !seen.has(at.id);) {
-      seen.add(at.id);
-      if (at.fuseA != null) return { fuseA: at.fuseA, feedId: at.id };
-      if (at.source !== 'relay_output' || at.sourceFeedId == null) return null;
-      at = this.feeds.get(at.sourceFeedId);
-    }
-    return null;
+    return this.chain.protectingFuse(feed);
   }
 
-  /** The current through a feed's fuse and wire: its loads plus those of every feed it powers. */
+  /** The current through a feed's fuse and wire (feed-chain.ts). */
   current(feed: SnapshotFeed): FeedCurrent {
-    const result: FeedCurrent = { continuousA: 0, nonContinuousA: 0, totalA: 0, feedIds: [] };
-    const visit = (f: SnapshotFeed) => {
-      if (result.feedIds.includes(f.id)) return;
-      result.feedIds.push(f.id);
-      for (const load of f.loads) {
-        if (load.continuous) result.continuousA += load.currentA;
-        else result.nonContinuousA += load.currentA;
-      }
-      for (const downstream of this.feedsPoweredBy.get(f.id) ?? []) visit(downstream);
-    };
-    visit(feed);
-    result.totalA = result.continuousA + result.nonContinuousA;
-    return result;
+    return this.chain.current(feed);
   }
 }
 

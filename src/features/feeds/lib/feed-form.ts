@@ -3,6 +3,7 @@
  * the mapping is unit-tested in node.
  */
 import { CONDUCTOR_TEMP_C } from '#shared/domain/checks/check-context.ts';
+import { FeedChain } from '#shared/domain/checks/feed-chain.ts';
 import { DROP_LIMIT_PCT } from '#shared/domain/electrical/voltage-drop.ts';
 import {
   editableWireSize,
@@ -246,45 +247,30 @@ export function loadTotals(loads: Array<{ currentA: string; continuous: boolean 
   return { continuousA, nonContinuousA, totalA: continuousA + nonContinuousA };
 }
 
-/** The loads of every feed a feed's relay powers, down the chain (as the checks count them). */
+/** The loads of every feed a feed's relay powers, down the chain, counted as the checks count them. */
 function downstreamTotals(feedId: number | null, feeds: readonly FeedLike[]): LoadTotals {
-  const totals = { continuousA: 0, nonContinuousA: 0, totalA: 0 };
-  if (feedId === null) return totals;
-  const seen = new Set<number>([feedId]);
-  const queue = [feedId];
-  while (queue.length) {
-    const at = queue.shift()!;
-    for (const f of feeds) {
-      if (f.source !== 'relay_output' || f.sourceFeedId !== at || seen.has(f.id)) continue;
-      seen.add(f.id);
-      queue.push(f.id);
-      for (const l of f.loads) {
-        if (l.continuous) totals.continuousA += l.currentA;
-        else totals.nonContinuousA += l.currentA;
-      }
-    }
-  }
-  totals.totalA = totals.continuousA + totals.nonContinuousA;
-  return totals;
+  if (feedId === null) return { continuousA: 0, nonContinuousA: 0, totalA: 0 };
+  // The feed itself without loads: the form counts its own loads as typed, not as saved.
+  const { continuousA, nonContinuousA, totalA } = new FeedChain(feeds).current({
+    id: feedId,
+    source: 'battery',
+    sourceFeedId: null,
+    fuseA: null,
+    loads: [],
+  });
+  return { continuousA, nonContinuousA, totalA };
 }
 
-/** The fuse that protects the wire: the feed's own, else the nearest up its chain of relay outputs. */
+/** The fuse that protects a relay output's wire: the nearest up its chain of relay outputs. */
 export function upstreamFuse(
   sourceFeedId: number | null,
   feeds: readonly FeedLike[],
 ): { fuseA: number; feedName: string } | null {
-  const byId = new Map(feeds.map((f) => [f.id, f]));
-  const seen = new Set<number>();
-  for (
-    let at = sourceFeedId == null ? undefined : byId.get(sourceFeedId);
-    at && !seen.has(at.id);
-  ) {
-    seen.add(at.id);
-    if (at.fuseA != null) return { fuseA: at.fuseA, feedName: at.name };
-    if (at.source !== 'relay_output' || at.sourceFeedId == null) return null;
-    at = byId.get(at.sourceFeedId);
-  }
-  return null;
+  if (sourceFeedId == null) return null;
+  const chain = new FeedChain(feeds);
+  const source = chain.feeds.get(sourceFeedId);
+  const fuse = source ? chain.protectingFuse(source) : null;
+  return fuse && { fuseA: fuse.fuseA, feedName: chain.feeds.get(fuse.feedId)!.name };
 }
 
 export type LiveCalc =
