@@ -1,62 +1,118 @@
-import request from 'supertest';
-import { Connector, Pin } from '../../server/db/models/index.ts';
+import { writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { load, type LoadResult } from '../lib/http.ts';
+import { startServer } from '../lib/process.ts';
 import type { BenchRow } from '../lib/report.ts';
-import { compareWithBareRoute } from '../lib/http.ts';
-import { benchContext } from '../lib/context.ts';
+import { num, ratios, spread, times, withUnit } from '../lib/stats.ts';
 
-/** A conversion of `pinCount` pins on 100-cavity connectors, every pin filled in. */
-export async function generatePinMap(conversionId: number, pinCount: number) {
-  const perConnector = 100;
-  for (let c = 0; c * perConnector < pinCount; c++) {
-    const count = Math.min(perConnector, pinCount - c * perConnector);
-    const connector = await Connector.create({
-      conversionId,
-      label: `G${c + 1}`,
-      side: c === 0 ? 'vehicle' : 'ecu',
-      cavityCount: count,
-      rows: 4,
-      columns: Math.ceil(count / 4),
-    });
-    await Pin.bulkCreate(
-      Array.from({ length: count }, (_, i) => ({
-        conversionId,
-        connectorId: connector.id,
-        cavity: String(i + 1),
-        position: i,
-        function: `Generated circuit ${c + 1}.${i + 1}`,
-        signalClass: 'sensor_signal' as const,
-        colour: 'BU/WH',
-        sizeMm2: 0.5,
-        insulationRatingC: 105,
-        disposition: 'keep' as const,
-        destination: `Bench test point ${i}`,
-        runLengthM: 1.5,
-        loadCurrentA: 0.1,
-      })),
-    );
+interface ProductInfo {
+  port: number;
+  conversionId: number;
+  authorization: string;
+}
+
+const CLIENTS = 20;
+
+/**
+ * P1: GET …/pins of a conversion of `pins` pins under 20 clients, Loomwright and a bare Express
+ * route serving the same bytes, each in its own process, alternating round by round after a
+ * warm-up; the load generator runs here. On the largest size also the server's RSS under load.
+ */
+async function oneSize(pins: number, seconds: number, rounds: number, withRss: boolean) {
+  const product = await startServer<ProductInfo>('product', { BENCH_PINS: String(pins) });
+  let bare: Awaited<ReturnType<typeof startServer>> | null = null;
+  try {
+    const pinsUrl = `${product.url}/api/conversions/${product.info.conversionId}/pins`;
+    const headers = { authorization: product.info.authorization };
+    const res = await fetch(pinsUrl, { headers });
+    const text = await res.text();
+    if (res.status !== 200 || (JSON.parse(text) as { pins: unknown[] }).pins.length !== pins) {
+      throw new Error(`pins list answered ${res.status} without ${pins} pins`);
+    }
+    const bodyFile = path.join(tmpdir(), `loomwright-bench-pins-${process.pid}-${pins}.json`);
+    writeFileSync(bodyFile, text);
+    bare = await startServer('bare', { BENCH_BODY_FILE: bodyFile });
+    const bareUrl = `${bare.url}/bare`;
+
+    let peakRss = 0;
+    let bareRss = 0;
+    const runProduct = () =>
+      load(pinsUrl, headers, {
+        seconds,
+        connections: CLIENTS,
+        during: withRss ? () => (peakRss = Math.max(peakRss, product.rssMb())) : undefined,
+      });
+    const runBare = () =>
+      load(
+        bareUrl,
+        {},
+        {
+          seconds,
+          connections: CLIENTS,
+          during: withRss ? () => (bareRss = Math.max(bareRss, bare!.rssMb())) : undefined,
+        },
+      );
+    // Warm-up: JIT, caches, sockets; not counted.
+    await runProduct();
+    await runBare();
+    peakRss = 0;
+    bareRss = 0;
+    const ours: LoadResult[] = [];
+    const theirs: LoadResult[] = [];
+    const rss: number[] = [];
+    for (let r = 0; r < rounds; r++) {
+      peakRss = 0;
+      // Alternate which goes first, so neither always gets the quieter moment.
+      if (r % 2 === 0) {
+        ours.push(await runProduct());
+        theirs.push(await runBare());
+      } else {
+        theirs.push(await runBare());
+        ours.push(await runProduct());
+      }
+      rss.push(peakRss);
+    }
+    const errors = [...ours, ...theirs].reduce((n, r) => n + r.errors, 0);
+    if (errors) throw new Error(`${errors} failed requests in the pins bench`);
+    return {
+      ratio: ratios(
+        ours.map((r) => r.requestsPerSec),
+        theirs.map((r) => r.requestsPerSec),
+      ),
+      ours: spread(ours.map((r) => r.requestsPerSec)),
+      theirs: spread(theirs.map((r) => r.requestsPerSec)),
+      p99: spread(ours.map((r) => r.p99Ms)),
+      kb: Buffer.byteLength(text) / 1024,
+      rss: rss.length && withRss ? spread(rss) : null,
+      bareRss,
+    };
+  } finally {
+    await bare?.stop();
+    await product.stop();
   }
 }
 
-/** GET /api/conversions/:id/pins for a 1,000-pin conversion beside a bare route serving the same JSON. */
-export async function pinsList(seconds: number): Promise<BenchRow[]> {
-  const ctx = await benchContext();
-  try {
-    const conversionId = ctx.demo.conversions.draft;
-    await Pin.destroy({ where: { conversionId } });
-    await Connector.destroy({ where: { conversionId } });
-    await generatePinMap(conversionId, 1000);
-    const path = `/api/conversions/${conversionId}/pins`;
-    const body = (await request(ctx.app).get(path).set(ctx.auth)).body;
-    if (body.pins.length !== 1000) throw new Error(`expected 1000 pins, got ${body.pins.length}`);
-    return await compareWithBareRoute(
-      'GET …/pins (1,000 pins), 20 clients',
-      ctx.app,
-      path,
-      ctx.auth,
-      body,
-      seconds,
-    );
-  } finally {
-    await ctx.close();
+export async function pinsList(seconds: number, rounds: number): Promise<BenchRow[]> {
+  const rows: BenchRow[] = [];
+  for (const pins of [250, 1000, 4000]) {
+    const r = await oneSize(pins, seconds, rounds, pins === 4000);
+    rows.push({
+      id: 'P1',
+      measure: `GET pins, ${pins.toLocaleString('en')} pins (${num(r.kb)} KB), ${CLIENTS} clients, ÷ bare Express same bytes (req/s)`,
+      figure: `${times(r.ratio)} (${num(r.ours.median)} vs ${num(r.theirs.median)} req/s; p99 ${num(r.p99.median)} ms)`,
+      goal: '≥ 0.5×',
+      met: r.ratio.median >= 0.5,
+    });
+    if (r.rss) {
+      rows.push({
+        id: 'RSS',
+        measure: `server RSS, peak under ${CLIENTS} clients on ${pins.toLocaleString('en')} pins`,
+        figure: `${withUnit(r.rss, 'MB')} (bare Express: ${num(r.bareRss)} MB)`,
+        goal: '< 300 MB',
+        met: r.rss.max < 300,
+      });
+    }
   }
+  return rows;
 }

@@ -10,13 +10,14 @@ import { signSessionToken } from '../../server/modules/auth/tokens.ts';
 import { seedDemo } from '../../seeds/seed-demo.ts';
 
 /** A demo database in a temporary folder and the app on it, for one bench run. */
-export async function benchContext() {
+export async function benchContext(options: { clientDir?: string } = {}) {
   const dir = mkdtempSync(path.join(tmpdir(), 'loomwright-bench-'));
   const env = loadEnv({
     NODE_ENV: 'production',
     DATABASE_PATH: path.join(dir, 'bench.sqlite'),
     JWT_SECRET: randomBytes(32).toString('base64url'),
     LOG_LEVEL: 'silent',
+    LOGIN_LIMIT_PER_MINUTE: '1000',
   });
   const sequelize = await connectDatabase(env.DATABASE_PATH);
   const demo = await seedDemo(sequelize, {
@@ -24,7 +25,7 @@ export async function benchContext() {
     bcryptCost: 10,
     sealKeyPem: env.SEAL_PRIVATE_KEY,
   });
-  const app = createApp({ env });
+  const app = createApp({ env, clientDir: options.clientDir });
   const builder = await User.findByPk(demo.users.builder!);
   const auth = { Authorization: `Bearer ${signSessionToken(builder!.id, builder!.tokenVersion)}` };
   return {

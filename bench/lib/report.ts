@@ -1,26 +1,30 @@
-/** One measured figure of a bench case, printed beside its baseline. */
+/**
+ * One line of the bench table: what was measured, the figure as printed (median [min–max] over the
+ * rounds, a ratio always product ÷ baseline), the goal beside it and whether the figure meets it.
+ */
 export interface BenchRow {
-  case: string;
-  subject: string;
-  figures: Record<string, number>;
+  id: string;
+  measure: string;
+  figure: string;
+  goal: string;
+  met: boolean | null;
 }
 
 export function printRows(rows: BenchRow[]) {
-  const keys = [...new Set(rows.flatMap((r) => Object.keys(r.figures)))];
-  const header = ['case', 'subject', ...keys];
-  const lines = rows.map((r) => [r.case, r.subject, ...keys.map((k) => format(r.figures[k]))]);
+  const header = ['id', 'measure', 'figure', 'goal', 'met'];
+  const lines = rows.map((r) => [
+    r.id,
+    r.measure,
+    r.figure,
+    r.goal,
+    r.met === null ? '–' : r.met ? 'yes' : 'NO',
+  ]);
   const widths = header.map((h, i) => Math.max(h.length, ...lines.map((l) => l[i]!.length)));
   const fmt = (cells: string[]) =>
     '| ' + cells.map((c, i) => c.padEnd(widths[i]!)).join(' | ') + ' |';
   console.log(fmt(header));
   console.log('|' + widths.map((w) => '-'.repeat(w + 2)).join('|') + '|');
   for (const line of lines) console.log(fmt(line));
-}
-
-function format(value: number | undefined): string {
-  if (value === undefined) return '';
-  if (Number.isInteger(value)) return String(value);
-  return value >= 100 ? value.toFixed(0) : value.toFixed(2);
 }
 
 /** Runs `fn` and reports its wall time and the peak heap growth seen while it ran. */

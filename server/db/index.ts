@@ -4,6 +4,7 @@ import { initModels } from './models/index.ts';
 import { openDatabase } from './sequelize.ts';
 
 let current: Sequelize | null = null;
+const closeHooks: Array<() => void | Promise<void>> = [];
 
 /** Opens the database file, brings its schema up to date and binds the models to it. */
 export async function connectDatabase(storage: string): Promise<Sequelize> {
@@ -20,7 +21,13 @@ export function db(): Sequelize {
   return current;
 }
 
+/** Runs `hook` whenever the database closes: caches of its rows must not outlive it. */
+export function onDatabaseClose(hook: () => void | Promise<void>): void {
+  closeHooks.push(hook);
+}
+
 export async function closeDatabase(): Promise<void> {
+  for (const hook of closeHooks) await hook();
   if (current) await current.close();
   current = null;
 }

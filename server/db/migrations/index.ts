@@ -8,6 +8,7 @@ import { reviews } from './0005-reviews.ts';
 import { bench } from './0006-bench.ts';
 import { benchItems } from './0007-bench-items.ts';
 import { seals } from './0008-seals.ts';
+import { changeCounters } from './0009-change-counters.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -29,6 +30,7 @@ export const MIGRATIONS: Migration[] = [
   bench,
   benchItems,
   seals,
+  changeCounters,
 ];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {

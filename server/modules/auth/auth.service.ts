@@ -1,5 +1,6 @@
 import type { SessionUser } from '#shared/schemas/auth.schema.ts';
 import { db } from '../../db/index.ts';
+import { readRows } from '../../db/fast-read.ts';
 import { User, Workshop } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, unauthenticated, unprocessable } from '../../lib/errors.ts';
@@ -44,6 +45,8 @@ export async function login(email: string, password: string) {
   };
 }
 
+type SessionRow = SessionUser & { active: number | boolean; tokenVersion: number };
+
 /**
  * Resolves a bearer or cookie token to the user it belongs to, reading role and `active` from
  * the database on every request so a demotion or deactivation takes effect at once.
@@ -51,25 +54,22 @@ export async function login(email: string, password: string) {
 export async function userForToken(token: string): Promise<SessionUser | null> {
   const claims = verifySessionToken(token);
   if (!claims) return null;
-  // On every request: one plain row, no model instances.
-  const row = (await User.findByPk(Number(claims.sub), {
-    attributes: ['id', 'email', 'name', 'role', 'active', 'tokenVersion', 'workshopId'],
-    include: [{ model: Workshop, attributes: ['id', 'name'] }],
-    raw: true,
-    nest: true,
-  })) as unknown as
-    | (Pick<User, 'id' | 'email' | 'name' | 'role' | 'active' | 'tokenVersion'> & {
-        Workshop: Pick<Workshop, 'id' | 'name'>;
-      })
-    | null;
+  // On every request: one prepared statement, no model.
+  const [row] = await readRows<SessionRow>(
+    `SELECT u.id, u.email, u.name, u.role, u.active, u.token_version AS tokenVersion,
+            w.id AS workshopId, w.name AS workshopName
+       FROM users u JOIN workshops w ON w.id = u.workshop_id
+      WHERE u.id = ?`,
+    [Number(claims.sub)],
+  );
   if (!row || !row.active || row.tokenVersion !== claims.tv) return null;
   return {
     id: row.id,
     email: row.email,
     name: row.name,
     role: row.role,
-    workshopId: row.Workshop.id,
-    workshopName: row.Workshop.name,
+    workshopId: row.workshopId,
+    workshopName: row.workshopName,
   };
 }
 

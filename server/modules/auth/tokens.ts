@@ -1,3 +1,4 @@
+import { createSecretKey, type KeyObject } from 'node:crypto';
 import jwt from 'jsonwebtoken';
 import { config } from '../../config/runtime.ts';
 
@@ -10,9 +11,21 @@ export interface TokenClaims {
   tv: number;
 }
 
+let prepared: { secret: string; key: KeyObject } | null = null;
+
+/**
+ * The secret as a prepared key. Given a string, jsonwebtoken first tries to read it as a public
+ * key on every call; a secret KeyObject skips that (about a millisecond per request).
+ */
+function sessionKey(): KeyObject {
+  const secret = config().JWT_SECRET;
+  if (prepared?.secret !== secret) prepared = { secret, key: createSecretKey(secret, 'utf8') };
+  return prepared.key;
+}
+
 export function signSessionToken(userId: number, tokenVersion: number): string {
   const claims: TokenClaims = { sub: String(userId), tv: tokenVersion };
-  return jwt.sign(claims, config().JWT_SECRET, {
+  return jwt.sign(claims, sessionKey(), {
     algorithm: 'HS256',
     expiresIn: Math.round(config().SESSION_HOURS * 3600),
     issuer: ISSUER,
@@ -23,7 +36,7 @@ export function signSessionToken(userId: number, tokenVersion: number): string {
 /** Verifies signature, algorithm, issuer, audience and expiry; null when any check fails. */
 export function verifySessionToken(token: string): TokenClaims | null {
   try {
-    const payload = jwt.verify(token, config().JWT_SECRET, {
+    const payload = jwt.verify(token, sessionKey(), {
       algorithms: ['HS256'],
       issuer: ISSUER,
       audience: AUDIENCE,

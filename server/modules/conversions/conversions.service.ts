@@ -4,6 +4,7 @@ import type {
   UpdateConversionRequest,
 } from '#shared/schemas/conversions.schema.ts';
 import { db } from '../../db/index.ts';
+import { readRows } from '../../db/fast-read.ts';
 import { Conversion, User } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { notFound, versionConflict } from '../../lib/errors.ts';
@@ -59,6 +60,24 @@ export async function findConversionInWorkshop(
   });
   if (!conversion) throw notFound('That conversion');
   return conversion;
+}
+
+/**
+ * The change counter of the conversion with this id in the actor's workshop (migration 0009), or
+ * 404. One small row, no model: this is the first read of every cached list.
+ */
+export async function conversionChangeCounter(
+  actor: Pick<Actor, 'workshopId'>,
+  id: number,
+): Promise<number> {
+  const [row] = await readRows<{ counter: number }>(
+    `SELECT COALESCE(cc.counter, 0) AS counter FROM conversions c
+       LEFT JOIN conversion_changes cc ON cc.conversion_id = c.id
+      WHERE c.id = ? AND c.workshop_id = ?`,
+    [id, actor.workshopId],
+  );
+  if (!row) throw notFound('That conversion');
+  return row.counter;
 }
 
 export async function listConversions(actor: Actor): Promise<ConversionDto[]> {

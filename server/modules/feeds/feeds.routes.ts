@@ -2,6 +2,7 @@ import { Router, type Request, type Response } from 'express';
 import { IdParams } from '#shared/schemas/common.schema.ts';
 import { CreateFeedRequest, FeedParams, UpdateFeedRequest } from '#shared/schemas/feeds.schema.ts';
 import { actorOf } from '../../lib/actor.ts';
+import { sendJsonBody } from '../../lib/cached-json.ts';
 import { parsedParams } from '../../lib/request.ts';
 import { authorize } from '../../middleware/authorize.ts';
 import { validate } from '../../middleware/validate.ts';
@@ -9,7 +10,7 @@ import * as feedsService from './feeds.service.ts';
 
 async function list(req: Request, res: Response) {
   const { id } = parsedParams<IdParams>(req);
-  res.json({ feeds: await feedsService.listFeeds(actorOf(req), id) });
+  sendJsonBody(req, res, await feedsService.feedListBody(actorOf(req), id));
 }
 
 async function get(req: Request, res: Response) {

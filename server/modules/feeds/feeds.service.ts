@@ -10,7 +10,11 @@ import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction, inTransactionOf } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
-import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
+import { ConversionJsonCache, type JsonBody } from '../../lib/cached-json.ts';
+import {
+  conversionChangeCounter,
+  findConversionInWorkshop,
+} from '../conversions/conversions.service.ts';
 
 type FeedWithLoads = Feed & { loads?: FeedLoad[] };
 
@@ -171,8 +175,17 @@ async function replaceLoads(feedId: number, loads: CreateFeedRequest['loads'], t
   );
 }
 
-export async function listFeeds(actor: Actor, conversionId: number): Promise<FeedDto[]> {
-  await findConversionInWorkshop(actor, conversionId);
+const feedListCache = new ConversionJsonCache();
+
+/** The answer of GET …/feeds (`{ feeds }`) serialised, made again only after a change. */
+export async function feedListBody(actor: Actor, conversionId: number): Promise<JsonBody> {
+  const counter = await conversionChangeCounter(actor, conversionId);
+  return feedListCache.get(conversionId, counter, async () => ({
+    feeds: await feedsOfConversion(conversionId),
+  }));
+}
+
+async function feedsOfConversion(conversionId: number): Promise<FeedDto[]> {
   const feeds = await Feed.findAll({
     where: { conversionId },
     include: [{ model: FeedLoad, as: 'loads' }],

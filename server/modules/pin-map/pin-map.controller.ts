@@ -8,6 +8,7 @@ import type {
   UpdatePinRequest,
 } from '#shared/schemas/pin-map.schema.ts';
 import { actorOf } from '../../lib/actor.ts';
+import { sendJsonBody } from '../../lib/cached-json.ts';
 import { parsedParams } from '../../lib/request.ts';
 import * as connectorsService from './connectors.service.ts';
 import * as pinsService from './pins.service.ts';
@@ -45,7 +46,7 @@ export async function deleteConnector(req: Request, res: Response) {
 
 export async function listPins(req: Request, res: Response) {
   const { id } = parsedParams<IdParams>(req);
-  res.json({ pins: await pinsService.listPins(actorOf(req), id) });
+  sendJsonBody(req, res, await pinsService.pinListBody(actorOf(req), id));
 }
 
 export async function updatePin(req: Request, res: Response) {

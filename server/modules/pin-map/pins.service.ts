@@ -11,9 +11,11 @@ import { db } from '../../db/index.ts';
 import { Connector, Feed, Pin } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound, versionConflict } from '../../lib/errors.ts';
+import { ConversionJsonCache, type JsonBody } from '../../lib/cached-json.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { beforeAndAfter, changedFields, recordAudit } from '../audit/audit.service.ts';
 import {
+  conversionChangeCounter,
   findConversionInWorkshop,
   ofConversionInWorkshop,
 } from '../conversions/conversions.service.ts';
@@ -26,10 +28,22 @@ export const PIN_ORDER: Array<[string, string]> = [
 ];
 
 /** Every pin of a conversion, in connector and face order. Plain rows: this is the grid's big read. */
-export async function listPins(actor: Actor, conversionId: number): Promise<PinDto[]> {
-  await findConversionInWorkshop(actor, conversionId);
+async function pinsOfConversionInOrder(conversionId: number): Promise<PinDto[]> {
   const rows = await Pin.findAll({ where: { conversionId }, order: PIN_ORDER, raw: true });
   return rows.map(toPinDto);
+}
+
+const pinListCache = new ConversionJsonCache();
+
+/**
+ * The answer of GET …/pins (`{ pins }`) serialised, with its ETag, made again only when the
+ * conversion's change counter has moved since.
+ */
+export async function pinListBody(actor: Actor, conversionId: number): Promise<JsonBody> {
+  const counter = await conversionChangeCounter(actor, conversionId);
+  return pinListCache.get(conversionId, counter, async () => ({
+    pins: await pinsOfConversionInOrder(conversionId),
+  }));
 }
 
 async function findPinInWorkshop(

@@ -1,0 +1,24 @@
+/**
+ * Loomwright in a process of its own for the HTTP benches: a fresh demo database, the draft
+ * conversion's pin map replaced by BENCH_PINS generated pins (when set), the built client served
+ * when BENCH_CLIENT_DIR is set. Prints one JSON line when listening; stops on SIGTERM.
+ */
+import type { AddressInfo } from 'node:net';
+import { benchContext } from '../lib/context.ts';
+import { replacePinMap } from '../lib/generate.ts';
+
+const pins = Number(process.env.BENCH_PINS ?? 0);
+const ctx = await benchContext({ clientDir: process.env.BENCH_CLIENT_DIR || undefined });
+const conversionId = ctx.demo.conversions.draft;
+if (pins > 0) await replacePinMap(conversionId, pins);
+global.gc?.();
+const server = ctx.app.listen(0, '127.0.0.1', () => {
+  const { port } = server.address() as AddressInfo;
+  process.stdout.write(
+    JSON.stringify({ port, conversionId, authorization: ctx.auth.Authorization }) + '\n',
+  );
+});
+process.on('SIGTERM', () => {
+  server.close();
+  void ctx.close().finally(() => process.exit(0));
+});
