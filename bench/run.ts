@@ -9,6 +9,7 @@
  *
  * The browser cases (P5, P6) need the built client (`npx vite build`) and Chromium.
  */
+import { browserBench } from './cases/browser.ts';
 import { checksBench } from './cases/checks.ts';
 import { importCsv } from './cases/import.ts';
 import { pinsList } from './cases/pins-list.ts';
@@ -24,6 +25,7 @@ const CASES: Record<string, () => Promise<BenchRow[]>> = {
   checks: () => checksBench(rounds),
   worksheet: () => worksheetBench(rounds),
   import: () => importCsv(rounds),
+  browser: () => browserBench(rounds),
 };
 
 const started = performance.now();

@@ -1,5 +1,6 @@
 import path from 'node:path';
 import { existsSync } from 'node:fs';
+import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import express, { Router } from 'express';
 import helmet from 'helmet';
@@ -43,6 +44,8 @@ export interface AppOptions {
   clientDir?: string;
 }
 
+const IMMUTABLE = 'public, max-age=31536000, immutable';
+
 /** Builds the Express app without listening, so tests can drive it with supertest. */
 export function createApp({ env, clientDir }: AppOptions) {
   setConfig(env);
@@ -67,6 +70,9 @@ export function createApp({ env, clientDir }: AppOptions) {
     }),
   );
   app.use(requestContext);
+  // Brotli where the client takes it, else gzip; bodies that arrive already encoded (the cached
+  // lists) pass through. Vary: Accept-Encoding is set on everything compressible.
+  app.use(compression());
 
   const api = Router();
   api.use(requireJsonForWrites);
@@ -111,9 +117,20 @@ export function createApp({ env, clientDir }: AppOptions) {
   app.use('/api', api);
 
   if (clientDir && existsSync(clientDir)) {
-    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
-    // Client-side routes: every other GET gets the app shell.
+    app.use(
+      express.static(clientDir, {
+        index: false,
+        setHeaders: (res, file) => {
+          // Vite names what it emits under assets/ by content hash: a new build, a new name.
+          const hashed = path.relative(clientDir, file).startsWith(`assets${path.sep}`);
+          res.setHeader('Cache-Control', hashed ? IMMUTABLE : 'no-cache');
+        },
+      }),
+    );
+    // Client-side routes: every other GET gets the app shell, checked again on every visit so a
+    // new build is picked up at once.
     app.get(/^\/(?!api\/).*/, (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
       res.sendFile(path.join(clientDir, 'index.html'));
     });
   }

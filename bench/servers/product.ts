@@ -1,6 +1,7 @@
 /**
  * Loomwright in a process of its own for the HTTP benches: a fresh demo database, the draft
- * conversion's pin map replaced by BENCH_PINS generated pins (when set), the built client served
+ * conversion's pin map replaced by BENCH_PINS generated pins (when set; BENCH_OTHER_PINS for the
+ * signed-off one), the built client served
  * when BENCH_CLIENT_DIR is set. Prints one JSON line when listening; stops on SIGTERM.
  */
 import type { AddressInfo } from 'node:net';
@@ -8,14 +9,23 @@ import { benchContext } from '../lib/context.ts';
 import { replacePinMap } from '../lib/generate.ts';
 
 const pins = Number(process.env.BENCH_PINS ?? 0);
+/** Pins for the demo's second conversion (the signed-off one), for a second size in one server. */
+const otherPins = Number(process.env.BENCH_OTHER_PINS ?? 0);
 const ctx = await benchContext({ clientDir: process.env.BENCH_CLIENT_DIR || undefined });
 const conversionId = ctx.demo.conversions.draft;
+const otherConversionId = ctx.demo.conversions.signedOff;
 if (pins > 0) await replacePinMap(conversionId, pins);
+if (otherPins > 0) await replacePinMap(otherConversionId, otherPins);
 global.gc?.();
 const server = ctx.app.listen(0, '127.0.0.1', () => {
   const { port } = server.address() as AddressInfo;
   process.stdout.write(
-    JSON.stringify({ port, conversionId, authorization: ctx.auth.Authorization }) + '\n',
+    JSON.stringify({
+      port,
+      conversionId,
+      otherConversionId,
+      authorization: ctx.auth.Authorization,
+    }) + '\n',
   );
 });
 process.on('SIGTERM', () => {

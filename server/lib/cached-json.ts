@@ -1,4 +1,6 @@
 import { createHash } from 'node:crypto';
+import { promisify } from 'node:util';
+import { brotliCompress, constants, gzip } from 'node:zlib';
 import type { Request, Response } from 'express';
 import { onDatabaseClose } from '../db/index.ts';
 
@@ -6,7 +8,21 @@ import { onDatabaseClose } from '../db/index.ts';
 export interface JsonBody {
   body: Buffer;
   etag: string;
+  /** The body compressed, made on the first request that accepts each encoding. */
+  encoded?: Partial<Record<Encoding, Promise<Buffer>>>;
 }
+
+type Encoding = 'br' | 'gzip';
+
+const brotli = promisify(brotliCompress);
+const gzipped = promisify(gzip);
+// The compression middleware's own settings (brotli quality 4, gzip level 6): same bytes either way.
+const ENCODERS: Record<Encoding, (body: Buffer) => Promise<Buffer>> = {
+  br: (body) => brotli(body, { params: { [constants.BROTLI_PARAM_QUALITY]: 4 } }),
+  gzip: (body) => gzipped(body),
+};
+/** Below this the compression middleware would not compress either. */
+const THRESHOLD = 1024;
 
 /** The same weak ETag Express would compute for these bytes, so caching changes no header. */
 function weakEtag(body: Buffer): string {
@@ -19,10 +35,27 @@ export function toJsonBody(value: unknown): JsonBody {
   return { body, etag: weakEtag(body) };
 }
 
-/** Sends a prepared body as `res.json` would; a matching If-None-Match gets 304. */
-export function sendJsonBody(_req: Request, res: Response, { body, etag }: JsonBody): void {
+/**
+ * Sends a prepared body as `res.json` would; a matching If-None-Match gets 304. A client that
+ * accepts brotli or gzip gets the body compressed once per cache entry, not once per request.
+ */
+export async function sendJsonBody(req: Request, res: Response, json: JsonBody): Promise<void> {
   res.set('Content-Type', 'application/json; charset=utf-8');
-  res.set('ETag', etag);
+  res.set('ETag', json.etag);
+  res.vary('Accept-Encoding');
+  // Without Accept-Encoding the compression middleware sends plain bytes; so do we.
+  const encoding =
+    json.body.length >= THRESHOLD && req.headers['accept-encoding']
+      ? req.acceptsEncodings('br', 'gzip')
+      : false;
+  if (encoding !== 'br' && encoding !== 'gzip') {
+    res.send(json.body);
+    return;
+  }
+  json.encoded ??= {};
+  json.encoded[encoding] ??= ENCODERS[encoding](json.body);
+  const body = await json.encoded[encoding];
+  res.set('Content-Encoding', encoding);
   res.send(body);
 }
 

@@ -1,26 +1,19 @@
+import type { ComponentType } from 'react';
 import { createBrowserRouter, Navigate, RouterProvider } from 'react-router';
+import { Loading } from '@/components/ui/loading.tsx';
 import { paths } from '@/config/paths.ts';
 import { RequireRight, RequireSession } from './layout/require-session.tsx';
-import { AccountRoute } from './routes/account.tsx';
-import { ConversionLayout } from './routes/conversion/layout.tsx';
-import { ConversionOverviewRoute } from './routes/conversion/overview.tsx';
-import { ConversionBenchRoute } from './routes/conversion/bench.tsx';
-import { ConversionChecksRoute } from './routes/conversion/checks.tsx';
-import { ConversionFeedsRoute } from './routes/conversion/feeds.tsx';
-import { ConversionFilesRoute } from './routes/conversion/files.tsx';
-import { ConversionHistoryRoute } from './routes/conversion/history.tsx';
-import { ConversionPinMapRoute } from './routes/conversion/pin-map.tsx';
-import { ConversionRevisionRoute } from './routes/conversion/revision.tsx';
-import { ConversionRevisionsRoute } from './routes/conversion/revisions.tsx';
-import { CalculatorRoute } from './routes/calculator.tsx';
-import { LibraryRoute } from './routes/library.tsx';
-import { ConversionsRoute } from './routes/conversions.tsx';
 import { NotFoundRoute, RouteError } from './routes/route-error.tsx';
-import { OutboxRoute } from './routes/outbox.tsx';
 import { SetPasswordRoute } from './routes/set-password.tsx';
-import { SettingsRoute } from './routes/settings.tsx';
 import { SignInRoute } from './routes/sign-in.tsx';
-import { UsersRoute } from './routes/users.tsx';
+
+/**
+ * Every screen behind sign-in is its own chunk, fetched when first visited: the sign-in page does
+ * not download the grid, the PDF viewer or the calculator.
+ */
+const screen =
+  <M,>(load: () => Promise<M>, pick: (module: M) => ComponentType) =>
+  async () => ({ Component: pick(await load()) });
 
 const router = createBrowserRouter([
   { path: paths.signIn.path, element: <SignInRoute />, errorElement: <RouteError /> },
@@ -28,38 +21,144 @@ const router = createBrowserRouter([
   {
     element: <RequireSession />,
     errorElement: <RouteError />,
+    hydrateFallbackElement: <Loading what="Loading Loomwright" />,
     children: [
       { path: paths.home.path, element: <Navigate to={paths.conversions.getHref()} replace /> },
-      { path: paths.conversions.path, element: <ConversionsRoute /> },
+      {
+        path: paths.conversions.path,
+        lazy: screen(
+          () => import('./routes/conversions.tsx'),
+          (m) => m.ConversionsRoute,
+        ),
+      },
       {
         path: paths.conversion.path,
-        element: <ConversionLayout />,
+        lazy: screen(
+          () => import('./routes/conversion/layout.tsx'),
+          (m) => m.ConversionLayout,
+        ),
         children: [
-          { index: true, element: <ConversionOverviewRoute /> },
-          { path: 'pins', element: <ConversionPinMapRoute /> },
-          { path: 'feeds', element: <ConversionFeedsRoute /> },
-          { path: 'checks', element: <ConversionChecksRoute /> },
-          { path: 'files', element: <ConversionFilesRoute /> },
-          { path: 'revisions', element: <ConversionRevisionsRoute /> },
-          { path: 'revisions/:number', element: <ConversionRevisionRoute /> },
-          { path: 'bench', element: <ConversionBenchRoute /> },
-          { path: 'history', element: <ConversionHistoryRoute /> },
+          {
+            index: true,
+            lazy: screen(
+              () => import('./routes/conversion/overview.tsx'),
+              (m) => m.ConversionOverviewRoute,
+            ),
+          },
+          {
+            path: 'pins',
+            lazy: screen(
+              () => import('./routes/conversion/pin-map.tsx'),
+              (m) => m.ConversionPinMapRoute,
+            ),
+          },
+          {
+            path: 'feeds',
+            lazy: screen(
+              () => import('./routes/conversion/feeds.tsx'),
+              (m) => m.ConversionFeedsRoute,
+            ),
+          },
+          {
+            path: 'checks',
+            lazy: screen(
+              () => import('./routes/conversion/checks.tsx'),
+              (m) => m.ConversionChecksRoute,
+            ),
+          },
+          {
+            path: 'files',
+            lazy: screen(
+              () => import('./routes/conversion/files.tsx'),
+              (m) => m.ConversionFilesRoute,
+            ),
+          },
+          {
+            path: 'revisions',
+            lazy: screen(
+              () => import('./routes/conversion/revisions.tsx'),
+              (m) => m.ConversionRevisionsRoute,
+            ),
+          },
+          {
+            path: 'revisions/:number',
+            lazy: screen(
+              () => import('./routes/conversion/revision.tsx'),
+              (m) => m.ConversionRevisionRoute,
+            ),
+          },
+          {
+            path: 'bench',
+            lazy: screen(
+              () => import('./routes/conversion/bench.tsx'),
+              (m) => m.ConversionBenchRoute,
+            ),
+          },
+          {
+            path: 'history',
+            lazy: screen(
+              () => import('./routes/conversion/history.tsx'),
+              (m) => m.ConversionHistoryRoute,
+            ),
+          },
         ],
       },
-      { path: paths.account.path, element: <AccountRoute /> },
-      { path: paths.calculator.path, element: <CalculatorRoute /> },
-      { path: paths.library.path, element: <LibraryRoute /> },
+      {
+        path: paths.account.path,
+        lazy: screen(
+          () => import('./routes/account.tsx'),
+          (m) => m.AccountRoute,
+        ),
+      },
+      {
+        path: paths.calculator.path,
+        lazy: screen(
+          () => import('./routes/calculator.tsx'),
+          (m) => m.CalculatorRoute,
+        ),
+      },
+      {
+        path: paths.library.path,
+        lazy: screen(
+          () => import('./routes/library.tsx'),
+          (m) => m.LibraryRoute,
+        ),
+      },
       {
         element: <RequireRight right="users:manage" />,
-        children: [{ path: paths.users.path, element: <UsersRoute /> }],
+        children: [
+          {
+            path: paths.users.path,
+            lazy: screen(
+              () => import('./routes/users.tsx'),
+              (m) => m.UsersRoute,
+            ),
+          },
+        ],
       },
       {
         element: <RequireRight right="workshop:settings" />,
-        children: [{ path: paths.settings.path, element: <SettingsRoute /> }],
+        children: [
+          {
+            path: paths.settings.path,
+            lazy: screen(
+              () => import('./routes/settings.tsx'),
+              (m) => m.SettingsRoute,
+            ),
+          },
+        ],
       },
       {
         element: <RequireRight right="outbox:read" />,
-        children: [{ path: paths.outbox.path, element: <OutboxRoute /> }],
+        children: [
+          {
+            path: paths.outbox.path,
+            lazy: screen(
+              () => import('./routes/outbox.tsx'),
+              (m) => m.OutboxRoute,
+            ),
+          },
+        ],
       },
       { path: '*', element: <NotFoundRoute /> },
     ],

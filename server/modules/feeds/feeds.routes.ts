@@ -10,7 +10,7 @@ import * as feedsService from './feeds.service.ts';
 
 async function list(req: Request, res: Response) {
   const { id } = parsedParams<IdParams>(req);
-  sendJsonBody(req, res, await feedsService.feedListBody(actorOf(req), id));
+  await sendJsonBody(req, res, await feedsService.feedListBody(actorOf(req), id));
 }
 
 async function get(req: Request, res: Response) {

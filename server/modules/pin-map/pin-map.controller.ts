@@ -46,7 +46,7 @@ export async function deleteConnector(req: Request, res: Response) {
 
 export async function listPins(req: Request, res: Response) {
   const { id } = parsedParams<IdParams>(req);
-  sendJsonBody(req, res, await pinsService.pinListBody(actorOf(req), id));
+  await sendJsonBody(req, res, await pinsService.pinListBody(actorOf(req), id));
 }
 
 export async function updatePin(req: Request, res: Response) {

@@ -1,4 +1,12 @@
-import { memo, useId, useState, type KeyboardEvent } from 'react';
+import {
+  memo,
+  startTransition,
+  useEffect,
+  useId,
+  useRef,
+  useState,
+  type KeyboardEvent,
+} from 'react';
 import { DISPOSITION_INFO, DISPOSITIONS } from '#shared/domain/dispositions.ts';
 import { describeWireColour } from '#shared/domain/wire-colours.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
@@ -34,23 +42,61 @@ function describeCavity(connector: Connector, pin: Pin, unit: SizeUnit): string 
   return parts.join('; ');
 }
 
+const faceSize = (connector: Connector) => ({
+  width: MARGIN * 2 + connector.columns * PITCH - (PITCH - BOX),
+  height: MARGIN * 2 + connector.rows * PITCH - (PITCH - BOX),
+});
+
+/**
+ * True once the element has come near the viewport. The observer reports after the page has
+ * been laid out and painted, so a face is never drawn in the same task as the grid's first
+ * render, and a face nobody scrolls to is never drawn at all. Drawing is a transition: a click
+ * or key press in the grid goes first.
+ */
+function useNearViewport() {
+  const ref = useRef<HTMLDivElement>(null);
+  const [near, setNear] = useState(() => typeof IntersectionObserver === 'undefined');
+  useEffect(() => {
+    const el = ref.current;
+    if (near || !el) return;
+    const observer = new IntersectionObserver(
+      (entries) => {
+        if (!entries.some((e) => e.isIntersecting)) return;
+        observer.disconnect();
+        startTransition(() => setNear(true));
+      },
+      { rootMargin: '200px' },
+    );
+    observer.observe(el);
+    return () => observer.disconnect();
+  }, [near]);
+  return { ref, near };
+}
+
 /**
  * A connector seen from its mating face: each cavity in its row and column, marked with its
- * disposition's glyph and its label. Clicking a cavity (or Enter on it) goes to its row in the grid.
+ * disposition's glyph and its label. Clicking a cavity (or Enter on it) goes to its row in the
+ * grid. Until it comes near the viewport a blank of the same size holds its place.
  */
-export const ConnectorFace = memo(function ConnectorFace({
-  connector,
-  pins,
-  counts,
-  unit,
-  onActivate,
-}: FaceProps) {
+export const ConnectorFace = memo(function ConnectorFace(props: FaceProps) {
+  const { ref, near } = useNearViewport();
+  if (near) return <FaceDrawing {...props} />;
+  const { width, height } = faceSize(props.connector);
+  return (
+    <div ref={ref} className="relative w-fit max-w-full" aria-hidden>
+      <div className="overflow-x-auto">
+        <div style={{ width, height }} className="rounded-lg bg-paper-sunk" />
+      </div>
+    </div>
+  );
+}, sameFace);
+
+function FaceDrawing({ connector, pins, counts, unit, onActivate }: FaceProps) {
   const id = useId().replace(/[^a-zA-Z0-9]/g, '');
   const cavities = faceCavities(connector, pins);
   const [shown, setShown] = useState<FaceCavity | null>(null);
   const [focusIndex, setFocusIndex] = useState(0);
-  const width = MARGIN * 2 + connector.columns * PITCH - (PITCH - BOX);
-  const height = MARGIN * 2 + connector.rows * PITCH - (PITCH - BOX);
+  const { width, height } = faceSize(connector);
   const at = (c: FaceCavity) => ({ x: MARGIN + c.column * PITCH, y: MARGIN + c.row * PITCH });
   const summary = DISPOSITIONS.filter((d) => counts[d] > 0)
     .map((d) => `${counts[d]} ${DISPOSITION_INFO[d].label.toLowerCase()}`)
@@ -181,7 +227,7 @@ export const ConnectorFace = memo(function ConnectorFace({
       ) : null}
     </div>
   );
-}, sameFace);
+}
 
 const sameItems = <T,>(a: readonly T[], b: readonly T[]) =>
   a.length === b.length && a.every((item, i) => item === b[i]);

@@ -4,7 +4,12 @@ import {
   type OnChangeFn,
   type RowSelectionState,
 } from '@tanstack/react-table';
-import { defaultRangeExtractor, useVirtualizer } from '@tanstack/react-virtual';
+import {
+  defaultRangeExtractor,
+  useVirtualizer,
+  type Rect,
+  type Virtualizer,
+} from '@tanstack/react-virtual';
 import {
   useEffect,
   useEffectEvent,
@@ -67,6 +72,29 @@ interface EditState extends CellKey {
 }
 
 const getRowId = (row: PinRow) => String(row.pin.id);
+
+/** The grid's height as its class gives it (`h-[min(68vh,760px)]`), known without a layout. */
+const cssGridHeight = () => Math.round(Math.min(window.innerHeight * 0.68, 760));
+
+/**
+ * The grid's box from ResizeObserver reports only. The virtualiser's own observer reads
+ * clientWidth/clientHeight when the grid mounts, which forces the browser to lay out everything
+ * drawn so far (the connector faces above the grid) in the middle of the first render; a
+ * ResizeObserver reports after the browser's own layout, for free. Until then the CSS height.
+ */
+function observeGridRect(instance: Virtualizer<HTMLDivElement, Element>, cb: (rect: Rect) => void) {
+  const el = instance.scrollElement;
+  if (!el || typeof ResizeObserver === 'undefined') return;
+  const observer = new ResizeObserver(([entry]) => {
+    if (!entry) return;
+    cb({
+      width: Math.round(entry.contentRect.width),
+      height: Math.round(entry.contentRect.height),
+    });
+  });
+  observer.observe(el);
+  return () => observer.disconnect();
+}
 
 const EDITOR_MOVES: Record<Exclude<EditorMove, 'stay'>, Move> = {
   down: 'down',
@@ -176,6 +204,8 @@ export function PinGrid({
       return keep.length ? [...new Set([...indexes, ...keep])].sort((a, b) => a - b) : indexes;
     },
     getScrollElement: () => scrollRef.current,
+    observeElementRect: observeGridRect,
+    initialRect: { width: 0, height: cssGridHeight() },
     estimateSize: () => ROW_HEIGHT,
     overscan: 12,
     scrollMargin: HEADER_HEIGHT,
