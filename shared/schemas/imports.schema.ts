@@ -96,6 +96,8 @@ export interface ImportResult {
   errors: ImportIssue[];
   /** All errors found; `errors` lists at most the first 500. */
   errorCount: number;
+  /** Every change, field by field: in a preview and a refusal. An applied import answers with
+   * its summary alone (this is empty): the wizard has the preview's list already. */
   changes: ImportChange[];
   summary: ImportSummary;
   /** False when the file could not be read far enough to say what it would change. */

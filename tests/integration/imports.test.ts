@@ -273,6 +273,8 @@ describe('large files', () => {
     expect(res.status).toBe(200);
     expect(res.body.imported).toBe(2000);
     expect(res.body.summary).toEqual({ added: 1995, changed: 5, unchanged: 0, removed: 0 });
+    // Applying answers with the summary; the preview is where each change is listed.
+    expect(res.body.changes).toEqual([]);
     const pins = await pinsOf(conversion);
     expect(pins).toHaveLength(2000);
     expect(pins.every((p) => p.disposition === 'keep' && p.colour === 'BU/WH')).toBe(true);

@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import type { Transaction } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 import {
   MAX_IMPORT_ERRORS_LISTED,
   type ColumnTarget,
@@ -26,7 +26,10 @@ import { logger } from '../../lib/logger.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { displayFileName, type UploadedFile } from '../../lib/upload.ts';
 import { recordAudit } from '../audit/audit.service.ts';
-import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
+import {
+  conversionChangeCounter,
+  findConversionInWorkshop,
+} from '../conversions/conversions.service.ts';
 import { findConnectorInWorkshop } from '../pin-map/connectors.service.ts';
 import { decodeUtf8, DELIMITER_NAMES, readCsv } from './csv-text.ts';
 import { headerSignature, parseMappingField, resolveMapping } from './mapping.ts';
@@ -305,26 +308,61 @@ async function previousImport(
   return { at: earlier.createdAt.toISOString(), by: by?.name ?? null };
 }
 
-const UPDATED_FIELDS = ['position', ...PIN_FIELD_NAMES, 'version', 'updatedAt'] as const;
+/** The pin columns an import writes, by attribute, in one order for every statement. */
+const WRITTEN = ['connectorId', 'cavity', 'position', ...PIN_FIELD_NAMES, 'version'] as const;
+type WrittenPin = Pick<PinData, (typeof WRITTEN)[number]>;
+
+/**
+ * Rows of pins in one multi-row statement: plain SQL with bound values, no model per row. With
+ * `upsert`, rows carry their id and an existing row takes the new values (and keeps created_at).
+ */
+async function writePins(
+  rows: ReadonlyArray<WrittenPin & { id?: number }>,
+  conversionId: number,
+  upsert: boolean,
+  t: Transaction,
+): Promise<void> {
+  if (rows.length === 0) return;
+  const attributes = Pin.getAttributes();
+  const column = (name: string) => attributes[name as keyof typeof attributes]!.field!;
+  const names = [...(upsert ? ['id'] : []), 'conversionId', ...WRITTEN, 'createdAt', 'updatedAt'];
+  const stamp = db().escape(new Date()).slice(1, -1);
+  const bind: unknown[] = [];
+  const tuples = rows.map((row) => {
+    const values: unknown[] = [
+      ...(upsert ? [row.id] : []),
+      conversionId,
+      ...WRITTEN.map((name) => row[name]),
+      stamp,
+      stamp,
+    ];
+    const start = bind.length;
+    bind.push(...values);
+    return `(${values.map((_, i) => `$${start + i + 1}`).join(', ')})`;
+  });
+  const updates = ['position', ...PIN_FIELD_NAMES, 'version', 'updatedAt'].map(
+    (name) => `${column(name)} = excluded.${column(name)}`,
+  );
+  await db().query(
+    `INSERT INTO pins (${names.map(column).join(', ')}) VALUES ${tuples.join(', ')}` +
+      (upsert ? ` ON CONFLICT (id) DO UPDATE SET ${updates.join(', ')}` : ''),
+    { bind, transaction: t },
+  );
+}
 
 /** Writes a plan inside the caller's transaction, in statements of at most 500 rows. */
 async function writePlan(plan: Plan, conversionId: number, t: Transaction): Promise<void> {
-  const now = new Date();
   for (const c of plan.connectors) {
     for (const ids of chunks(c.removes)) {
       await Pin.destroy({ where: { id: ids }, transaction: t });
     }
-    for (const rows of chunks(c.updates)) {
-      // An upsert by id: one statement sets each row's own new values.
-      await Pin.bulkCreate(
-        rows.map((p) => ({ ...p, conversionId, updatedAt: now })),
-        { updateOnDuplicate: [...UPDATED_FIELDS], transaction: t },
-      );
-    }
+    for (const rows of chunks(c.updates)) await writePins(rows, conversionId, true, t);
     for (const rows of chunks(c.adds)) {
-      await Pin.bulkCreate(
-        rows.map((p) => ({ ...p, conversionId, connectorId: c.connectorId })),
-        { transaction: t },
+      await writePins(
+        rows.map((p) => ({ ...p, connectorId: c.connectorId, version: 0 })),
+        conversionId,
+        false,
+        t,
       );
     }
     const connector = await Connector.findByPk(c.connectorId, { transaction: t });
@@ -338,6 +376,15 @@ async function writePlan(plan: Plan, conversionId: number, t: Transaction): Prom
       await connector.save({ transaction: t });
     }
   }
+}
+
+/** The conversion's change counter as this transaction sees it (migration 0007). */
+async function changeCounterIn(conversionId: number, t: Transaction): Promise<number> {
+  const [row] = await db().query<{ counter: number }>(
+    'SELECT counter FROM conversion_changes WHERE conversion_id = ?',
+    { replacements: [conversionId], type: QueryTypes.SELECT, transaction: t },
+  );
+  return row?.counter ?? 0;
 }
 
 /**
@@ -356,6 +403,9 @@ export async function importPinout(
   const given = parseMappingField(mappingField);
   const where = await locate(actor, target);
   const checked = await checkFile(actor, where, file, given);
+  // Read before the pin map: if it has not moved by the time the transaction starts, the plan
+  // worked out here is still the plan, and is not worked out again.
+  const counter = await conversionChangeCounter(actor, where.conversionId);
   const plan = checked.rows.length
     ? planImport(
         await loadContext(where),
@@ -376,14 +426,19 @@ export async function importPinout(
   if (preview.errorCount > 0 || !plan) throw refused(preview);
 
   const applied = await inTransaction(db(), async (t) => {
-    const fresh = planImport(
-      await loadContext(where, t),
-      checked.rows,
-      checked.mentioned,
-      checked.headerOf,
-      checked.imported,
-    );
-    if (fresh.errors.length) throw refused(buildResult(where, checked, fresh, false, previous));
+    const unchanged = (await changeCounterIn(where.conversionId, t)) === counter;
+    const fresh = unchanged
+      ? plan
+      : planImport(
+          await loadContext(where, t),
+          checked.rows,
+          checked.mentioned,
+          checked.headerOf,
+          checked.imported,
+        );
+    if (fresh.errors.length) {
+      throw refused(buildResult(where, checked, fresh, false, previous));
+    }
     await writePlan(fresh, where.conversionId, t);
     await PinImport.create(
       {
@@ -437,6 +492,8 @@ export async function importPinout(
   );
   return {
     ...buildResult(where, checked, applied, false, previous),
+    // Applying answers with the summary: the preview listed every change already.
+    changes: [],
     imported: checked.rows.length,
   };
 }
