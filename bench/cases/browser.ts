@@ -12,9 +12,10 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type Page } from '@playwright/test';
+import playwrightConfig from '../../playwright.config.ts';
 import { startServer } from '../lib/process.ts';
 import type { BenchRow } from '../lib/report.ts';
-import { num, spread, withUnit } from '../lib/stats.ts';
+import { alternate, num, spread, withUnit } from '../lib/stats.ts';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const distDir = path.join(root, 'dist');
@@ -35,19 +36,9 @@ function buildClient() {
   if (built.status !== 0) throw new Error('vite build failed');
 }
 
+/** The browser tests' own Chromium and flags. */
 function launch(): Promise<Browser> {
-  return chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    args: [
-      '--headless',
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-      '--no-first-run',
-    ],
-  });
+  return chromium.launch(playwrightConfig.use?.launchOptions);
 }
 
 const KB = 1024;
@@ -192,17 +183,11 @@ export async function browserBench(rounds: number): Promise<BenchRow[]> {
     // Warm-up: the chunks into the browser's cache, the server's lists into its cache.
     await timeToInteractive(page, pinMap(server.info.conversionId));
     await timeToInteractive(page, pinMap(server.info.otherConversionId));
-    const tti1000: number[] = [];
-    const tti2000: number[] = [];
-    for (let r = 0; r < rounds; r++) {
-      if (r % 2 === 0) {
-        tti1000.push(await timeToInteractive(page, pinMap(server.info.conversionId)));
-        tti2000.push(await timeToInteractive(page, pinMap(server.info.otherConversionId)));
-      } else {
-        tti2000.push(await timeToInteractive(page, pinMap(server.info.otherConversionId)));
-        tti1000.push(await timeToInteractive(page, pinMap(server.info.conversionId)));
-      }
-    }
+    const { product: tti1000, baseline: tti2000 } = await alternate(
+      rounds,
+      () => timeToInteractive(page, pinMap(server.info.conversionId)),
+      () => timeToInteractive(page, pinMap(server.info.otherConversionId)),
+    );
     const edits: number[] = [];
     const editP95: number[] = [];
     for (let r = 0; r < rounds; r++) {

@@ -3,7 +3,7 @@ import { loadConversionSnapshot } from '../../server/modules/checks/snapshot.ser
 import { benchContext } from '../lib/context.ts';
 import { generateFeeds, replacePinMap } from '../lib/generate.ts';
 import { measure, type BenchRow } from '../lib/report.ts';
-import { num, ratios, spread, times } from '../lib/stats.ts';
+import { alternate, num, ratios, spread, times } from '../lib/stats.ts';
 
 /**
  * P2: the check service on 2,000 pins and 300 feeds (load + every check) beside loading the same
@@ -25,17 +25,11 @@ export async function checksBench(rounds: number): Promise<BenchRow[]> {
       });
     await checked();
     await loadOnly();
-    const ours: number[] = [];
-    const base: number[] = [];
-    for (let r = 0; r < Math.max(rounds, 5); r++) {
-      if (r % 2 === 0) {
-        ours.push((await checked()).ms);
-        base.push((await loadOnly()).ms);
-      } else {
-        base.push((await loadOnly()).ms);
-        ours.push((await checked()).ms);
-      }
-    }
+    const { product: ours, baseline: base } = await alternate(
+      Math.max(rounds, 5),
+      async () => (await checked()).ms,
+      async () => (await loadOnly()).ms,
+    );
     const ratio = ratios(ours, base);
     return [
       {

@@ -3,7 +3,7 @@ import request from 'supertest';
 import { Connector, Pin } from '../../server/db/models/index.ts';
 import { benchContext } from '../lib/context.ts';
 import { measure, type BenchRow } from '../lib/report.ts';
-import { num, ratios, spread, times } from '../lib/stats.ts';
+import { alternate, num, ratios, spread, times } from '../lib/stats.ts';
 
 const ROWS = 5000;
 const PER_CONNECTOR = 400;
@@ -83,17 +83,7 @@ export async function importCsv(rounds: number): Promise<BenchRow[]> {
     // Warm-up of both, not counted.
     await papa();
     await importOnce();
-    const ours: Array<Awaited<ReturnType<typeof importOnce>>> = [];
-    const parser: number[] = [];
-    for (let r = 0; r < rounds; r++) {
-      if (r % 2 === 0) {
-        ours.push(await importOnce());
-        parser.push(await papa());
-      } else {
-        parser.push(await papa());
-        ours.push(await importOnce());
-      }
-    }
+    const { product: ours, baseline: parser } = await alternate(rounds, importOnce, papa);
     const apply = ratios(
       ours.map((o) => o.apply),
       parser,

@@ -1,10 +1,10 @@
 import { writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { load, type LoadResult } from '../lib/http.ts';
+import { load } from '../lib/http.ts';
 import { startServer } from '../lib/process.ts';
 import type { BenchRow } from '../lib/report.ts';
-import { num, ratios, spread, times, withUnit } from '../lib/stats.ts';
+import { alternate, num, ratios, spread, times, withUnit } from '../lib/stats.ts';
 
 interface ProductInfo {
   port: number;
@@ -58,21 +58,11 @@ async function oneSize(pins: number, seconds: number, rounds: number, withRss: b
     await runBare();
     peakRss = 0;
     bareRss = 0;
-    const ours: LoadResult[] = [];
-    const theirs: LoadResult[] = [];
     const rss: number[] = [];
-    for (let r = 0; r < rounds; r++) {
-      peakRss = 0;
-      // Alternate which goes first, so neither always gets the quieter moment.
-      if (r % 2 === 0) {
-        ours.push(await runProduct());
-        theirs.push(await runBare());
-      } else {
-        theirs.push(await runBare());
-        ours.push(await runProduct());
-      }
+    const { product: ours, baseline: theirs } = await alternate(rounds, runProduct, runBare, () => {
       rss.push(peakRss);
-    }
+      peakRss = 0;
+    });
     const errors = [...ours, ...theirs].reduce((n, r) => n + r.errors, 0);
     if (errors) throw new Error(`${errors} failed requests in the pins bench`);
     return {

@@ -13,7 +13,7 @@ import { registerFonts } from '../../server/modules/worksheets/pdf/fonts.ts';
 import type { WorksheetMeta } from '../../server/modules/worksheets/pdf/meta.ts';
 import { worksheetBuffer } from '../../server/modules/worksheets/pdf/render.ts';
 import { measure, type BenchRow } from '../lib/report.ts';
-import { num, ratios, spread, times, withUnit } from '../lib/stats.ts';
+import { alternate, num, ratios, spread, times, withUnit } from '../lib/stats.ts';
 
 const PINS = 300;
 const ROUNDS = 5;
@@ -176,17 +176,11 @@ export async function worksheetBench(rounds: number): Promise<BenchRow[]> {
   // The first print in a process also parses the fonts and warms the JIT: shown on its own.
   const cold = await product();
   await baseline();
-  const ours: Array<Awaited<ReturnType<typeof run>>> = [];
-  const theirs: Array<Awaited<ReturnType<typeof run>>> = [];
-  for (let r = 0; r < Math.max(rounds, ROUNDS); r++) {
-    if (r % 2 === 0) {
-      ours.push(await product());
-      theirs.push(await baseline());
-    } else {
-      theirs.push(await baseline());
-      ours.push(await product());
-    }
-  }
+  const { product: ours, baseline: theirs } = await alternate(
+    Math.max(rounds, ROUNDS),
+    product,
+    baseline,
+  );
   const ratio = ratios(
     ours.map((r) => r.ms),
     theirs.map((r) => r.ms),

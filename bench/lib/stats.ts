@@ -37,3 +37,27 @@ export function times(s: Spread): string {
 export function withUnit(s: Spread, unit: string): string {
   return `${num(s.median)} ${unit} [${num(s.min)}–${num(s.max)}]`;
 }
+
+/**
+ * Runs the product and its baseline `rounds` times each, alternating which goes first so that
+ * neither always gets the quieter moment of a busy machine; `after` runs at the end of each round.
+ */
+export async function alternate<A, B>(
+  rounds: number,
+  product: () => Promise<A>,
+  baseline: () => Promise<B>,
+  after?: () => void,
+): Promise<{ product: A[]; baseline: B[] }> {
+  const out = { product: [] as A[], baseline: [] as B[] };
+  for (let r = 0; r < rounds; r++) {
+    if (r % 2 === 0) {
+      out.product.push(await product());
+      out.baseline.push(await baseline());
+    } else {
+      out.baseline.push(await baseline());
+      out.product.push(await product());
+    }
+    after?.();
+  }
+  return out;
+}
