@@ -62,5 +62,5 @@ describe('configuration', () => {
     });
     expect(result.status).not.toBe(0);
     expect(result.stderr).toMatch(/JWT_SECRET/);
-  }, 120_000);
+  });
 });
