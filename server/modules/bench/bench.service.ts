@@ -29,7 +29,7 @@ import { inTransaction } from '../../lib/transaction.ts';
 import { displayFileName, type UploadedFile } from '../../lib/upload.ts';
 import { sniffType } from '../attachments/attachments.service.ts';
 import { recordAudit } from '../audit/audit.service.ts';
-import { findRevision, snapshotOf } from '../revisions/revisions.service.ts';
+import { assertSealIntact, findRevision, snapshotOf } from '../revisions/revisions.service.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
 import { reworkOf, ticksOf } from './bench-carry.service.ts';
 
@@ -71,7 +71,11 @@ async function signedOffRevision(
 ): Promise<{ revision: Revision; current: boolean } | null> {
   await findConversionInWorkshop(actor, conversionId, t);
   const latest = await latestSignedOff(conversionId, t);
-  if (number == null) return latest ? { revision: latest, current: true } : null;
+  if (number == null) {
+    // Nobody builds from a revision that no longer matches its seal.
+    if (latest) await assertSealIntact(latest);
+    return latest ? { revision: latest, current: true } : null;
+  }
   const revision = await findRevision(actor, conversionId, number, t);
   if (revision.status !== 'signed_off') {
     throw new AppError(
@@ -80,6 +84,7 @@ async function signedOffRevision(
       `Revision ${number} is not signed off: the bench works only from a signed-off revision.`,
     );
   }
+  await assertSealIntact(revision);
   return { revision, current: latest?.id === revision.id };
 }
 

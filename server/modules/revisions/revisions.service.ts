@@ -112,7 +112,7 @@ async function sealProblem(r: Revision): Promise<string | null> {
 }
 
 /** Refuses to serve a revision that does not match its seal: nobody must build from it. */
-async function assertSealIntact(r: Revision): Promise<void> {
+export async function assertSealIntact(r: Revision): Promise<void> {
   const problem = await sealProblem(r);
   if (problem) {
     throw new AppError(
