@@ -1,12 +1,4 @@
-import {
-  memo,
-  startTransition,
-  useEffect,
-  useId,
-  useRef,
-  useState,
-  type KeyboardEvent,
-} from 'react';
+import { memo, startTransition, useEffect, useId, useState, type KeyboardEvent } from 'react';
 import { DISPOSITION_INFO, DISPOSITIONS } from '#shared/domain/dispositions.ts';
 import { describeWireColour } from '#shared/domain/wire-colours.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
@@ -48,42 +40,30 @@ const faceSize = (connector: Connector) => ({
 });
 
 /**
- * True once the element has come near the viewport. The observer reports after the page has
- * been laid out and painted, so a face is never drawn in the same task as the grid's first
- * render, and a face nobody scrolls to is never drawn at all. Drawing is a transition: a click
- * or key press in the grid goes first.
+ * True once the page has painted the grid: the face is drawn in a transition after the first
+ * render, so a click or key press in the grid goes first. Every face is then drawn, on screen or
+ * not, so keyboard and screen-reader users reach each cavity and a link to a cavity finds it.
  */
-function useNearViewport() {
-  const ref = useRef<HTMLDivElement>(null);
-  const [near, setNear] = useState(() => typeof IntersectionObserver === 'undefined');
+function useDrawnAfterPaint() {
+  const [drawn, setDrawn] = useState(false);
   useEffect(() => {
-    const el = ref.current;
-    if (near || !el) return;
-    const observer = new IntersectionObserver(
-      (entries) => {
-        if (!entries.some((e) => e.isIntersecting)) return;
-        observer.disconnect();
-        startTransition(() => setNear(true));
-      },
-      { rootMargin: '200px' },
-    );
-    observer.observe(el);
-    return () => observer.disconnect();
-  }, [near]);
-  return { ref, near };
+    const frame = requestAnimationFrame(() => startTransition(() => setDrawn(true)));
+    return () => cancelAnimationFrame(frame);
+  }, []);
+  return drawn;
 }
 
 /**
  * A connector seen from its mating face: each cavity in its row and column, marked with its
  * disposition's glyph and its label. Clicking a cavity (or Enter on it) goes to its row in the
- * grid. Until it comes near the viewport a blank of the same size holds its place.
+ * grid. Until the grid has painted, a blank of the same size holds its place.
  */
 export const ConnectorFace = memo(function ConnectorFace(props: FaceProps) {
-  const { ref, near } = useNearViewport();
-  if (near) return <FaceDrawing {...props} />;
+  const drawn = useDrawnAfterPaint();
+  if (drawn) return <FaceDrawing {...props} />;
   const { width, height } = faceSize(props.connector);
   return (
-    <div ref={ref} className="relative w-fit max-w-full" aria-hidden>
+    <div className="relative w-fit max-w-full" aria-hidden>
       <div className="overflow-x-auto">
         <div style={{ width, height }} className="rounded-lg bg-paper-sunk" />
       </div>
