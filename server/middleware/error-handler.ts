@@ -9,6 +9,7 @@ import { ZodError } from 'zod';
 import type { ApiErrorBody, FieldIssue } from '#shared/schemas/common.schema.ts';
 import { AppError, busy } from '../lib/errors.ts';
 import { logger } from '../lib/logger.ts';
+import { storageFailure } from '../lib/storage-errors.ts';
 import { isBusyError } from '../lib/transaction.ts';
 
 export function zodIssues(err: ZodError): FieldIssue[] {
@@ -55,6 +56,9 @@ function toAppError(err: unknown): AppError {
     return new AppError(400, 'validation_failed', err.errors.map((e) => e.message).join('; '));
   }
   if (isBusyError(err)) return busy();
+  // A full or read-only disk, wherever it surfaced (SQLite, the upload folder, the S3 store).
+  const storage = storageFailure(err);
+  if (storage) return storage;
   const e = err as { status?: number; type?: string; code?: string; message?: string };
   // body-parser and multer errors carry their own status.
   if (e?.type === 'entity.parse.failed') {
