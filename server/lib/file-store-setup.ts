@@ -3,7 +3,7 @@ import path from 'node:path';
 import type { Env } from '../config/env.ts';
 import { S3FileStore, setFileStore, uploadDir } from './file-store.ts';
 import { logger } from './logger.ts';
-import { S3_FAKE_CREDENTIALS, startS3Fake } from './s3-fake.ts';
+import { startS3Fake } from './s3-fake.ts';
 
 /**
  * Chooses where uploaded files go. A configured S3 endpoint wins; in demo mode without one, a local
@@ -27,7 +27,7 @@ export async function startFileStore(env: Env): Promise<() => Promise<void>> {
     endpoint: fake.endpoint,
     bucket: env.S3_BUCKET,
     region: env.S3_REGION,
-    ...S3_FAKE_CREDENTIALS,
+    ...fake.credentials,
   });
   setFileStore(store);
   logger.info(

@@ -1,16 +1,17 @@
 import { createHash, randomBytes } from 'node:crypto';
+import type { IncomingMessage } from 'node:http';
 import { mkdir, rename, rm, writeFile } from 'node:fs/promises';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import type { Readable } from 'node:stream';
+import { signatureProblem, type Credentials } from './s3-signature.ts';
 import { S3_FULL_CODE, S3_READ_ONLY_CODE } from './storage-errors.ts';
-
-/** Credentials s3rver checks request signatures against. */
-export const S3_FAKE_CREDENTIALS = { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' } as const;
 
 export interface S3Fake {
   endpoint: string;
   port: number;
+  /** Made up at start; every request must be signed with them. */
+  credentials: Credentials;
   close: () => Promise<void>;
 }
 
@@ -108,8 +109,35 @@ function storageErrorsAsS3Errors(S3Error: S3ErrorClass): KoaMiddleware {
 type S3ErrorClass = new (code: string, message: string) => Error & { status: number };
 
 /**
+ * Refuses (403) every request not signed with `credentials`: s3rver alone answers anyone on the
+ * machine. A signed request goes on without its Authorization header, which s3rver would only
+ * check against its built-in key.
+ */
+function signedRequestsOnly(credentials: Credentials, S3Error: S3ErrorClass): KoaMiddleware {
+  return async (ctx, next) => {
+    const req = (ctx as { req: IncomingMessage }).req;
+    const problem = signatureProblem(
+      { method: req.method ?? 'GET', url: req.url ?? '/', headers: req.headers },
+      credentials,
+    );
+    if (problem) throw new S3Error('AccessDenied', `Access Denied (${problem}).`);
+    delete req.headers.authorization;
+    await next();
+  };
+}
+
+/** A key pair for one run of the stand-in, in the shape AWS keys take. */
+function freshCredentials(): Credentials {
+  return {
+    accessKeyId: `LW${randomBytes(9).toString('hex').toUpperCase()}`,
+    secretAccessKey: randomBytes(30).toString('base64url'),
+  };
+}
+
+/**
  * A local S3-compatible server (s3rver) on 127.0.0.1 that keeps objects in `directory`, with
- * `bucket` created at start: demo mode and the tests store files through the real S3 SDK against
+ * `bucket` created at start, answering only requests signed with the key pair it makes up at
+ * start (`credentials`): demo mode and the tests store files through the real S3 SDK against
  * it. Loaded on demand so production never loads it.
  */
 export async function startS3Fake(options: {
@@ -133,11 +161,16 @@ export async function startS3Fake(options: {
   const store = internals.store;
   const disk = options.disk ?? realDisk;
   store.putObject = (object) => putObjectWhole(store, object, disk);
-  internals.middleware.unshift(storageErrorsAsS3Errors(S3Error));
+  const credentials = freshCredentials();
+  internals.middleware.unshift(
+    storageErrorsAsS3Errors(S3Error),
+    signedRequestsOnly(credentials, S3Error),
+  );
   const address = await server.run();
   return {
     endpoint: `http://127.0.0.1:${address.port}`,
     port: address.port,
+    credentials,
     close: () => server.close(),
   };
 }

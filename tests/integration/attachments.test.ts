@@ -12,7 +12,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Attachment } from '#server/db/models/index.ts';
 import { FolderFileStore } from '#server/lib/file-store.ts';
-import { S3_FAKE_CREDENTIALS, startS3Fake, type S3Fake } from '#server/lib/s3-fake.ts';
+import { startS3Fake, type S3Fake } from '#server/lib/s3-fake.ts';
 import { createOtherWorkshop } from '../factories/workshop.factory.ts';
 import { createTestContext, type TestContext } from '../helpers/test-app.ts';
 
@@ -78,13 +78,13 @@ beforeAll(async () => {
     endpoint: fake.endpoint,
     region: 'us-east-1',
     forcePathStyle: true,
-    credentials: S3_FAKE_CREDENTIALS,
+    credentials: fake.credentials,
   });
   ctx = await createTestContext({
     S3_ENDPOINT: fake.endpoint,
     S3_BUCKET: BUCKET,
-    S3_ACCESS_KEY_ID: S3_FAKE_CREDENTIALS.accessKeyId,
-    S3_SECRET_ACCESS_KEY: S3_FAKE_CREDENTIALS.secretAccessKey,
+    S3_ACCESS_KEY_ID: fake.credentials.accessKeyId,
+    S3_SECRET_ACCESS_KEY: fake.credentials.secretAccessKey,
   });
   builder = await ctx.authFor('builder');
   const connectors = await request(ctx.app)
@@ -258,6 +258,56 @@ describe('who may see and change reference scans', () => {
     expect(res.status).toBe(204);
     expect(await bucketKeys()).not.toContain(key);
     expect((await download(body.attachment.id)).status).toBe(404);
+  });
+});
+
+describe('the S3 stand-in answers only requests signed with its own key', () => {
+  it('refuses an unsigned listing, an unsigned PUT and a request signed with another secret (403)', async () => {
+    const { body } = await attach(connectorId, PNG, 'keep.png', 'image/png');
+    const key = (await Attachment.findByPk(body.attachment.id))!.storageKey;
+    const listing = await fetch(`${fake.endpoint}/${BUCKET}`);
+    expect(listing.status).toBe(403);
+    expect(await listing.text()).not.toContain(key);
+    const overwrite = await fetch(`${fake.endpoint}/${BUCKET}/${key}`, {
+      method: 'PUT',
+      headers: { 'Content-Type': 'image/png' },
+      body: '<html><script>alert(1)</script></html>',
+    });
+    expect(overwrite.status).toBe(403);
+    const unsignedGet = await fetch(`${fake.endpoint}/${BUCKET}/${key}`);
+    expect(unsignedGet.status).toBe(403);
+
+    const forger = new S3Client({
+      endpoint: fake.endpoint,
+      region: 'us-east-1',
+      forcePathStyle: true,
+      maxAttempts: 1,
+      credentials: { accessKeyId: fake.credentials.accessKeyId, secretAccessKey: 'guessed' },
+    });
+    try {
+      await expect(
+        forger.send(new GetObjectCommand({ Bucket: BUCKET, Key: key })),
+      ).rejects.toMatchObject({ $metadata: { httpStatusCode: 403 } });
+    } finally {
+      forger.destroy();
+    }
+    // The stored scan is untouched and still served.
+    const got = await download(body.attachment.id);
+    expect(got.status).toBe(200);
+    expect(Buffer.compare(got.body as Buffer, PNG)).toBe(0);
+  });
+
+  it('makes up a different key pair on every start', async () => {
+    const dir = mkdtempSync(path.join(tmpdir(), 'loomwright-s3-keys-'));
+    const other = await startS3Fake({ directory: dir, bucket: BUCKET, port: 0 });
+    try {
+      expect(other.credentials.accessKeyId).not.toBe(fake.credentials.accessKeyId);
+      expect(other.credentials.secretAccessKey).not.toBe(fake.credentials.secretAccessKey);
+      expect(other.credentials.secretAccessKey.length).toBeGreaterThanOrEqual(40);
+    } finally {
+      await other.close();
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });
 

@@ -12,7 +12,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '#server/db/index.ts';
 import { Attachment, Conversion } from '#server/db/models/index.ts';
 import { setFileStore, type FileStore } from '#server/lib/file-store.ts';
-import { S3_FAKE_CREDENTIALS, startS3Fake, type S3Fake } from '#server/lib/s3-fake.ts';
+import { startS3Fake, type S3Fake } from '#server/lib/s3-fake.ts';
 import { inTransaction } from '#server/lib/transaction.ts';
 import { createTestContext, type TestContext } from '../helpers/test-app.ts';
 
@@ -63,8 +63,8 @@ beforeAll(async () => {
   ctx = await createTestContext({
     S3_ENDPOINT: fake.endpoint,
     S3_BUCKET: BUCKET,
-    S3_ACCESS_KEY_ID: S3_FAKE_CREDENTIALS.accessKeyId,
-    S3_SECRET_ACCESS_KEY: S3_FAKE_CREDENTIALS.secretAccessKey,
+    S3_ACCESS_KEY_ID: fake.credentials.accessKeyId,
+    S3_SECRET_ACCESS_KEY: fake.credentials.secretAccessKey,
   });
   builder = await ctx.authFor('builder');
   const connectors = await request(ctx.app)
