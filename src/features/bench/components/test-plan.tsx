@@ -8,7 +8,7 @@ import {
 } from '#shared/schemas/test-plan.schema.ts';
 import { Notice } from '@/components/ui/notice.tsx';
 import { useRecordBenchWork } from '../api/bench.ts';
-import { NoteField, parseReading, Toggle } from './bench-checklist.tsx';
+import { NoteField, parseReading, Toggle } from './bench-controls.tsx';
 
 interface Local {
   ticks: Record<string, boolean | undefined>;

@@ -48,6 +48,12 @@ export function editorKind(column: EditableColumnId): EditorKind {
   }
 }
 
+/** The width of the editor's list of choices, px: 0 for plain text, which has none. */
+export function editorListWidth(column: EditableColumnId): number {
+  if (column === 'destination') return 340;
+  return editorKind(column) === 'text' ? 0 : 240;
+}
+
 const MAX_OPTIONS = 40;
 const fold = (s: string) => s.trim().toLowerCase();
 
