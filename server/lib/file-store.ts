@@ -1,4 +1,4 @@
-import { randomBytes } from 'node:crypto';
+import { createHash, randomBytes, timingSafeEqual } from 'node:crypto';
 import { mkdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import {
@@ -10,6 +10,8 @@ import {
 } from '@aws-sdk/client-s3';
 import type { Env } from '../config/env.ts';
 import { config } from '../config/runtime.ts';
+import { AppError } from './errors.ts';
+import { logger } from './logger.ts';
 
 /**
  * Where uploaded files live: an S3 bucket (the real thing, or the local fake in demo mode and
@@ -157,4 +159,32 @@ export function fileStore(): FileStore {
   const env = config();
   if (!built || built.env !== env) built = { env, store: fileStoreFromEnv(env) };
   return built.store;
+}
+
+/**
+ * The bytes stored under `key`, only if they still hash to the SHA-256 recorded at upload; null
+ * when nothing is stored. Anyone who can write to the bucket or folder could otherwise swap a scan
+ * for something else and have it served under the original's name and type.
+ */
+export async function readVerified(
+  key: string,
+  sha256: string,
+  what: { entity: string; id: number },
+): Promise<Buffer | null> {
+  const bytes = await fileStore().get(key);
+  if (!bytes) return null;
+  const actual = createHash('sha256').update(bytes).digest();
+  const expected = Buffer.from(sha256, 'hex');
+  if (expected.length !== actual.length || !timingSafeEqual(actual, expected)) {
+    logger.error(
+      { ...what, storageKey: key, expected: sha256, actual: actual.toString('hex') },
+      'stored file does not match the SHA-256 taken at upload; not served',
+    );
+    throw new AppError(
+      500,
+      'stored_file_altered',
+      'The stored file no longer matches the fingerprint taken when it was uploaded, so it is not served. Tell whoever looks after the server; upload the file again if you have it.',
+    );
+  }
+  return bytes;
 }

@@ -7,7 +7,12 @@ import { randomBytes } from 'node:crypto';
 import { existsSync, mkdtempSync, readdirSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { GetObjectCommand, ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
+import {
+  GetObjectCommand,
+  ListObjectsV2Command,
+  PutObjectCommand,
+  S3Client,
+} from '@aws-sdk/client-s3';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Attachment } from '#server/db/models/index.ts';
@@ -258,6 +263,31 @@ describe('who may see and change reference scans', () => {
     expect(res.status).toBe(204);
     expect(await bucketKeys()).not.toContain(key);
     expect((await download(body.attachment.id)).status).toBe(404);
+  });
+});
+
+describe('a stored file changed behind the app', () => {
+  it('is refused on download (500 stored_file_altered), not served under the scan’s name', async () => {
+    const { body } = await attach(connectorId, PNG, 'loom.png', 'image/png');
+    const key = (await Attachment.findByPk(body.attachment.id))!.storageKey;
+    // Someone holding the bucket's keys swaps the scan for a page of HTML.
+    await s3.send(
+      new PutObjectCommand({
+        Bucket: BUCKET,
+        Key: key,
+        Body: '<html><script>alert(1)</script></html>',
+        ContentType: 'image/png',
+      }),
+    );
+    const got = await request(ctx.app)
+      .get(`/api/attachments/${body.attachment.id}`)
+      .set('Authorization', builder);
+    expect(got.status).toBe(500);
+    expect(got.body.error.code).toBe('stored_file_altered');
+    expect(got.body.error.message).toMatch(/no longer matches/);
+    expect(got.headers['content-type']).toMatch(/^application\/json/);
+    expect(JSON.stringify(got.body)).not.toContain('<script>');
+    expect((await request(ctx.app).get('/api/health')).status).toBe(200);
   });
 });
 

@@ -8,7 +8,7 @@ import { Attachment, User } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { findConnectorInWorkshop } from '../pin-map/connectors.service.ts';
 import { AppError, notFound } from '../../lib/errors.ts';
-import { fileStore } from '../../lib/file-store.ts';
+import { fileStore, readVerified } from '../../lib/file-store.ts';
 import { logger } from '../../lib/logger.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { displayFileName, type UploadedFile } from '../../lib/upload.ts';
@@ -129,7 +129,10 @@ export async function readAttachment(
 ): Promise<{ attachment: Attachment; bytes: Buffer }> {
   const attachment = await Attachment.findOne({ where: { id, workshopId: actor.workshopId } });
   if (!attachment) throw notFound('That attachment');
-  const bytes = await fileStore().get(attachment.storageKey);
+  const bytes = await readVerified(attachment.storageKey, attachment.sha256, {
+    entity: 'attachment',
+    id,
+  });
   if (!bytes) {
     logger.error({ attachmentId: id, storageKey: attachment.storageKey }, 'stored file missing');
     throw notFound('The stored file of that attachment');

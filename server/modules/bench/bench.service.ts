@@ -23,7 +23,7 @@ import { db } from '../../db/index.ts';
 import { BenchPhoto, BenchRecord, Conversion, Revision } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound, unprocessable, versionConflict } from '../../lib/errors.ts';
-import { fileStore } from '../../lib/file-store.ts';
+import { fileStore, readVerified } from '../../lib/file-store.ts';
 import { logger } from '../../lib/logger.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { displayFileName, type UploadedFile } from '../../lib/upload.ts';
@@ -403,7 +403,7 @@ export async function addBenchPhoto(
 export async function readBenchPhoto(actor: Actor, id: number) {
   const photo = await BenchPhoto.findOne({ where: { id, workshopId: actor.workshopId } });
   if (!photo) throw notFound('That photo');
-  const bytes = await fileStore().get(photo.storageKey);
+  const bytes = await readVerified(photo.storageKey, photo.sha256, { entity: 'bench_photo', id });
   if (!bytes) throw notFound('The stored file of that photo');
   return { photo, bytes };
 }
