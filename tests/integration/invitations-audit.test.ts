@@ -2,7 +2,12 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MailOutbox } from '#server/db/models/index.ts';
 import { startFakeSmtp, type FakeSmtp } from '#server/modules/mail/fake-smtp.ts';
-import { configureMail, deliverDueMail } from '#server/modules/mail/outbox.service.ts';
+import {
+  configureMail,
+  deliverDueMail,
+  noticeMessageId,
+  recoverOutbox,
+} from '#server/modules/mail/outbox.service.ts';
 import { createTestContext, login, type TestContext } from '../helpers/test-app.ts';
 
 let ctx: TestContext;
@@ -81,6 +86,33 @@ describe('invitations', () => {
           .set('Authorization', await ctx.authFor('builder'))
       ).status,
     ).toBe(403);
+  });
+
+  it('sends a notice again after a crash under the same Message-ID', async () => {
+    const res = await request(ctx.app)
+      .post('/api/users')
+      .set('Authorization', await ctx.authFor('admin'))
+      .send({ email: 'night.shift@example.com', name: 'Night Shift', role: 'builder' });
+    expect(res.status).toBe(201);
+    const row = await MailOutbox.findOne({ where: { toAddress: 'night.shift@example.com' } });
+    const messageId = noticeMessageId(row!);
+    expect(messageId).toBe(
+      `<notice.${row!.id}.w${row!.workshopId}.${row!.createdAt.getTime().toString(36)}@localhost>`,
+    );
+    await deliverDueMail();
+    // The process died after the mail server took the notice, before the row was marked sent:
+    // the row still says "sending", and the next start puts it back.
+    await MailOutbox.update(
+      { status: 'sending', textBody: row!.textBody },
+      { where: { id: row!.id } },
+    );
+    await recoverOutbox();
+    await deliverDueMail();
+    const copies = smtp.received().filter((m) => m.to.includes('night.shift@example.com'));
+    expect(copies).toHaveLength(2);
+    expect(copies.map((m) => m.messageId)).toEqual([messageId, messageId]);
+    expect(copies[1]!.text).toBe(copies[0]!.text);
+    expect((await MailOutbox.findByPk(row!.id))!.messageId).toBe(messageId);
   });
 
   it('refuses a recipient with a line break', async () => {

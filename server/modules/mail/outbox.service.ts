@@ -78,6 +78,23 @@ export async function queueMail(t: Transaction, notice: Notice): Promise<void> {
   );
 }
 
+/** The domain part of the sender's address: Message-IDs are made under it (RFC 5322 §3.6.4). */
+function senderDomain(): string {
+  const m = /@([^\s>@]+)>?\s*$/.exec(fromAddress);
+  return m?.[1]?.toLowerCase() ?? 'loomwright.invalid';
+}
+
+/**
+ * The Message-ID of a notice, made from its outbox row (id, workshop, time queued) and nothing that
+ * changes between tries. If the process dies after the mail server took a notice but before the
+ * row was marked sent, the notice goes out again after restart with the same Message-ID, so the
+ * recipient's mail client and most servers see one message, not two.
+ * (docs/decisions/0012-notice-message-ids.md)
+ */
+export function noticeMessageId(row: Pick<MailOutbox, 'id' | 'workshopId' | 'createdAt'>): string {
+  return `<notice.${row.id}.w${row.workshopId}.${row.createdAt.getTime().toString(36)}@${senderDomain()}>`;
+}
+
 let queue: Promise<unknown> = Promise.resolve();
 
 /**
@@ -107,7 +124,9 @@ async function deliver(): Promise<number> {
     );
     if (claimed !== 1) continue;
     try {
-      const info = await transport.sendMail({
+      const messageId = noticeMessageId(row);
+      await transport.sendMail({
+        messageId,
         from: fromAddress,
         to: row.toAddress,
         subject: row.subject,
@@ -117,7 +136,7 @@ async function deliver(): Promise<number> {
         {
           status: 'sent',
           sentAt: new Date(),
-          messageId: String(info.messageId ?? ''),
+          messageId,
           attempts: row.attempts + 1,
           // A sent invitation's one-time link is not kept anywhere.
           ...(row.kind === 'invitation'
