@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { User } from '#server/db/models/index.ts';
+import { MailOutbox, User } from '#server/db/models/index.ts';
 import { createOtherWorkshop } from '../factories/workshop.factory.ts';
 import { createTestContext, login, type TestContext } from '../helpers/test-app.ts';
 
@@ -115,6 +115,55 @@ describe('users (admin)', () => {
       .send({ role: 'technician' });
     expect(res.status).toBe(404);
     expect((await User.findByPk(other.users.builder.id))!.role).toBe('builder');
+  });
+});
+
+describe('an address already used in another workshop', () => {
+  it('gets the same answer as a new address; nobody is created and the address is told', async () => {
+    const other = await createOtherWorkshop();
+    const admin = await ctx.authFor('admin');
+    const add = (email: string, name: string) =>
+      request(ctx.app)
+        .post('/api/users')
+        .set('Authorization', admin)
+        .send({ email, name, role: 'builder' });
+    const fresh = await add('brand.new@example.com', 'Brand New');
+    const taken = await add(other.users.builder.email.toUpperCase(), 'Someone Else');
+    const shape = (res: request.Response) => ({
+      status: res.status,
+      keys: Object.keys(res.body.user).sort(),
+      user: {
+        ...res.body.user,
+        id: typeof res.body.user.id,
+        createdAt: 'time',
+        email: 'e',
+        name: 'n',
+      },
+    });
+    expect(shape(taken)).toEqual(shape(fresh));
+    // The id looks like the next one, and the person added after it gets the one after.
+    expect(taken.body.user.id).toBe(fresh.body.user.id + 1);
+    const next = await add('after.that@example.com', 'After That');
+    expect(next.body.user.id).toBe(taken.body.user.id + 1);
+
+    // The other workshop's account is untouched and nobody new holds the address.
+    const holders = await User.findAll({ where: { email: other.users.builder.email } });
+    expect(holders.map((u) => u.workshopId)).toEqual([other.workshop.id]);
+    expect(await User.findByPk(taken.body.user.id)).toBeNull();
+    const outbox = await MailOutbox.findOne({
+      where: { toAddress: other.users.builder.email.toLowerCase() },
+    });
+    expect(outbox).toMatchObject({ kind: 'invitation', workshopId: ctx.demo.workshopId });
+    expect(outbox!.textBody).toMatch(/already belongs to a Loomwright account in another workshop/);
+    expect(outbox!.textBody).not.toContain(other.workshop.name);
+  });
+
+  it('an address already used in this workshop is still a 409', async () => {
+    const res = await request(ctx.app)
+      .post('/api/users')
+      .set('Authorization', await ctx.authFor('admin'))
+      .send({ email: ctx.emailFor('reviewer'), name: 'Again', role: 'builder' });
+    expect(res.status).toBe(409);
   });
 });
 

@@ -1,4 +1,4 @@
-import { Op } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import type {
   CreateUserRequest,
   UpdateUserRequest,
@@ -8,11 +8,12 @@ import { db } from '../../db/index.ts';
 import { User } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound } from '../../lib/errors.ts';
+import { logger } from '../../lib/logger.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { changedFields, recordAudit } from '../audit/audit.service.ts';
 import { inviteUser } from '../auth/invitations.service.ts';
 import { assertAcceptablePassword, hashPassword } from '../auth/passwords.ts';
-import { kickMail } from '../mail/outbox.service.ts';
+import { kickMail, queueMail } from '../mail/outbox.service.ts';
 
 export function toUserSummary(user: User): UserSummary {
   return {
@@ -36,13 +37,21 @@ export async function listUsers(actor: Actor): Promise<UserSummary[]> {
 /**
  * Adds a person. With a first password they can sign in at once; without one they get an e-mailed
  * invitation with a one-time link to set their own (the e-mail goes through the outbox).
+ *
+ * An address already used in this workshop is refused (409): the admin sees that person in their
+ * own list. An address used in another workshop gets the same answer as a new one — telling the
+ * two apart would let any admin find out who holds an account elsewhere. Nobody is created; the
+ * address gets a notice instead (see `noticeToTakenAddress`), and the person decides.
  */
 export async function createUser(actor: Actor, input: CreateUserRequest): Promise<UserSummary> {
   if (input.password) assertAcceptablePassword(input.password);
   const passwordHash = input.password ? await hashPassword(input.password) : null;
   const created = await inTransaction(db(), async (t) => {
     const taken = await User.findOne({ where: { email: input.email }, transaction: t });
-    if (taken) throw new AppError(409, 'duplicate', 'A user with that e-mail already exists.');
+    if (taken?.workshopId === actor.workshopId) {
+      throw new AppError(409, 'duplicate', 'A user with that e-mail already exists.');
+    }
+    if (taken) return answerForTakenAddress(t, actor, input);
     const user = await User.create(
       {
         workshopId: actor.workshopId,
@@ -57,7 +66,9 @@ export async function createUser(actor: Actor, input: CreateUserRequest): Promis
       action: 'create',
       entityType: 'user',
       entityId: user.id,
-      summary: `Added ${user.name} (${user.email}) as ${user.role}`,
+      summary: passwordHash
+        ? `Added ${user.name} (${user.email}) as ${user.role}`
+        : `Invited ${user.name} (${user.email}) as ${user.role}`,
       after: { email: user.email, name: user.name, role: user.role, invited: !passwordHash },
     });
     if (!passwordHash) await inviteUser(t, actor, user);
@@ -65,6 +76,55 @@ export async function createUser(actor: Actor, input: CreateUserRequest): Promis
   });
   kickMail();
   return created;
+}
+
+/**
+ * The answer to adding an address that belongs to another workshop: shaped like a new person's,
+ * with an id drawn from the users sequence (so the next real id does not give it away), an audit
+ * entry and an outbox row like an invitation's, and a notice to the address explaining that
+ * nothing changed. Whether to join under another address is the person's call.
+ */
+async function answerForTakenAddress(
+  t: Transaction,
+  actor: Actor,
+  input: CreateUserRequest,
+): Promise<UserSummary> {
+  const [row] = await db().query(
+    "UPDATE sqlite_sequence SET seq = seq + 1 WHERE name = 'users' RETURNING seq",
+    { transaction: t, type: QueryTypes.SELECT },
+  );
+  const id = Number((row as { seq: number }).seq);
+  await recordAudit(t, actor, {
+    action: 'create',
+    entityType: 'user',
+    entityId: id,
+    summary: `Invited ${input.name} (${input.email}) as ${input.role}`,
+    after: { email: input.email, name: input.name, role: input.role, invited: true },
+  });
+  await queueMail(t, {
+    workshopId: actor.workshopId,
+    kind: 'invitation',
+    to: input.email,
+    subject: `You are invited to Loomwright at ${actor.workshopName}`,
+    text:
+      `${actor.name} tried to add you to ${actor.workshopName} on Loomwright as ${input.role}.\n\n` +
+      `This address already belongs to a Loomwright account in another workshop, and one address ` +
+      `can belong to one workshop only, so nothing has changed: your account is as it was.\n\n` +
+      `If you want to work in ${actor.workshopName} too, ask ${actor.name} to add you with another ` +
+      `address. If this was not meant for you, there is nothing to do.\n\n— Loomwright`,
+  });
+  logger.info(
+    { requestId: actor.requestId, workshopId: actor.workshopId },
+    'address already in use in another workshop; answered as a new invitation',
+  );
+  return {
+    id,
+    email: input.email,
+    name: input.name,
+    role: input.role,
+    active: true,
+    createdAt: new Date().toISOString(),
+  };
 }
 
 export async function updateUser(
