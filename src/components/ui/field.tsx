@@ -1,10 +1,4 @@
-import {
-  useId,
-  type InputHTMLAttributes,
-  type ReactNode,
-  type SelectHTMLAttributes,
-  type TextareaHTMLAttributes,
-} from 'react';
+import { useId, type ComponentProps, type ReactNode } from 'react';
 
 const CONTROL =
   'w-full rounded-md border border-rule-strong bg-paper-raised px-3 py-2 text-ink placeholder:text-ink-faint aria-[invalid=true]:border-fault';
@@ -39,7 +33,8 @@ function FieldShell({ label, error, hint, id, children }: FieldShellProps) {
   );
 }
 
-type TextFieldProps = InputHTMLAttributes<HTMLInputElement> & {
+// ComponentProps, not the bare attributes: they carry `ref`, so a form library can register a field.
+type TextFieldProps = ComponentProps<'input'> & {
   label: string;
   error?: string;
   hint?: ReactNode;
@@ -61,7 +56,7 @@ export function TextField({ label, error, hint, id, className = '', ...rest }: T
   );
 }
 
-type SelectFieldProps = SelectHTMLAttributes<HTMLSelectElement> & {
+type SelectFieldProps = ComponentProps<'select'> & {
   label: string;
   error?: string;
   hint?: ReactNode;
@@ -93,7 +88,7 @@ export function SelectField({
   );
 }
 
-type TextAreaFieldProps = TextareaHTMLAttributes<HTMLTextAreaElement> & {
+type TextAreaFieldProps = ComponentProps<'textarea'> & {
   label: string;
   error?: string;
   hint?: ReactNode;

@@ -1,3 +1,4 @@
+import { zodResolver } from '@hookform/resolvers/zod';
 import { describe, expect, it } from 'vitest';
 import { runCircuitCalc } from '../../../shared/domain/electrical/circuit-calc.ts';
 import { awgAreaMm2, editableWireSize } from '../../../shared/domain/wire-sizes.ts';
@@ -5,6 +6,7 @@ import { CalcRequest } from '../../../shared/schemas/calc.schema.ts';
 import type { Feed } from '../../../shared/schemas/feeds.schema.ts';
 import {
   emptyFeedForm,
+  feedFormSchema,
   feedToForm,
   formToCalcRequest,
   formToRequest,
@@ -14,6 +16,7 @@ import {
   upstreamFuse,
   type FeedFormValues,
 } from '../../../src/features/feeds/lib/feed-form.ts';
+import { errorAt } from '../../../src/lib/form-errors.ts';
 
 /** The demo draft's cooling fan: 30 A fuse over 1 mm² in the engine bay (seeds/feeds-data.ts). */
 const coolingFan: Feed = {
@@ -159,6 +162,34 @@ describe('feed form ↔ request', () => {
       loads: [{ key: 'a', pinId: '154', name: '', currentA: '5', continuous: true }],
     });
     expect(request.loads).toEqual([{ pinId: 154, name: '', currentA: 5, continuous: true }]);
+  });
+});
+
+describe('the form library reads the form through the shared schema', () => {
+  const resolve = (values: FeedFormValues, unit: 'mm2' | 'awg' = 'mm2') =>
+    zodResolver(feedFormSchema(unit))(values, undefined, {
+      fields: {},
+      shouldUseNativeValidation: false,
+    });
+
+  it('hands a valid form on as the request CreateFeedRequest accepted', async () => {
+    const result = await resolve(feedToForm(coolingFan, 'mm2'));
+    expect(result.errors).toEqual({});
+    expect(result.values).toEqual(requestOf(coolingFan));
+  });
+
+  it('marks refusals at the request paths, where the server marks them too', async () => {
+    const form = feedToForm(coolingFan, 'mm2');
+    const { errors } = await resolve({
+      ...form,
+      wireSize: '1.1',
+      lengthM: 'far',
+      loads: [{ ...form.loads[0]!, currentA: '' }],
+    });
+    expect(errorAt(errors, 'wire.sizeMm2')).toMatch(/ISO 6722/);
+    expect(errorAt(errors, 'wire.lengthM')).toBe('must be a number');
+    expect(errorAt(errors, 'loads.0.currentA')).toBe('is required');
+    expect(errorAt(errors, 'name')).toBeUndefined();
   });
 });
 

@@ -1,9 +1,11 @@
-import { useState, type FormEvent } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
 import { CreateConversionRequest, type Conversion } from '#shared/schemas/conversions.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextAreaField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { ApiError } from '@/lib/api-client.ts';
+import { blankAsUndefined, errorAt, markServerIssues } from '@/lib/form-errors.ts';
 import { useCreateConversion } from '../api/create-conversion.ts';
 
 interface Props {
@@ -14,69 +16,63 @@ interface Props {
 
 export function CreateConversionForm({ defaultVoltage, onCreated, onCancel }: Props) {
   const create = useCreateConversion();
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const { register, handleSubmit, setError, formState } = useForm({
+    resolver: zodResolver(CreateConversionRequest),
+    defaultValues: { systemVoltage: defaultVoltage as CreateConversionRequest['systemVoltage'] },
+  });
+  const errorOf = (path: string) => errorAt(formState.errors, path);
 
-  function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const form = new FormData(event.currentTarget);
-    const parsed = CreateConversionRequest.safeParse({
-      name: form.get('name'),
-      donorEngine: form.get('donorEngine'),
-      receivingVehicle: form.get('receivingVehicle'),
-      systemVoltage: Number(form.get('systemVoltage')),
-      notes: form.get('notes') || undefined,
-    });
-    if (!parsed.success) {
-      setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
-      return;
-    }
-    setErrors({});
-    create.mutate(parsed.data, {
+  const submit = handleSubmit((request) =>
+    create.mutate(request, {
       onSuccess: ({ conversion }) => onCreated(conversion),
-      onError: (err) => err instanceof ApiError && setErrors(err.fieldIssues()),
-    });
-  }
+      onError: (err) => markServerIssues(err, setError),
+    }),
+  );
 
   return (
     <form
-      onSubmit={submit}
+      onSubmit={(e) => void submit(e)}
       noValidate
       className="grid gap-4 rounded-lg border border-rule bg-paper-raised p-5 md:grid-cols-2"
     >
       <h2 className="text-lg font-semibold md:col-span-2">New conversion</h2>
       <TextField
         label="Name"
-        name="name"
         required
         maxLength={120}
-        error={errors.name}
+        {...register('name')}
+        error={errorOf('name')}
         placeholder="e.g. customer or job name"
       />
       <SelectField
         label="System voltage"
-        name="systemVoltage"
-        defaultValue={String(defaultVoltage)}
-        error={errors.systemVoltage}
+        {...register('systemVoltage', { valueAsNumber: true })}
+        error={errorOf('systemVoltage')}
       >
         <option value="12">12 V</option>
         <option value="24">24 V</option>
       </SelectField>
       <TextField
         label="Donor engine"
-        name="donorEngine"
         required
         maxLength={120}
-        error={errors.donorEngine}
+        {...register('donorEngine')}
+        error={errorOf('donorEngine')}
       />
       <TextField
         label="Receiving vehicle"
-        name="receivingVehicle"
         required
         maxLength={120}
-        error={errors.receivingVehicle}
+        {...register('receivingVehicle')}
+        error={errorOf('receivingVehicle')}
       />
       <div className="md:col-span-2">
-        <TextAreaField label="Notes" name="notes" maxLength={4000} error={errors.notes} />
+        <TextAreaField
+          label="Notes"
+          maxLength={4000}
+          {...register('notes', { setValueAs: blankAsUndefined })}
+          error={errorOf('notes')}
+        />
       </div>
       {create.error && !(create.error instanceof ApiError && create.error.status === 400) ? (
         <div className="md:col-span-2">

@@ -1,5 +1,5 @@
 import { Button } from '@/components/ui/button.tsx';
-import { newLoadRow, type FieldErrors, type LoadRow } from '../lib/feed-form.ts';
+import { newLoadRow, type LoadRow } from '../lib/feed-form.ts';
 import type { PinChoice } from '../lib/feed-display.ts';
 import { PinOptions } from './pin-options.tsx';
 
@@ -20,13 +20,14 @@ function CellError({ id, message }: { id: string; message?: string }) {
 export function LoadsEditor({
   loads,
   pins,
-  errors,
+  errorOf,
   readOnly,
   onChange,
 }: {
   loads: LoadRow[];
   pins: PinChoice[];
-  errors: FieldErrors;
+  /** The mark at a request path, e.g. "loads.0.currentA". */
+  errorOf: (path: string) => string | undefined;
   readOnly: boolean;
   onChange: (loads: LoadRow[]) => void;
 }) {
@@ -69,8 +70,8 @@ export function LoadsEditor({
             ) : null}
             {loads.map((load, i) => {
               const n = i + 1;
-              const nameError = errors[`loads.${i}.name`] ?? errors[`loads.${i}.pinId`];
-              const currentError = errors[`loads.${i}.currentA`];
+              const nameError = errorOf(`loads.${i}.name`) ?? errorOf(`loads.${i}.pinId`);
+              const currentError = errorOf(`loads.${i}.currentA`);
               return (
                 <tr key={load.key} className="border-t border-rule/70 align-top">
                   <td className="px-2 py-1.5">
@@ -139,10 +140,10 @@ export function LoadsEditor({
           </tbody>
         </table>
       </div>
-      {errors.loads ? (
+      {errorOf('loads') ? (
         <p className="mt-1 text-sm text-fault">
           <span aria-hidden>✕ </span>
-          {errors.loads}
+          {errorOf('loads')}
         </p>
       ) : null}
       {readOnly ? null : (

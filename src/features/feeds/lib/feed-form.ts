@@ -11,6 +11,7 @@ import {
   exactIsoSize,
   parseWireSize,
 } from '#shared/domain/wire-sizes.ts';
+import { z } from 'zod';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
 import {
   CreateFeedRequest,
@@ -216,6 +217,24 @@ export function formToRequest(values: FeedFormValues, unit: SizeUnit): FormToReq
   }
   if (Object.keys(errors).length || !parsed.success) return { ok: false, errors };
   return { ok: true, request: parsed.data };
+}
+
+/**
+ * The feed form's schema for the form library's zod resolver: the values as typed, read into a
+ * create request and checked by CreateFeedRequest, the server's own schema. A refusal is marked at
+ * the request's path ("wire.sizeMm2", "loads.0.currentA"), where the server's 400 lands too.
+ */
+export function feedFormSchema(unit: SizeUnit) {
+  return z.custom<FeedFormValues>().transform((values, ctx) => {
+    const read = formToRequest(values, unit);
+    if (read.ok) return read.request;
+    for (const [key, message] of Object.entries(read.errors)) {
+      const path =
+        key === '(form)' ? [] : key.split('.').map((p) => (/^\d+$/.test(p) ? Number(p) : p));
+      ctx.addIssue({ code: 'custom', message, path });
+    }
+    return z.NEVER;
+  });
 }
 
 /** A feed as the live calculation needs it: its loads, wire, fuse and who powers whom. */

@@ -1,4 +1,6 @@
-import { useState, type FormEvent } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
 import { requiredText } from '#shared/schemas/common.schema.ts';
 import {
   CONNECTOR_SIDE_LABELS,
@@ -9,8 +11,10 @@ import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { ApiError } from '@/lib/api-client.ts';
+import { errorAt } from '@/lib/form-errors.ts';
 
-const Label = requiredText(40);
+/** A label and a side, as the connector schema checks them; the file brings the cavities. */
+const NewConnector = z.object({ label: requiredText(40), side: z.enum(CONNECTOR_SIDES) });
 
 /** A new, empty connector to import into: a label and a side; the file brings the cavities. */
 export function NewConnectorForm({
@@ -24,36 +28,28 @@ export function NewConnectorForm({
   onCreate: (values: { label: string; side: ConnectorSide }) => void;
   onCancel: () => void;
 }) {
-  const [labelError, setLabelError] = useState<string>();
+  const { register, handleSubmit, formState } = useForm({
+    resolver: zodResolver(NewConnector),
+    defaultValues: { label: '', side: 'ecu' as const },
+  });
   const serverIssues = error instanceof ApiError ? error.fieldIssues() : {};
-
-  function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const form = new FormData(event.currentTarget);
-    const label = Label.safeParse(form.get('label'));
-    if (!label.success) {
-      setLabelError(label.error.issues[0]?.message);
-      return;
-    }
-    setLabelError(undefined);
-    onCreate({ label: label.data, side: String(form.get('side')) as ConnectorSide });
-  }
+  const submit = handleSubmit(onCreate);
 
   return (
     <form
-      onSubmit={submit}
+      onSubmit={(e) => void submit(e)}
       aria-label="New connector"
       className="grid gap-3 rounded-lg border border-rule bg-paper-raised p-4 sm:grid-cols-[1fr_1fr_auto]"
     >
       <TextField
         label="Connector label"
-        name="label"
         maxLength={40}
         placeholder="e.g. E4"
-        error={labelError ?? serverIssues.label}
+        {...register('label')}
+        error={errorAt(formState.errors, 'label') ?? serverIssues.label}
         hint="Starts with one cavity; the import adds the file’s cavities."
       />
-      <SelectField label="Side" name="side" defaultValue="ecu">
+      <SelectField label="Side" {...register('side')}>
         {CONNECTOR_SIDES.map((side) => (
           <option key={side} value={side}>
             {CONNECTOR_SIDE_LABELS[side]}

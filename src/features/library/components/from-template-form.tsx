@@ -1,4 +1,5 @@
-import { useState, type FormEvent } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
 import { ConnectorFromTemplateRequest } from '#shared/schemas/library.schema.ts';
 import {
   CONNECTOR_SIDE_LABELS,
@@ -10,6 +11,7 @@ import { SelectField, TextField } from '@/components/ui/field.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { ApiError } from '@/lib/api-client.ts';
+import { blankAsUndefined, errorAt } from '@/lib/form-errors.ts';
 import { useCreateConnectorFromTemplate } from '../api/create-connector-from-template.ts';
 import { useTemplates } from '../api/get-templates.ts';
 
@@ -23,25 +25,12 @@ export function FromTemplateForm({
 }) {
   const templates = useTemplates();
   const create = useCreateConnectorFromTemplate(conversionId, onCreated);
-  const [errors, setErrors] = useState<Record<string, string>>({});
   const serverIssues = create.error instanceof ApiError ? create.error.fieldIssues() : {};
-
-  function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const form = new FormData(event.currentTarget);
-    const side = String(form.get('side') ?? '');
-    const parsed = ConnectorFromTemplateRequest.safeParse({
-      templateId: Number(form.get('templateId')),
-      label: form.get('label'),
-      side: side === '' ? undefined : side,
-    });
-    if (!parsed.success) {
-      setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
-      return;
-    }
-    setErrors({});
-    create.mutate(parsed.data);
-  }
+  const { register, handleSubmit, formState } = useForm({
+    resolver: zodResolver(ConnectorFromTemplateRequest),
+  });
+  const errorOf = (path: string) => errorAt(formState.errors, path);
+  const submit = handleSubmit((request) => create.mutate(request));
 
   if (templates.isPending) return <Loading what="Loading the library" />;
   if (templates.isError) {
@@ -53,11 +42,15 @@ export function FromTemplateForm({
   }
   return (
     <form
-      onSubmit={submit}
+      onSubmit={(e) => void submit(e)}
       aria-label="Start a connector from a template"
       className="flex flex-col gap-3"
     >
-      <SelectField label="Template" name="templateId" error={errors.templateId}>
+      <SelectField
+        label="Template"
+        {...register('templateId', { valueAsNumber: true })}
+        error={errorOf('templateId')}
+      >
         {templates.data.map((t) => (
           <option key={t.id} value={t.id}>
             {t.name} ({t.cavityCount} cavities{t.builtIn ? ', built-in' : ''})
@@ -67,12 +60,12 @@ export function FromTemplateForm({
       <div className="grid gap-3 sm:grid-cols-2">
         <TextField
           label="New connector label"
-          name="label"
           maxLength={40}
           placeholder="e.g. DLC"
-          error={errors.label ?? serverIssues.label}
+          {...register('label')}
+          error={errorOf('label') ?? serverIssues.label}
         />
-        <SelectField label="Side" name="side" defaultValue="">
+        <SelectField label="Side" {...register('side', { setValueAs: blankAsUndefined })}>
           <option value="">As in the template</option>
           {CONNECTOR_SIDES.map((side) => (
             <option key={side} value={side}>

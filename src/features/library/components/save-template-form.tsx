@@ -1,9 +1,12 @@
-import { useState, type FormEvent } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useEffect } from 'react';
+import { useForm } from 'react-hook-form';
 import { SaveTemplateRequest } from '#shared/schemas/library.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { ApiError } from '@/lib/api-client.ts';
+import { blankAsUndefined, errorAt } from '@/lib/form-errors.ts';
 import { useSaveTemplate } from '../api/save-template.ts';
 import type { ConnectorChoice } from '../lib/connector-choice.ts';
 
@@ -19,41 +22,32 @@ export function SaveTemplateForm({
   defaultConnectorId?: number;
 }) {
   const save = useSaveTemplate();
-  const [errors, setErrors] = useState<Record<string, string>>({});
   const serverIssues = save.error instanceof ApiError ? save.error.fieldIssues() : {};
+  const { register, handleSubmit, setValue, reset, formState } = useForm({
+    resolver: zodResolver(SaveTemplateRequest),
+    defaultValues: { connectorId: defaultConnectorId },
+  });
+  const errorOf = (path: string) => errorAt(formState.errors, path);
+  // A connector chosen elsewhere on the page (its card's "save as template") is preselected.
+  useEffect(() => {
+    if (defaultConnectorId) setValue('connectorId', defaultConnectorId);
+  }, [defaultConnectorId, setValue]);
 
-  function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const element = event.currentTarget;
-    const form = new FormData(element);
-    const parsed = SaveTemplateRequest.safeParse({
-      connectorId: Number(form.get('connectorId')),
-      name: form.get('name'),
-      description: form.get('description') || undefined,
-    });
-    if (!parsed.success) {
-      setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
-      return;
-    }
-    setErrors({});
-    save.mutate(parsed.data, { onSuccess: () => element.reset() });
-  }
+  const submit = handleSubmit((request) => save.mutate(request, { onSuccess: () => reset() }));
 
   if (connectors.length === 0) {
     return <p className="text-sm text-ink-faint">This conversion has no connectors to save yet.</p>;
   }
   return (
     <form
-      onSubmit={submit}
+      onSubmit={(e) => void submit(e)}
       aria-label="Save a connector as a template"
       className="flex flex-col gap-3"
     >
       <SelectField
         label="Connector to save"
-        name="connectorId"
-        defaultValue={defaultConnectorId ? String(defaultConnectorId) : undefined}
-        key={defaultConnectorId}
-        error={errors.connectorId}
+        {...register('connectorId', { valueAsNumber: true })}
+        error={errorOf('connectorId')}
       >
         {connectors.map((c) => (
           <option key={c.id} value={c.id}>
@@ -63,12 +57,16 @@ export function SaveTemplateForm({
       </SelectField>
       <TextField
         label="Template name"
-        name="name"
         maxLength={120}
         placeholder="e.g. KT-20 ECU connector 2"
-        error={errors.name ?? serverIssues.name}
+        {...register('name')}
+        error={errorOf('name') ?? serverIssues.name}
       />
-      <TextField label="Description (optional)" name="description" maxLength={2000} />
+      <TextField
+        label="Description (optional)"
+        maxLength={2000}
+        {...register('description', { setValueAs: blankAsUndefined })}
+      />
       <div>
         <Button type="submit" busy={save.isPending}>
           Save to the library

@@ -1,4 +1,5 @@
-import { useState, type FormEvent } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
 import {
   CONNECTOR_SIDE_LABELS,
   CONNECTOR_SIDES,
@@ -12,6 +13,7 @@ import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { ApiError } from '@/lib/api-client.ts';
+import { errorAt } from '@/lib/form-errors.ts';
 
 export interface ConnectorFormValues {
   label: string;
@@ -21,15 +23,9 @@ export interface ConnectorFormValues {
   columns?: number;
 }
 
-function fieldErrors(result: ReturnType<typeof CreateConnectorRequest.safeParse>) {
-  if (result.success) return {};
-  return Object.fromEntries(
-    result.error.issues.map((i) => [String(i.path[0] ?? 'form'), i.message]),
-  ) as Record<string, string>;
-}
-
-const optionalCount = (value: FormDataEntryValue | null) =>
-  value === null || String(value).trim() === '' ? undefined : Number(value);
+/** An empty rows or columns field takes the usual layout. */
+const optionalCount = (value: unknown) =>
+  value == null || String(value).trim() === '' ? undefined : Number(value);
 
 /**
  * Adds a connector, or changes one: label, side, cavity count and the face layout (rows ×
@@ -48,51 +44,42 @@ export function ConnectorForm({
   onSubmit: (values: ConnectorFormValues) => void;
   onCancel: () => void;
 }) {
-  const [count, setCount] = useState(connector?.cavityCount ?? 24);
-  const [issues, setIssues] = useState<Record<string, string>>({});
+  const { register, handleSubmit, watch, formState } = useForm({
+    resolver: zodResolver(CreateConnectorRequest),
+    defaultValues: {
+      label: connector?.label ?? '',
+      side: connector?.side ?? 'ecu',
+      cavityCount: connector?.cavityCount ?? 24,
+      rows: connector?.rows,
+      columns: connector?.columns,
+    },
+  });
+  // The usual layout for the count as typed, shown as the rows' and columns' placeholder.
+  // eslint-disable-next-line react-hooks/incompatible-library
+  const count = watch('cavityCount');
   const layout = defaultFaceLayout(Math.max(1, Math.min(MAX_CAVITIES, count || 1)));
   const serverIssues = error instanceof ApiError ? error.fieldIssues() : {};
-  const errors = { ...serverIssues, ...issues };
-
-  function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const form = new FormData(event.currentTarget);
-    const values = {
-      label: String(form.get('label') ?? '').trim(),
-      side: String(form.get('side')) as ConnectorSide,
-      cavityCount: Number(form.get('cavityCount')),
-      rows: optionalCount(form.get('rows')),
-      columns: optionalCount(form.get('columns')),
-    };
-    const result = CreateConnectorRequest.safeParse(values);
-    setIssues(fieldErrors(result));
-    if (result.success) onSubmit(values);
-  }
+  const errorOf = (path: string) => errorAt(formState.errors, path) ?? serverIssues[path];
+  const submit = handleSubmit(onSubmit);
 
   const title = connector ? `Change connector ${connector.label}` : 'Add a connector';
   return (
     <form
-      onSubmit={submit}
+      onSubmit={(e) => void submit(e)}
       aria-label={title}
       className="grid gap-4 rounded-lg border border-rule bg-paper-raised p-4 sm:grid-cols-2 lg:grid-cols-[repeat(5,minmax(0,1fr))_auto]"
     >
       <h3 className="font-semibold sm:col-span-2 lg:col-span-6">{title}</h3>
       <TextField
         label="Label"
-        name="label"
-        defaultValue={connector?.label ?? ''}
         placeholder="E4"
         required
         maxLength={40}
-        error={errors.label}
+        {...register('label')}
+        error={errorOf('label')}
         className="font-mono"
       />
-      <SelectField
-        label="Side"
-        name="side"
-        defaultValue={connector?.side ?? 'ecu'}
-        error={errors.side}
-      >
+      <SelectField label="Side" {...register('side')} error={errorOf('side')}>
         {CONNECTOR_SIDES.map((s) => (
           <option key={s} value={s}>
             {CONNECTOR_SIDE_LABELS[s]}
@@ -101,34 +88,30 @@ export function ConnectorForm({
       </SelectField>
       <TextField
         label="Cavities"
-        name="cavityCount"
         type="number"
         min={1}
         max={MAX_CAVITIES}
         required
-        value={Number.isNaN(count) ? '' : count}
-        onChange={(e) => setCount(e.target.valueAsNumber)}
-        error={errors.cavityCount}
+        {...register('cavityCount', { valueAsNumber: true })}
+        error={errorOf('cavityCount')}
       />
       <TextField
         label="Rows on the face"
-        name="rows"
         type="number"
         min={1}
         max={MAX_CAVITIES}
-        defaultValue={connector?.rows}
+        {...register('rows', { setValueAs: optionalCount })}
         placeholder={String(layout.rows)}
-        error={errors.rows}
+        error={errorOf('rows')}
       />
       <TextField
         label="Columns on the face"
-        name="columns"
         type="number"
         min={1}
         max={MAX_CAVITIES}
-        defaultValue={connector?.columns}
+        {...register('columns', { setValueAs: optionalCount })}
         placeholder={String(layout.columns)}
-        error={errors.columns}
+        error={errorOf('columns')}
       />
       <div className="flex items-end gap-2 whitespace-nowrap">
         <Button type="submit" variant="primary" busy={busy}>

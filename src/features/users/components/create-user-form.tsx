@@ -1,4 +1,6 @@
-import { useState, type FormEvent } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
 import { PASSWORD_MIN_CHARS, PASSWORD_RECOMMENDED_CHARS } from '#shared/auth/password-policy.ts';
 import { ROLE_LABELS, ROLES } from '#shared/auth/roles.ts';
 import { CreateUserRequest } from '#shared/schemas/users.schema.ts';
@@ -6,58 +8,55 @@ import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { ApiError } from '@/lib/api-client.ts';
+import { blankAsUndefined, errorAt, markServerIssues } from '@/lib/form-errors.ts';
 import { useCreateUser } from '../api/users.ts';
 
 export function CreateUserForm() {
   const create = useCreateUser();
-  const [errors, setErrors] = useState<Record<string, string>>({});
   const [added, setAdded] = useState<string | null>(null);
+  const { register, handleSubmit, setError, reset, formState } = useForm({
+    resolver: zodResolver(CreateUserRequest),
+    defaultValues: { role: 'builder' as const },
+  });
+  const errorOf = (path: string) => errorAt(formState.errors, path);
 
-  function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const formElement = event.currentTarget;
-    const form = new FormData(formElement);
-    const parsed = CreateUserRequest.safeParse({
-      name: form.get('name'),
-      email: form.get('email'),
-      role: form.get('role'),
-      password: form.get('password') || undefined,
-    });
-    if (!parsed.success) {
-      setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
-      return;
-    }
-    setErrors({});
-    create.mutate(parsed.data, {
+  const submit = handleSubmit((request) =>
+    create.mutate(request, {
       onSuccess: ({ user }) => {
         setAdded(
-          parsed.data.password
+          request.password
             ? `${user.name} can now sign in as ${ROLE_LABELS[user.role].toLowerCase()}.`
             : `${user.name} has been e-mailed an invitation to set a password.`,
         );
-        formElement.reset();
+        reset();
       },
-      onError: (err) => err instanceof ApiError && setErrors(err.fieldIssues()),
-    });
-  }
+      onError: (err) => markServerIssues(err, setError),
+    }),
+  );
 
   return (
     <form
-      onSubmit={submit}
+      onSubmit={(e) => void submit(e)}
       noValidate
       className="grid gap-4 rounded-lg border border-rule bg-paper-raised p-5 md:grid-cols-2"
     >
       <h2 className="text-lg font-semibold md:col-span-2">Add a person</h2>
-      <TextField label="Name" name="name" required error={errors.name} autoComplete="off" />
       <TextField
-        label="E-mail"
-        name="email"
-        type="email"
+        label="Name"
         required
-        error={errors.email}
+        {...register('name')}
+        error={errorOf('name')}
         autoComplete="off"
       />
-      <SelectField label="Role" name="role" defaultValue="builder" error={errors.role}>
+      <TextField
+        label="E-mail"
+        type="email"
+        required
+        {...register('email')}
+        error={errorOf('email')}
+        autoComplete="off"
+      />
+      <SelectField label="Role" {...register('role')} error={errorOf('role')}>
         {ROLES.map((role) => (
           <option key={role} value={role}>
             {ROLE_LABELS[role]}
@@ -66,10 +65,10 @@ export function CreateUserForm() {
       </SelectField>
       <TextField
         label="First password (optional)"
-        name="password"
         type="password"
         autoComplete="new-password"
-        error={errors.password}
+        {...register('password', { setValueAs: blankAsUndefined })}
+        error={errorOf('password')}
         hint={`Leave empty to e-mail them an invitation to set their own. Otherwise at least ${PASSWORD_MIN_CHARS} characters, ${PASSWORD_RECOMMENDED_CHARS} or more recommended.`}
       />
       {create.error &&
