@@ -68,6 +68,13 @@ export default tseslint.config(
       'no-restricted-imports': [
         'error',
         {
+          paths: [
+            {
+              name: 'react-router',
+              message:
+                'Import from react-router-dom, the package Loomwright depends on (v7 re-exports react-router).',
+            },
+          ],
           patterns: [
             {
               group: ['**/server/**', '#server/*'],

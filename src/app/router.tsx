@@ -1,5 +1,5 @@
 import type { ComponentType } from 'react';
-import { createBrowserRouter, Navigate, RouterProvider } from 'react-router';
+import { createBrowserRouter, Navigate, RouterProvider } from 'react-router-dom';
 import { Loading } from '@/components/ui/loading.tsx';
 import { paths } from '@/config/paths.ts';
 import { RequireRight, RequireSession } from './layout/require-session.tsx';

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { NavLink, useNavigate } from 'react-router';
+import { NavLink, useNavigate } from 'react-router-dom';
 import { can, ROLE_LABELS } from '#shared/auth/roles.ts';
 import type { SessionUser } from '#shared/schemas/auth.schema.ts';
 import { Button } from '@/components/ui/button.tsx';

@@ -1,6 +1,6 @@
 import { useEffect } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import { Navigate, Outlet, useLocation } from 'react-router';
+import { Navigate, Outlet, useLocation } from 'react-router-dom';
 import type { Right } from '#shared/auth/roles.ts';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';

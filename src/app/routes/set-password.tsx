@@ -1,5 +1,5 @@
 import { useState, type FormEvent } from 'react';
-import { useNavigate } from 'react-router';
+import { useNavigate } from 'react-router-dom';
 import { PASSWORD_MIN_CHARS, PASSWORD_RECOMMENDED_CHARS } from '#shared/auth/password-policy.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { TextField } from '@/components/ui/field.tsx';

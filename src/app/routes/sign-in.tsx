@@ -1,4 +1,4 @@
-import { Navigate, useNavigate, useSearchParams } from 'react-router';
+import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { paths } from '@/config/paths.ts';
 import { useSession } from '@/features/auth/api/get-session.ts';
 import { SignInForm } from '@/features/auth/components/sign-in-form.tsx';

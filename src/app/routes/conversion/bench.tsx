@@ -1,4 +1,4 @@
-import { Link, useOutletContext, useSearchParams } from 'react-router';
+import { Link, useOutletContext, useSearchParams } from 'react-router-dom';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';

@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { useOutletContext } from 'react-router';
+import { useOutletContext } from 'react-router-dom';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
 import { useCheckReport } from '@/features/checks/api/run-checks.ts';
 import { ChecksPanel } from '@/features/checks/components/checks-panel.tsx';

@@ -1,5 +1,5 @@
 import { useCallback, useMemo } from 'react';
-import { useOutletContext } from 'react-router';
+import { useOutletContext } from 'react-router-dom';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
 import { Loading } from '@/components/ui/loading.tsx';

@@ -1,6 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
-import { useOutletContext, useSearchParams } from 'react-router';
+import { useOutletContext, useSearchParams } from 'react-router-dom';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
 import { SelectField } from '@/components/ui/field.tsx';
 import { Loading } from '@/components/ui/loading.tsx';

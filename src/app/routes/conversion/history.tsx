@@ -1,4 +1,4 @@
-import { useOutletContext } from 'react-router';
+import { useOutletContext } from 'react-router-dom';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
 import { Notice } from '@/components/ui/notice.tsx';
 import { AuditTrail } from '@/features/audit/components/audit-trail.tsx';

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { Link, useOutletContext } from 'react-router';
+import { Link, useOutletContext } from 'react-router-dom';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
 import { paths } from '@/config/paths.ts';
 import { useCan } from '@/features/auth/hooks/use-can.ts';

@@ -1,4 +1,4 @@
-import { Link, useOutletContext, useParams } from 'react-router';
+import { Link, useOutletContext, useParams } from 'react-router-dom';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';

@@ -1,5 +1,5 @@
 import { useEffect, useMemo, useState } from 'react';
-import { useLocation } from 'react-router';
+import { useLocation } from 'react-router-dom';
 import { SEVERITIES } from '#shared/schemas/checks.schema.ts';
 import type { Feed } from '#shared/schemas/feeds.schema.ts';
 import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';

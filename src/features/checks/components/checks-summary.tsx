@@ -1,4 +1,4 @@
-import { Link } from 'react-router';
+import { Link } from 'react-router-dom';
 import { SEVERITIES } from '#shared/schemas/checks.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { AllClearLabel, SeverityLabel } from '@/components/ui/severity.tsx';

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { Link } from 'react-router';
+import { Link } from 'react-router-dom';
 import type { Finding } from '#shared/schemas/checks.schema.ts';
 import { SeverityLabel } from '@/components/ui/severity.tsx';
 import { formatFindingValue, type SubjectLink } from '../lib/findings.ts';

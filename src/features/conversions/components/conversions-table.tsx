@@ -1,4 +1,4 @@
-import { Link } from 'react-router';
+import { Link } from 'react-router-dom';
 import type { ConversionListItem as Conversion } from '#shared/schemas/conversions.schema.ts';
 import { SortableTable, type SortableColumn } from '@/components/ui/sortable-table.tsx';
 import { paths } from '@/config/paths.ts';

@@ -1,5 +1,5 @@
 import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
-import { useSearchParams } from 'react-router';
+import { useSearchParams } from 'react-router-dom';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
 import type { Feed } from '#shared/schemas/feeds.schema.ts';
 import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';

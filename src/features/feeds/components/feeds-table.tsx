@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { Link } from 'react-router';
+import { Link } from 'react-router-dom';
 import { DROP_LIMIT_PCT } from '#shared/domain/electrical/voltage-drop.ts';
 import type { Finding } from '#shared/schemas/checks.schema.ts';
 import { DROP_CLASS_LABELS, WIRE_ZONE_LABELS, type Feed } from '#shared/schemas/feeds.schema.ts';

@@ -1,5 +1,5 @@
 import { useId, useMemo, useState, type ChangeEvent } from 'react';
-import { Link } from 'react-router';
+import { Link } from 'react-router-dom';
 import type { ColumnMapping, ColumnTarget, ImportResult } from '#shared/schemas/imports.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';

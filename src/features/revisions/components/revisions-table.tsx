@@ -1,4 +1,4 @@
-import { Link } from 'react-router';
+import { Link } from 'react-router-dom';
 import type { RevisionSummary } from '#shared/schemas/revisions.schema.ts';
 import { SortableTable, type SortableColumn } from '@/components/ui/sortable-table.tsx';
 import { RevisionStatusBadge } from './revision-status.tsx';

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Link } from 'react-router';
+import { Link } from 'react-router-dom';
 import { Button } from '@/components/ui/button.tsx';
 import { TextAreaField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
