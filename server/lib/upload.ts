@@ -1,5 +1,6 @@
 import type { RequestHandler } from 'express';
 import multer from 'multer';
+import { textProblem } from '#shared/schemas/common.schema.ts';
 import { AppError, badRequest } from './errors.ts';
 
 export interface UploadedFile {
@@ -32,6 +33,8 @@ export function singleFileUpload(options: {
     const fields = options.fields ?? 0;
     const middleware = multer({
       storage: multer.memoryStorage(),
+      // Browsers send a file name as raw UTF-8; busboy would read it as Latin-1 ("GerÃ¤t").
+      defParamCharset: 'utf8',
       limits: {
         fileSize: maxBytes,
         files: 1,
@@ -78,11 +81,17 @@ function translate(err: unknown, maxBytes: number): AppError {
   );
 }
 
-/** The uploaded name, for display only: no folders, no control characters, not too long. */
+/**
+ * The uploaded name, for display only: no folders, NFC, and none of the characters stored text may
+ * not hold (control, zero-width, text-direction: a right-to-left override could make "gpj.exe"
+ * read as "exe.jpg"), not too long.
+ */
 export function displayFileName(name: string): string {
-  const base = name.split(/[\\/]/).pop() ?? '';
-  // eslint-disable-next-line no-control-regex -- finding control characters is the point
-  const clean = base.replace(/[\u0000-\u001F\u007F]/g, '').trim();
+  const base = (name.split(/[\\/]/).pop() ?? '').normalize('NFC');
+  const clean = Array.from(base)
+    .filter((ch) => textProblem(ch) === null)
+    .join('')
+    .trim();
   return (clean || 'upload').slice(0, 200);
 }
 

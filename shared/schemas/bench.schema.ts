@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { BenchPlanItem, Rework } from '../domain/bench.ts';
-import { IdParam, optionalText } from './common.schema.ts';
+import { IdParam, noteText } from './common.schema.ts';
 
 /**
  * The ticks the bench can record. Each item offers only those that make sense for it: a de-pinned
@@ -36,7 +36,7 @@ export const BenchRecordRequest = z.strictObject({
   ticks: z.partialRecord(z.enum(BENCH_TICKS), z.boolean()),
   /** The reading in the unit the item or test step asks for; null when not measured. */
   reading: z.number().min(-1_000_000).max(1_000_000).nullable(),
-  note: optionalText(500),
+  note: noteText(500),
   /** The record's version as read; null when the item has no record yet. */
   version: z.number().int().min(0).nullable(),
 });

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { BenchNotice } from './bench.schema.ts';
-import { optionalText, requiredText } from './common.schema.ts';
+import { noteText, requiredText } from './common.schema.ts';
 
 export const SYSTEM_VOLTAGES = [12, 24] as const;
 export const SystemVoltage = z.union([z.literal(12), z.literal(24)], {
@@ -12,7 +12,7 @@ export const CreateConversionRequest = z.strictObject({
   donorEngine: requiredText(120),
   receivingVehicle: requiredText(120),
   systemVoltage: SystemVoltage,
-  notes: optionalText(4000).optional(),
+  notes: noteText(4000).optional(),
 });
 export type CreateConversionRequest = z.infer<typeof CreateConversionRequest>;
 
@@ -21,7 +21,7 @@ export const UpdateConversionRequest = z.strictObject({
   donorEngine: requiredText(120).optional(),
   receivingVehicle: requiredText(120).optional(),
   systemVoltage: SystemVoltage.optional(),
-  notes: optionalText(4000).optional(),
+  notes: noteText(4000).optional(),
   version: z.number().int().min(0),
 });
 export type UpdateConversionRequest = z.infer<typeof UpdateConversionRequest>;

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { IdParam, optionalText, requiredText } from './common.schema.ts';
+import { IdParam, noteText, optionalText, requiredText } from './common.schema.ts';
 import { InsulationRatingSchema, WireColourSchema, WireSizeMm2Schema } from './pin-map.schema.ts';
 
 /** Where a new feed takes its power from. */
@@ -75,7 +75,7 @@ const feedShape = {
   dropClass: z.enum(DROP_CLASSES),
   /** Overrides the class's limit, percent of system voltage. */
   dropLimitPct: z.number().positive().max(50).nullable(),
-  notes: optionalText(2000),
+  notes: noteText(2000),
 };
 
 const sourceNeedsFeed = (v: { source?: FeedSource; sourceFeedId?: number | null }) =>

@@ -1,13 +1,13 @@
 import { z } from 'zod';
 import type { PinValues, TemplatePinKey } from '../domain/fields/pin-fields.ts';
-import { optionalText, requiredText } from './common.schema.ts';
+import { noteText, requiredText } from './common.schema.ts';
 import { CONNECTOR_SIDES, type ConnectorSide } from './pin-map.schema.ts';
 
 /** Saves one connector's pinout (cavities, layout and each pin's wire and decision) for reuse. */
 export const SaveTemplateRequest = z.strictObject({
   connectorId: z.number().int().positive(),
   name: requiredText(120),
-  description: optionalText(2000).optional(),
+  description: noteText(2000).optional(),
 });
 export type SaveTemplateRequest = z.infer<typeof SaveTemplateRequest>;
 

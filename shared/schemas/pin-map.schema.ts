@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import { blankRecord, fieldKeys, fieldShape } from '../domain/fields/field-table.ts';
 import { PIN_FIELDS, type PinValues } from '../domain/fields/pin-fields.ts';
-import { optionalText, requiredText } from './common.schema.ts';
+import { labelKey } from '../domain/labels.ts';
+import { noteText, requiredText } from './common.schema.ts';
 
 export const CONNECTOR_SIDES = ['ecu', 'engine', 'vehicle', 'other'] as const;
 export type ConnectorSide = (typeof CONNECTOR_SIDES)[number];
@@ -82,7 +83,7 @@ export const CreateConnectorRequest = z
     cavityCount: z.number().int().min(1).max(MAX_CAVITIES),
     rows: layoutCount.optional(),
     columns: layoutCount.optional(),
-    notes: optionalText(2000).optional(),
+    notes: noteText(2000).optional(),
     /** Cavity labels in face order ("A1", "B12"…); "1" to N when omitted. */
     cavityLabels: z.array(requiredText(8)).optional(),
   })
@@ -94,10 +95,13 @@ export const CreateConnectorRequest = z
     message: 'give one label per cavity',
     path: ['cavityLabels'],
   })
-  .refine((v) => !v.cavityLabels || new Set(v.cavityLabels).size === v.cavityLabels.length, {
-    message: 'cavity labels must be unique',
-    path: ['cavityLabels'],
-  });
+  .refine(
+    (v) => !v.cavityLabels || new Set(v.cavityLabels.map(labelKey)).size === v.cavityLabels.length,
+    {
+      message: 'cavity labels must be unique and read differently',
+      path: ['cavityLabels'],
+    },
+  );
 export type CreateConnectorRequest = z.infer<typeof CreateConnectorRequest>;
 
 export const UpdateConnectorRequest = z.strictObject({
@@ -106,7 +110,7 @@ export const UpdateConnectorRequest = z.strictObject({
   cavityCount: z.number().int().min(1).max(MAX_CAVITIES).optional(),
   rows: layoutCount.optional(),
   columns: layoutCount.optional(),
-  notes: optionalText(2000).optional(),
+  notes: noteText(2000).optional(),
   version: z.number().int().min(0),
 });
 export type UpdateConnectorRequest = z.infer<typeof UpdateConnectorRequest>;

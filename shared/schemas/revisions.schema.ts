@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { CheckReport, Finding } from './checks.schema.ts';
-import { IdParam, optionalText, requiredText } from './common.schema.ts';
+import { IdParam, noteText, requiredText } from './common.schema.ts';
 import type { ConversionSnapshot } from './snapshot.schema.ts';
 
 export const REVISION_STATUSES = ['in_review', 'changes_requested', 'signed_off'] as const;
@@ -16,7 +16,7 @@ export type RevisionParams = z.output<typeof RevisionParams>;
 
 export const SubmitRevisionRequest = z.strictObject({
   /** A line for the reviewer about what changed. */
-  note: optionalText(2000).optional(),
+  note: noteText(2000).optional(),
 });
 export type SubmitRevisionRequest = z.infer<typeof SubmitRevisionRequest>;
 
@@ -27,14 +27,14 @@ export const SignOffRequest = z.strictObject({
 export type SignOffRequest = z.infer<typeof SignOffRequest>;
 
 export const SendBackRequest = z.strictObject({
-  comment: requiredText(4000),
+  comment: requiredText(4000, { multiline: true }),
   version: z.number().int().min(0).optional(),
 });
 export type SendBackRequest = z.infer<typeof SendBackRequest>;
 
 export const ReviewCommentRequest = z
   .strictObject({
-    body: requiredText(4000),
+    body: requiredText(4000, { multiline: true }),
     pinId: z.number().int().positive().nullable().optional(),
     feedId: z.number().int().positive().nullable().optional(),
   })

@@ -135,6 +135,19 @@ describe('reference scans in the S3 fake', () => {
     expect(got.headers['cache-control']).toBe('private, no-store');
   });
 
+  it('reads a UTF-8 file name as UTF-8, and drops direction and zero-width characters from it', async () => {
+    const res = await attach(
+      connectorId,
+      PDF,
+      'Motorsteuerger\u00e4t \u201eE2\u201c.pdf',
+      'application/pdf',
+    );
+    expect(res.status).toBe(201);
+    expect(res.body.attachment.fileName).toBe('Motorsteuerger\u00e4t \u201eE2\u201c.pdf');
+    const tricky = await attach(connectorId, PDF, 'scan\u202egpj.pdf\u200b', 'application/pdf');
+    expect(tricky.body.attachment.fileName).toBe('scangpj.pdf');
+  });
+
   it('types PNG and JPEG by their bytes, whatever name and type the browser sent', async () => {
     const png = await attach(connectorId, PNG, 'photo.pdf', 'application/pdf');
     expect(png.status).toBe(201);

@@ -4,6 +4,7 @@ import type {
   Feed as FeedDto,
   UpdateFeedRequest,
 } from '#shared/schemas/feeds.schema.ts';
+import { labelKey } from '#shared/domain/labels.ts';
 import { db } from '../../db/index.ts';
 import { Feed, FeedLoad, Pin } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
@@ -100,12 +101,21 @@ async function assertReferences(
   loads: Array<{ pinId: number | null }>,
   t: Transaction,
 ) {
-  const clash = await Feed.findOne({ where: { conversionId, name: feed.name }, transaction: t });
-  if (clash && clash.id !== feedId) {
+  // Compared by look-alike key, so a name that reads the same as another feed's is refused too.
+  const key = labelKey(feed.name);
+  const named = await Feed.findAll({
+    where: { conversionId },
+    attributes: ['id', 'name'],
+    transaction: t,
+  });
+  const clash = named.find((f) => f.id !== feedId && labelKey(f.name) === key);
+  if (clash) {
     throw new AppError(
       409,
       'duplicate',
-      `This conversion already has a feed named "${feed.name}".`,
+      clash.name === feed.name
+        ? `This conversion already has a feed named "${feed.name}".`
+        : `"${feed.name}" looks the same as feed "${clash.name}" in this conversion; choose a name that reads differently.`,
       [{ field: 'name', message: 'is already used in this conversion' }],
     );
   }

@@ -10,6 +10,7 @@
  * - a cavity of the connector that the file does not name is removed if it is blank; if it holds
  *   anything, or other pins or feeds point at it, the import is refused naming those cavities.
  */
+import { looseLabelKey } from '#shared/domain/labels.ts';
 import { fieldKeys, showField } from '#shared/domain/fields/field-table.ts';
 import { PIN_FIELDS } from '#shared/domain/fields/pin-fields.ts';
 import { pinNames } from '#shared/domain/pin-names.ts';
@@ -145,7 +146,7 @@ function sameColour(stored: string, imported: string): boolean {
 function findByLabel<T extends { label: string }>(items: readonly T[], label: string): T | null {
   const exact = items.find((c) => c.label === label);
   if (exact) return exact;
-  const folded = items.filter((c) => c.label.toUpperCase() === label.toUpperCase());
+  const folded = items.filter((c) => looseLabelKey(c.label) === looseLabelKey(label));
   return folded.length === 1 ? folded[0]! : null;
 }
 
@@ -232,7 +233,7 @@ export function planImport(
     const connector = connectorOf(m.connector, null);
     if (!connector) continue;
     const set = mentionedBy.get(connector.id) ?? new Set<string>();
-    set.add(m.cavity.toUpperCase());
+    set.add(looseLabelKey(m.cavity));
     mentionedBy.set(connector.id, set);
   }
 
@@ -252,7 +253,7 @@ export function planImport(
     const byCavity = new Map(existing.map((p) => [p.cavity, p]));
     const byFolded = new Map<string, PinData | null>();
     for (const p of existing) {
-      const key = p.cavity.toUpperCase();
+      const key = looseLabelKey(p.cavity);
       byFolded.set(key, byFolded.has(key) ? null : p);
     }
 
@@ -315,7 +316,7 @@ export function planImport(
     const newVersions = new Map<number, PinData>();
     const addsInOrder: Array<PinFields & { cavity: string }> = [];
     for (const row of fileRows ?? []) {
-      const pin = byCavity.get(row.cavity) ?? byFolded.get(row.cavity.toUpperCase()) ?? null;
+      const pin = byCavity.get(row.cavity) ?? byFolded.get(looseLabelKey(row.cavity)) ?? null;
       if (pin) {
         kept.set(pin.id, pin);
         const after = resolve(row, pin, pin.id);
@@ -346,7 +347,7 @@ export function planImport(
       }
     }
 
-    const missing = existing.filter((p) => !kept.has(p.id) && !named?.has(p.cavity.toUpperCase()));
+    const missing = existing.filter((p) => !kept.has(p.id) && !named?.has(looseLabelKey(p.cavity)));
     const inUse = missing.filter((p) => pinHoldsData(p) || ctx.referencedPinIds.has(p.id));
     if (inUse.length) {
       const list = inUse.map((p) => p.cavity);

@@ -2,6 +2,8 @@
  * Each record of a pinout file checked cell by cell into pin values. Every problem is reported
  * with its line and column; nothing is guessed silently.
  */
+import { looseLabelKey } from '#shared/domain/labels.ts';
+import { normalizeText, textProblem } from '#shared/schemas/common.schema.ts';
 import { unescapeFormula } from '#shared/domain/csv.ts';
 import { csvColumns, type FieldParse, type FieldSpec } from '#shared/domain/fields/field-table.ts';
 import { PIN_FIELDS, type PinValues } from '#shared/domain/fields/pin-fields.ts';
@@ -26,9 +28,6 @@ export interface PinRow {
 const MAX_CAVITY = 8;
 /** Cells that hold names rather than values: checked for length here, resolved by the plan. */
 const MAX_NAME: Partial<Record<ImportField, number>> = { connector: 40, feed: 120 };
-// Tab and line breaks are fine inside a quoted cell; other control characters are not text.
-// eslint-disable-next-line no-control-regex -- finding control characters is the point
-const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
 
 /**
  * The pin API's own strict schema over what a row sets: the cell parsers give the messages a
@@ -86,9 +85,11 @@ export function parseRows(
     const text = (field: ImportField): string | undefined => {
       const index = columnOf.get(field);
       if (index === undefined) return undefined;
-      const value = unescapeFormula(record.cells[index]!.trim());
-      if (CONTROL.test(value)) {
-        issue(field, 'holds a control character; remove it');
+      const multiline = field === 'notes' || field === 'function';
+      const value = normalizeText(unescapeFormula(record.cells[index]!.trim()), multiline).trim();
+      const problem = textProblem(value, multiline);
+      if (problem) {
+        issue(field, `${problem}; remove it`);
         return '';
       }
       if (value.includes('\uFFFD')) {
@@ -151,7 +152,7 @@ export function parseRows(
 
     if (cavity !== '') {
       mentioned.push({ connector, cavity });
-      const key = `${connector ?? ''}\u0000${cavity.toUpperCase()}`;
+      const key = `${connector ?? ''}\u0000${looseLabelKey(cavity)}`;
       const first = firstRowOf.get(key);
       if (first !== undefined) {
         issue(

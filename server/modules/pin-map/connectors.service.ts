@@ -7,6 +7,7 @@ import {
   type CreateConnectorRequest,
   type UpdateConnectorRequest,
 } from '#shared/schemas/pin-map.schema.ts';
+import { labelKey } from '#shared/domain/labels.ts';
 import { db } from '../../db/index.ts';
 import { Connector, Feed, FeedLoad, Pin } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
@@ -63,12 +64,21 @@ async function assertLabelFree(
   exceptId: number | null,
   t: Transaction,
 ) {
-  const clash = await Connector.findOne({ where: { conversionId, label }, transaction: t });
-  if (clash && clash.id !== exceptId) {
+  // Compared by look-alike key, so "Е1" (Cyrillic Е) cannot stand beside "E1".
+  const key = labelKey(label);
+  const others = await Connector.findAll({
+    where: { conversionId },
+    attributes: ['id', 'label'],
+    transaction: t,
+  });
+  const clash = others.find((c) => c.id !== exceptId && labelKey(c.label) === key);
+  if (clash) {
     throw new AppError(
       409,
       'duplicate',
-      `This conversion already has a connector labelled "${label}".`,
+      clash.label === label
+        ? `This conversion already has a connector labelled "${label}".`
+        : `"${label}" looks the same as connector "${clash.label}" in this conversion; choose a label that reads differently.`,
       [{ field: 'label', message: 'is already used in this conversion' }],
     );
   }

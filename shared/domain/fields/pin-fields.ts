@@ -4,7 +4,7 @@
  * and export, the import plan, the revision differences and the blank pin follow.
  */
 import { z } from 'zod';
-import { optionalText } from '../../schemas/common.schema.ts';
+import { noteText, optionalText } from '../../schemas/common.schema.ts';
 import {
   DispositionSchema,
   InsulationRatingSchema,
@@ -103,9 +103,10 @@ export const PIN_FIELDS = {
   function: field({
     inTemplate: true,
     label: 'Function',
-    schema: optionalText(200),
+    // Donor pinout sheets often break a long function over two lines; the import keeps that.
+    schema: noteText(200),
     blank: '',
-    parse: (text) => parseText(text, 200),
+    parse: (text) => parseText(text, 200, true),
     format: (v) => v,
     csv: [{ header: 'function', label: 'Function' }],
     column: { id: 'function', heading: 'Function' },
@@ -233,9 +234,9 @@ export const PIN_FIELDS = {
   notes: field({
     inTemplate: true,
     label: 'Notes',
-    schema: optionalText(2000),
+    schema: noteText(2000),
     blank: '',
-    parse: (text) => parseText(text, 2000),
+    parse: (text) => parseText(text, 2000, true),
     format: (v) => v,
     csv: [{ header: 'notes', label: 'Notes' }],
     column: { id: 'notes', heading: 'Notes' },

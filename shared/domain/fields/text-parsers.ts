@@ -4,6 +4,7 @@
  */
 import { DISPOSITION_INFO, DISPOSITIONS, type Disposition } from '../dispositions.ts';
 import { SIGNAL_CLASS_LABELS, SIGNAL_CLASSES, type SignalClass } from '../signal-classes.ts';
+import { normalizeText, textProblem } from '../../schemas/common.schema.ts';
 import { INSULATION_RATINGS_C } from '../../schemas/workshop.schema.ts';
 import { parsed, refused, type FieldParse } from './field-table.ts';
 
@@ -104,9 +105,11 @@ export function parseInsulationRating(text: string): FieldParse<number | null> {
   return parsed(value);
 }
 
-/** Text trimmed, at most `max` characters (as the API's `optionalText` reads it). */
-export function parseText(text: string, max: number): FieldParse<string> {
-  const trimmed = text.trim();
+/** Text as the API's `optionalText` (or, `multiline`, `noteText`) reads it: clean, trimmed, capped. */
+export function parseText(text: string, max: number, multiline = false): FieldParse<string> {
+  const trimmed = normalizeText(text, multiline).trim();
+  const problem = textProblem(trimmed, multiline);
+  if (problem) return refused(problem);
   if (trimmed.length > max) return refused(`at most ${max} characters (this is ${trimmed.length})`);
   return parsed(trimmed);
 }
