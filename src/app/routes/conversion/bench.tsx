@@ -11,6 +11,7 @@ import { BenchQueueStatus } from '@/features/bench/components/bench-queue-status
 import { TestPlanView } from '@/features/bench/components/test-plan.tsx';
 import { revisionWorksheetHref } from '@/features/revisions/api/revisions.ts';
 import { useWorkshop } from '@/features/workshop/api/workshop.ts';
+import { formatDate } from '@/lib/format-date.ts';
 
 export function ConversionBenchRoute() {
   const conversion = useOutletContext<Conversion>();
@@ -46,7 +47,7 @@ export function ConversionBenchRoute() {
         <div>
           <h2 className="text-xl font-semibold">Bench checklist, revision {r.number}</h2>
           <p className="text-sm text-ink-soft">
-            Signed off by {r.reviewedBy} on {new Date(r.signedAt).toLocaleDateString()} · hash{' '}
+            Signed off by {r.reviewedBy} on {formatDate(r.signedAt, 'date')} · hash{' '}
             <span className="font-mono">{r.hash.slice(0, 12)}</span>
           </p>
         </div>

@@ -8,6 +8,7 @@ import { useConnectors } from '@/features/pin-map/api/get-connectors.ts';
 import { usePins } from '@/features/pin-map/api/get-pins.ts';
 import { useRevisions } from '@/features/revisions/api/revisions.ts';
 import { RevisionStatusBadge } from '@/features/revisions/components/revision-status.tsx';
+import { formatDate } from '@/lib/format-date.ts';
 
 /** The current draft's bench worksheet; the session cookie goes with the new tab's request. */
 const draftWorksheetHref = (conversionId: number) =>
@@ -101,7 +102,7 @@ export function ConversionOverviewRoute() {
         <p className="whitespace-pre-wrap text-ink-soft">{c.notes || 'No notes.'}</p>
         <p className="mt-4 text-sm text-ink-faint">
           Started by {c.createdBy?.name ?? 'someone no longer here'} · last changed{' '}
-          {new Date(c.updatedAt).toLocaleString()}
+          {formatDate(c.updatedAt)}
         </p>
       </section>
     </div>

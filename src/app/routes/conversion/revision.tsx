@@ -20,6 +20,7 @@ import { FrozenFindings } from '@/features/revisions/components/frozen-findings.
 import { ReviewActions } from '@/features/revisions/components/review-actions.tsx';
 import { RevisionStatusBadge } from '@/features/revisions/components/revision-status.tsx';
 import { useWorkshop } from '@/features/workshop/api/workshop.ts';
+import { formatDate } from '@/lib/format-date.ts';
 
 export function ConversionRevisionRoute() {
   const conversion = useOutletContext<Conversion>();
@@ -71,10 +72,8 @@ export function ConversionRevisionRoute() {
             Revision {r.number} <RevisionStatusBadge status={r.status} />
           </h2>
           <p className="mt-1 text-sm text-ink-soft">
-            Submitted by {r.submittedBy} on {new Date(r.submittedAt).toLocaleString()}
-            {r.reviewedBy
-              ? ` · reviewed by ${r.reviewedBy} on ${new Date(r.reviewedAt!).toLocaleString()}`
-              : ''}
+            Submitted by {r.submittedBy} on {formatDate(r.submittedAt)}
+            {r.reviewedBy ? ` · reviewed by ${r.reviewedBy} on ${formatDate(r.reviewedAt)}` : ''}
           </p>
           {r.reviewComment ? (
             <p className="mt-2 max-w-2xl whitespace-pre-wrap border-l-2 border-rule-strong pl-3 text-sm">

@@ -7,6 +7,7 @@ import { useCan } from '@/features/auth/hooks/use-can.ts';
 import { revisionWorksheetHref, useRevisions } from '@/features/revisions/api/revisions.ts';
 import { RevisionsTable } from '@/features/revisions/components/revisions-table.tsx';
 import { SubmitPanel } from '@/features/revisions/components/submit-panel.tsx';
+import { formatDate } from '@/lib/format-date.ts';
 
 export function ConversionRevisionsRoute() {
   const conversion = useOutletContext<Conversion>();
@@ -33,8 +34,7 @@ export function ConversionRevisionsRoute() {
               <span aria-hidden>✓ </span>The bench works from revision {current.number}
             </p>
             <p className="text-sm text-ink-soft">
-              Signed off by {current.reviewedBy} on{' '}
-              {new Date(current.signedAt!).toLocaleDateString()} · hash{' '}
+              Signed off by {current.reviewedBy} on {formatDate(current.signedAt, 'date')} · hash{' '}
               <span className="font-mono">{current.hash.slice(0, 12)}</span>
             </p>
           </div>

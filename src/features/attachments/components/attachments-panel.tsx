@@ -3,10 +3,11 @@ import { ATTACHMENT_TYPE_LABELS } from '#shared/schemas/attachments.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
+import { formatDate } from '@/lib/format-date.ts';
 import { useDeleteAttachment } from '../api/delete-attachment.ts';
 import { attachmentHref, useAttachments } from '../api/get-attachments.ts';
 import { useUploadAttachment } from '../api/upload-attachment.ts';
-import { formatBytes, formatDate } from '../lib/format.ts';
+import { formatBytes } from '../lib/format.ts';
 
 const TYPE_GLYPH: Record<string, string> = {
   'application/pdf': 'PDF',
@@ -65,7 +66,7 @@ export function AttachmentsPanel({
                 </a>
                 <span className="block text-xs text-ink-faint">
                   {ATTACHMENT_TYPE_LABELS[a.contentType]}, {formatBytes(a.sizeBytes)} ·{' '}
-                  {a.uploadedBy ?? 'someone'}, {formatDate(a.createdAt)}
+                  {a.uploadedBy ?? 'someone'}, {formatDate(a.createdAt, 'date')}
                 </span>
               </span>
               {canWrite ? (

@@ -3,6 +3,7 @@ import { SelectField, TextField } from '@/components/ui/field.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { useAudit, type AuditFilters } from '../api/audit.ts';
+import { formatDate } from '@/lib/format-date.ts';
 
 const ACTIONS: Record<string, string> = {
   create: 'Created',
@@ -99,7 +100,7 @@ export function AuditTrail({ conversionId }: { conversionId: number }) {
           {events.data.map((e) => (
             <li key={e.id} className="px-4 py-3">
               <p className="text-sm text-ink-faint">
-                <time dateTime={e.at}>{new Date(e.at).toLocaleString()}</time> ·{' '}
+                <time dateTime={e.at}>{formatDate(e.at)}</time> ·{' '}
                 <span className="font-semibold text-ink">{e.actorName}</span> ·{' '}
                 {describe(e.action, e.entityType)}
               </p>

@@ -1,5 +1,6 @@
 import type { BenchSheet } from '#shared/schemas/bench.schema.ts';
 import { benchPhotoHref } from '../api/bench.ts';
+import { formatDate } from '@/lib/format-date.ts';
 
 /** For the reviewer: how far the bench is on this revision, and the photos taken there. */
 export function BenchPhotosPanel({ sheet }: { sheet: BenchSheet }) {
@@ -34,7 +35,7 @@ export function BenchPhotosPanel({ sheet }: { sheet: BenchSheet }) {
                 </a>
                 <span className="font-mono font-semibold">{names.get(key) ?? key}</span>
                 <span className="text-xs text-ink-faint">
-                  {p.takenBy ?? '—'}, {new Date(p.createdAt).toLocaleString()}
+                  {p.takenBy ?? '—'}, {formatDate(p.createdAt)}
                 </span>
               </li>
             )),

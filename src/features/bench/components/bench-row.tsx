@@ -11,6 +11,7 @@ import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { DispositionGlyph } from '@/components/ui/disposition-glyph.tsx';
 import { WireColour } from '@/components/ui/wire-colour.tsx';
 import { NoteField, Photos, ReadingField, Toggle, type BenchChange } from './bench-controls.tsx';
+import { formatDate } from '@/lib/format-date.ts';
 
 /** The record as it stands, or an empty one. */
 export function current(record: BenchRecord | null): BenchChange {
@@ -133,7 +134,7 @@ export function BenchRow({
       !high ? (
         <p className="mt-2 text-xs text-ink-faint">
           {r.recordedBy}
-          {r.recordedAt ? `, ${new Date(r.recordedAt).toLocaleString()}` : ''}
+          {r.recordedAt ? `, ${formatDate(r.recordedAt)}` : ''}
           {r.note ? ` · ${r.note}` : ''}
         </p>
       ) : null}

@@ -19,13 +19,12 @@ import {
 } from '../lib/findings.ts';
 import { FindingRow } from './finding-row.tsx';
 import { SafetyCautions } from './safety-cautions.tsx';
-
-const timeFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'medium' });
+import { formatDate } from '@/lib/format-date.ts';
 
 export function CheckedAt({ iso }: { iso: string }) {
   return (
     <time dateTime={iso} className="whitespace-nowrap">
-      {timeFormat.format(new Date(iso))}
+      {formatDate(iso, 'dateTimeSeconds')}
     </time>
   );
 }

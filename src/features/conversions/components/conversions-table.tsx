@@ -2,8 +2,7 @@ import { Link } from 'react-router-dom';
 import type { ConversionListItem as Conversion } from '#shared/schemas/conversions.schema.ts';
 import { SortableTable, type SortableColumn } from '@/components/ui/sortable-table.tsx';
 import { paths } from '@/config/paths.ts';
-
-const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+import { formatDate } from '@/lib/format-date.ts';
 
 const columns: SortableColumn<Conversion>[] = [
   {
@@ -59,7 +58,7 @@ const columns: SortableColumn<Conversion>[] = [
             to={paths.conversionBench.getHref(row.original.id)}
             className="underline decoration-rule-strong underline-offset-4"
           >
-            Revision {bench.revisionNumber} signed off {dateFormat.format(new Date(bench.signedAt))}
+            Revision {bench.revisionNumber} signed off {formatDate(bench.signedAt)}
           </Link>
           {bench.reworkOpen ? (
             <span className="font-semibold text-caution">
@@ -78,7 +77,7 @@ const columns: SortableColumn<Conversion>[] = [
     sortFn: 'datetime',
     cell: ({ row }) => (
       <time dateTime={row.original.updatedAt} className="whitespace-nowrap text-ink-soft">
-        {dateFormat.format(new Date(row.original.updatedAt))}
+        {formatDate(row.original.updatedAt)}
       </time>
     ),
   },

@@ -8,6 +8,7 @@ import { useDeleteTemplate } from '../api/delete-template.ts';
 import { useTemplate } from '../api/get-template.ts';
 import { useTemplates } from '../api/get-templates.ts';
 import { TemplatePinsTable } from './template-pins-table.tsx';
+import { formatDate } from '@/lib/format-date.ts';
 
 function TemplatePins({ template }: { template: PinoutTemplate }) {
   const detail = useTemplate(template.id);
@@ -48,12 +49,7 @@ function TemplateCard({ template, canWrite }: { template: PinoutTemplate; canWri
               </span>
             ) : (
               <span>
-                Saved by {template.createdBy ?? 'someone'},{' '}
-                {new Date(template.createdAt).toLocaleDateString('en-GB', {
-                  day: 'numeric',
-                  month: 'short',
-                  year: 'numeric',
-                })}
+                Saved by {template.createdBy ?? 'someone'}, {formatDate(template.createdAt, 'date')}
               </span>
             )}
           </p>

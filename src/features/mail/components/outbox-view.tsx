@@ -1,6 +1,7 @@
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { useOutbox } from '../api/outbox.ts';
+import { formatDate } from '@/lib/format-date.ts';
 
 const STATUS = {
   pending: '◔ Waiting',
@@ -49,9 +50,7 @@ export function OutboxView() {
               ) : (
                 rows.map((r) => (
                   <tr key={r.id} className="border-b border-rule/70 last:border-0">
-                    <td className="px-3 py-2 whitespace-nowrap">
-                      {new Date(r.createdAt).toLocaleString()}
-                    </td>
+                    <td className="px-3 py-2 whitespace-nowrap">{formatDate(r.createdAt)}</td>
                     <td className="px-3 py-2 font-mono">{r.to}</td>
                     <td className="px-3 py-2">{r.subject}</td>
                     <td className="px-3 py-2 whitespace-nowrap">
@@ -81,7 +80,7 @@ export function OutboxView() {
             {received.map((m, i) => (
               <li key={i} className="rounded-lg border border-rule bg-paper-raised px-4 py-3">
                 <p className="text-sm text-ink-faint">
-                  {new Date(m.receivedAt).toLocaleString()} · to{' '}
+                  {formatDate(m.receivedAt)} · to{' '}
                   <span className="font-mono">{m.to.join(', ')}</span>
                 </p>
                 <p className="font-semibold">{m.subject}</p>

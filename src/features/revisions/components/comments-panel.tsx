@@ -5,6 +5,7 @@ import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextAreaField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { useAddComment } from '../api/revisions.ts';
+import { formatDate } from '@/lib/format-date.ts';
 
 /** Remarks on the revision as a whole, a pin or a feed of it. */
 export function CommentsPanel({
@@ -50,7 +51,7 @@ export function CommentsPanel({
                   on <span className="font-mono text-ink">{c.subjectLabel}</span>
                 </>
               ) : null}{' '}
-              · {new Date(c.createdAt).toLocaleString()}
+              · {formatDate(c.createdAt)}
             </p>
             <p className="whitespace-pre-wrap">{c.body}</p>
           </li>

@@ -1,10 +1,10 @@
 import { Link } from 'react-router-dom';
 import type { RevisionSummary } from '#shared/schemas/revisions.schema.ts';
 import { SortableTable, type SortableColumn } from '@/components/ui/sortable-table.tsx';
+import { formatDate } from '@/lib/format-date.ts';
 import { RevisionStatusBadge } from './revision-status.tsx';
 
-const when = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' }) : '—';
+const when = (iso: string | null) => formatDate(iso);
 
 export function RevisionsTable({
   revisions,
