@@ -117,3 +117,9 @@ export interface ImportResult {
 }
 
 export const MAX_IMPORT_ERRORS_LISTED = 500;
+/**
+ * The most pin rows one file may hold. Twenty thousand is fifty full 400-cavity connectors, far
+ * beyond any harness; the cap keeps checking a file to about a second of work
+ * (docs/decisions/0005-pinout-import-and-file-storage.md).
+ */
+export const MAX_IMPORT_ROWS = 20_000;

@@ -5,7 +5,7 @@
 import { QueryTypes } from 'sequelize';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { ImportResult } from '#shared/schemas/imports.schema.ts';
+import { MAX_IMPORT_ROWS, type ImportResult } from '#shared/schemas/imports.schema.ts';
 import { BLANK_PIN_VALUES, type Pin } from '#shared/schemas/pin-map.schema.ts';
 import { db } from '#server/db/index.ts';
 import { AuditEvent, Connector, Pin as PinModel, PinImport } from '#server/db/models/index.ts';
@@ -312,6 +312,28 @@ describe('large files', () => {
     } finally {
       await db().query('DROP TRIGGER fail_late');
     }
+  });
+
+  it('takes 20,000 pin rows and answers 413 too_many_rows to 20,001, writing nothing', async () => {
+    const file = (rows: number) =>
+      ['connector,cavity,function']
+        .concat(Array.from({ length: rows }, (_, i) => `X1,${i + 1},f`))
+        .join('\n') + '\n';
+    const atCap = await upload(intoConversion(conversionId), file(MAX_IMPORT_ROWS), {
+      dryRun: true,
+    });
+    expect(atCap.status).toBe(200);
+    expect(atCap.body.rows).toBe(MAX_IMPORT_ROWS);
+    const before = await writeState();
+    for (const dryRun of [true, false]) {
+      const over = await upload(intoConversion(conversionId), file(MAX_IMPORT_ROWS + 1), {
+        dryRun,
+      });
+      expect(over.status).toBe(413);
+      expect(over.body.error.code).toBe('too_many_rows');
+      expect(over.body.error.message).toContain('more than 20,000 pin rows');
+    }
+    expect(await writeState()).toEqual(before);
   });
 
   it('answers 413 for a file over 2 MB and reads nothing', async () => {

@@ -114,6 +114,8 @@ export interface CsvTable {
   delimiter: Delimiter;
   blankLines: number;
   errors: ImportIssue[];
+  /** Reading stopped after `maxRecords` records: the file has more. */
+  overLimit: boolean;
 }
 
 /** Line number of each character offset, by binary search over the line starts. */
@@ -137,9 +139,10 @@ const isBlank = (cells: string[]) => cells.every((c) => c.trim() === '');
 /**
  * Parses decoded text into a header and records, each with the line it starts on. Line endings
  * (CRLF, LF, CR) are read alike; quoted fields may hold delimiters and line breaks; blank lines are
- * skipped and counted. Any papaparse error is reported and fails the file.
+ * skipped and counted. Any papaparse error is reported and fails the file. Reading stops after
+ * `maxRecords` data records (`overLimit`), so an oversized file costs no more than the limit.
  */
-export function readCsv(decoded: string): CsvTable {
+export function readCsv(decoded: string, maxRecords = Infinity): CsvTable {
   const text = decoded.replace(/\r\n?/g, '\n');
   const delimiter = detectDelimiter(text);
   const lineOf = lineFinder(text);
@@ -148,6 +151,7 @@ export function readCsv(decoded: string): CsvTable {
   const seen = new Set<string>();
   let start = 0;
   let blankLines = 0;
+  let overLimit = false;
   Papa.parse<string[]>(text, {
     delimiter,
     newline: '\n',
@@ -156,7 +160,7 @@ export function readCsv(decoded: string): CsvTable {
     header: false,
     dynamicTyping: false,
     skipEmptyLines: false,
-    step: (result) => {
+    step: (result, parser) => {
       const row = lineOf(start);
       for (const e of result.errors) {
         const at = typeof e.index === 'number' ? lineOf(e.index) : row;
@@ -173,6 +177,12 @@ export function readCsv(decoded: string): CsvTable {
         if (!phantom) blankLines++;
         return;
       }
+      // The header is a record too: one more than `maxRecords` data records means too many.
+      if (records.length > maxRecords) {
+        overLimit = true;
+        parser.abort();
+        return;
+      }
       records.push({ row, cells });
     },
   });
@@ -184,6 +194,7 @@ export function readCsv(decoded: string): CsvTable {
     delimiter,
     blankLines,
     errors,
+    overLimit,
   };
 }
 

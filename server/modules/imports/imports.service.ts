@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { QueryTypes, type Transaction } from 'sequelize';
 import {
   MAX_IMPORT_ERRORS_LISTED,
+  MAX_IMPORT_ROWS,
   type ColumnTarget,
   type ImportField,
   type ImportIssue,
@@ -34,7 +35,7 @@ import { findConnectorInWorkshop } from '../pin-map/connectors.service.ts';
 import { decodeUtf8, DELIMITER_NAMES, readCsv } from './csv-text.ts';
 import { headerSignature, parseMappingField, resolveMapping } from './mapping.ts';
 import { planImport, type Plan, type PlanContext, type PinData } from './plan.ts';
-import { parseRows, type PinRow } from './rows.ts';
+import { parseRowsYielding, type PinRow } from './rows.ts';
 
 export type ImportTarget =
   { kind: 'connector'; connectorId: number } | { kind: 'conversion'; conversionId: number };
@@ -170,7 +171,15 @@ async function checkFile(
   }
   if (decoded.hadBom)
     checked.notes.push('The byte-order mark at the start of the file was removed.');
-  const csv = readCsv(decoded.text);
+  const csv = readCsv(decoded.text, MAX_IMPORT_ROWS);
+  if (csv.overLimit) {
+    throw new AppError(
+      413,
+      'too_many_rows',
+      `The file has more than ${MAX_IMPORT_ROWS.toLocaleString('en')} pin rows, the most one import takes. Nothing was imported; split the file, for example one file per connector.`,
+      { maxRows: MAX_IMPORT_ROWS },
+    );
+  }
   checked.headers = csv.headers;
   checked.dataRows = csv.records.length;
   checked.table = csv.records.map((r) => ({ row: r.row, cells: r.cells }));
@@ -227,7 +236,7 @@ async function checkFile(
   }
   if (csv.errors.length || !resolved.columnOf.has('cavity') || lacksConnector) return checked;
 
-  const parsed = parseRows(csv.records, csv.headers, resolved.columnOf);
+  const parsed = await parseRowsYielding(csv.records, csv.headers, resolved.columnOf);
   checked.rows = parsed.rows;
   checked.mentioned = parsed.mentioned;
   checked.errors.push(...parsed.errors);

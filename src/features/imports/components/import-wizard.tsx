@@ -102,8 +102,8 @@ export function ImportWizard({
           />
         </div>
         <p className="max-w-xl text-sm text-ink-faint">
-          UTF-8 text with a header line; commas, semicolons or tabs between columns; at most 2 MB.
-          Nothing is written until you press Import.
+          UTF-8 text with a header line; commas, semicolons or tabs between columns; at most 2 MB
+          and 20,000 rows. Nothing is written until you press Import.
         </p>
       </div>
 
