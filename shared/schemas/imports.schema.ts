@@ -38,12 +38,20 @@ export const HEADER_ALIASES: Readonly<Record<string, ImportField>> = Object.free
   ]),
 );
 
-/** `?dryRun=1` previews; anything else applies. */
+/** Lines of the file in one page of a preview. */
+export const PREVIEW_PAGE_ROWS = 200;
+
+/** `?dryRun=1` previews (`page`: which page of the file's lines, from 1); anything else applies. */
 export const ImportQuery = z.strictObject({
   dryRun: z
     .enum(['0', '1', 'true', 'false'])
     .optional()
     .transform((v) => v === '1' || v === 'true'),
+  page: z
+    .string()
+    .regex(/^[1-9][0-9]{0,5}$/, 'must be a page number from 1')
+    .optional()
+    .transform((v) => (v === undefined ? 1 : Number(v))),
 });
 export type ImportQuery = z.output<typeof ImportQuery>;
 
@@ -111,9 +119,24 @@ export interface ImportResult {
   /** An earlier import of the same file (same SHA-256) into the same place. */
   previousImport: { at: string; by: string | null } | null;
   target: { conversionId: number; connectorId: number | null; label: string | null };
-  /** Preview only: the file's rows as read, for showing errors in their cells. */
+  /**
+   * Preview only: one page of the file's lines as read, for showing problems in their cells. In a
+   * preview, `errors` holds the problems of the file as a whole and of this page's lines, and
+   * `changes` the changes of this page's lines and every removal; the counts and `summary` are
+   * for the whole file.
+   */
   table?: Array<{ row: number; cells: string[] }>;
-  tableTruncated?: boolean;
+  page?: PreviewPage;
+}
+
+export interface PreviewPage {
+  /** From 1. */
+  number: number;
+  /** Pages of `PREVIEW_PAGE_ROWS` lines; at least 1. */
+  count: number;
+  size: number;
+  /** Pages holding a line with a problem, in order (at most 100 listed). */
+  withProblems: number[];
 }
 
 export const MAX_IMPORT_ERRORS_LISTED = 500;

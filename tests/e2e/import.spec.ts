@@ -174,3 +174,35 @@ test('the pinout library lists the built-in diagnostic connector and saves a con
   await expect(pins.getByRole('row', { name: /^16 Battery \+ \(unswitched\)/ })).toBeVisible();
   await page.screenshot({ path: 'test-results/screens/library.png', fullPage: true });
 });
+
+test('a long file is previewed a page at a time, with a way straight to the page of a problem', async ({
+  page,
+}) => {
+  await signIn(page, DEMO.builder);
+  await page.getByRole('link', { name: 'Ashby yard truck' }).click();
+  await page.getByRole('link', { name: 'Import & files' }).click();
+  await page.getByLabel('Connector', { exact: true }).selectOption({ label: 'New connector…' });
+  const newConnector = page.getByRole('form', { name: 'New connector' });
+  await newConnector.getByLabel('Connector label').fill('L7');
+  await newConnector.getByLabel('Side').selectOption('engine');
+  await newConnector.getByRole('button', { name: 'Create connector' }).click();
+  await expect(page.getByLabel('Connector', { exact: true }).locator('option:checked')).toHaveText(
+    /^L7 — /,
+  );
+  const lines = Array.from(
+    { length: 350 },
+    (_, i) => `${i + 1},Pin ${i + 1},${i === 299 ? 'NOT A COLOUR' : 'BK'}`,
+  );
+  await page
+    .getByLabel('Pinout file (CSV)')
+    .setInputFiles(csvFile('long.csv', ['Cavity,Function,Colour', ...lines].join('\n') + '\n'));
+  const pager = page.getByRole('navigation', { name: 'Pages of the file' });
+  await expect(pager).toContainText('Rows 1–200 of 350 rows (page 1 of 2)');
+  await expect(page.getByText('1 problem — fix it in the file')).toBeVisible();
+  await expect(previewTable(page).locator('tbody tr')).toHaveCount(200);
+  await pager.getByRole('button', { name: '2', exact: true }).click();
+  await expect(pager).toContainText('Rows 201–350 of 350 rows (page 2 of 2)');
+  await expect(previewTable(page).locator('tbody tr')).toHaveCount(150);
+  await expect(page.getByText('Problem: "NOT A COLOUR"')).toBeVisible();
+  await page.screenshot({ path: 'test-results/screens/import-pages.png' });
+});

@@ -314,6 +314,41 @@ describe('large files', () => {
     }
   });
 
+  it('previews a page of lines at a time, with whole-file counts and the pages that hold problems', async () => {
+    const p1 = await createConnector(conversionId, 'P1', 'ecu', 1);
+    const lines = Array.from(
+      { length: 350 },
+      (_, i) => `${i + 1},Pin ${i + 1},${i === 299 ? 'NOT A COLOUR' : 'BK'}`,
+    );
+    const file = ['cavity,function,colour', ...lines].join('\n') + '\n';
+    const page = (n?: number) =>
+      request(ctx.app)
+        .post(`${intoConnector(p1)}?dryRun=1${n === undefined ? '' : `&page=${n}`}`)
+        .set('Authorization', builder)
+        .attach('file', Buffer.from(file), { filename: 'long.csv', contentType: 'text/csv' });
+
+    const first = await page();
+    expect(first.status).toBe(200);
+    const body = first.body as ImportResult;
+    expect(body.rows).toBe(350);
+    expect(body.errorCount).toBe(1);
+    expect(body.page).toEqual({ number: 1, count: 2, size: 200, withProblems: [2] });
+    expect(body.table!.map((r) => r.row)).toEqual(Array.from({ length: 200 }, (_, i) => i + 2));
+    expect(body.errors).toEqual([]); // the one problem is on page 2
+    expect(body.summary.added + body.summary.changed).toBe(349);
+    expect(body.changes.every((c) => c.kind === 'remove' || (c.row >= 2 && c.row <= 201))).toBe(
+      true,
+    );
+
+    const second = (await page(2)).body as ImportResult;
+    expect(second.table![0]!.row).toBe(202);
+    expect(second.errors).toEqual([expect.objectContaining({ row: 301, column: 'colour' })]);
+    const last = (await page(99)).body as ImportResult;
+    expect(last.page!.number).toBe(2);
+    expect(last.table).toHaveLength(150);
+    expect((await page(0)).status).toBe(400);
+  });
+
   it('takes 20,000 pin rows and answers 413 too_many_rows to 20,001, writing nothing', async () => {
     const file = (rows: number) =>
       ['connector,cavity,function']

@@ -13,13 +13,14 @@ function mappingField(req: Request): unknown {
 }
 
 async function runImport(req: Request, res: Response, target: ImportTarget) {
-  const { dryRun } = parsedQuery<ImportQuery>(req);
+  const { dryRun, page } = parsedQuery<ImportQuery>(req);
   const result = await importPinout(
     actorOf(req),
     target,
     uploadedFile(req),
     mappingField(req),
     dryRun,
+    page,
   );
   res.json(result);
 }

@@ -3,6 +3,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import {
   MAX_IMPORT_ERRORS_LISTED,
   MAX_IMPORT_ROWS,
+  PREVIEW_PAGE_ROWS,
   type ColumnTarget,
   type ImportField,
   type ImportIssue,
@@ -42,8 +43,6 @@ export type ImportTarget =
 
 /** Rows written per statement: short statements keep the write lock short (SQLite section). */
 const CHUNK = 500;
-/** Rows of the file sent back with a preview, besides every row that has a problem. */
-const PREVIEW_ROWS = 1000;
 
 function chunks<T>(items: readonly T[], size = CHUNK): T[][] {
   const out: T[][] = [];
@@ -260,13 +259,10 @@ function buildResult(
   plan: Plan | null,
   dryRun: boolean,
   previous: ImportResult['previousImport'],
+  pageNumber = 1,
 ): ImportResult {
   const errors = [...checked.errors, ...(plan?.errors ?? [])].sort(byRow);
-  const errorRows = new Set(errors.map((e) => e.row));
-  const table = dryRun
-    ? checked.table.filter((r, i) => i < PREVIEW_ROWS || errorRows.has(r.row))
-    : undefined;
-  return {
+  const result: ImportResult = {
     dryRun,
     rows: checked.dataRows,
     imported: 0,
@@ -285,13 +281,48 @@ function buildResult(
       connectorId: where.connectorId,
       label: where.label,
     },
-    ...(table ? { table, tableTruncated: table.length < checked.table.length } : {}),
+  };
+  return dryRun ? onePage(result, checked, errors, pageNumber) : result;
+}
+
+/**
+ * A preview cut to one page of the file's lines: a 20,000-line file previewed whole was megabytes
+ * of JSON that the browser then had to lay out. The counts and the summary stay whole.
+ */
+function onePage(
+  result: ImportResult,
+  checked: Checked,
+  errors: ImportIssue[],
+  pageNumber: number,
+): ImportResult {
+  const size = PREVIEW_PAGE_ROWS;
+  const count = Math.max(1, Math.ceil(checked.table.length / size));
+  const number = Math.min(pageNumber, count);
+  const table = checked.table.slice((number - 1) * size, number * size);
+  const pageOf = new Map(checked.table.map((r, i) => [r.row, Math.floor(i / size) + 1]));
+  const onThisPage = (row: number | null) => row !== null && pageOf.get(row) === number;
+  // Problems of no line of the table (the file, its header) are shown on every page.
+  const pageErrors = errors.filter(
+    (e) => e.row === null || !pageOf.has(e.row) || onThisPage(e.row),
+  );
+  const withProblems = [
+    ...new Set(errors.map((e) => (e.row === null ? undefined : pageOf.get(e.row)))),
+  ]
+    .filter((p): p is number => p !== undefined)
+    .sort((a, b) => a - b)
+    .slice(0, 100);
+  return {
+    ...result,
+    errors: pageErrors.slice(0, MAX_IMPORT_ERRORS_LISTED),
+    changes: result.changes.filter((c) => c.kind === 'remove' || onThisPage(c.row)),
+    table,
+    page: { number, count, size, withProblems },
   };
 }
 
 function refused(result: ImportResult): AppError {
   const n = result.errorCount;
-  const { table: _table, tableTruncated: _truncated, ...details } = result;
+  const { table: _table, page: _page, ...details } = result;
   return new AppError(
     422,
     'import_refused',
@@ -408,6 +439,7 @@ export async function importPinout(
   file: UploadedFile,
   mappingField: unknown,
   dryRun: boolean,
+  page = 1,
 ): Promise<ImportResult> {
   const given = parseMappingField(mappingField);
   const where = await locate(actor, target);
@@ -430,7 +462,7 @@ export async function importPinout(
       `This same file (SHA-256 ${checked.sha256.slice(0, 12)}…) was imported here on ${previous.at.slice(0, 10)}${previous.by ? ` by ${previous.by}` : ''}. Importing it again changes only what differs now.`,
     );
   }
-  const preview = buildResult(where, checked, plan, dryRun, previous);
+  const preview = buildResult(where, checked, plan, dryRun, previous, page);
   if (dryRun) return preview;
   if (preview.errorCount > 0 || !plan) throw refused(preview);
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { cellKey, indexPreview, visibleRows } from '../../../src/features/imports/lib/preview.ts';
+import { cellKey, indexPreview } from '../../../src/features/imports/lib/preview.ts';
 
 describe('placing preview problems', () => {
   const result = {
@@ -26,11 +26,5 @@ describe('placing preview problems', () => {
     expect(index.line.get(7)).toEqual(['wrong width']);
     expect([...index.problemRows]).toEqual([5, 7]);
     expect(index.change.get(3)?.kind).toBe('add');
-  });
-
-  it('shows every line with a problem even past the first lines', () => {
-    const index = indexPreview(result);
-    const rows = [2, 3, 4, 5, 6, 7].map((row) => ({ row }));
-    expect(visibleRows(rows, index, 2).map((r) => r.row)).toEqual([2, 3, 5, 7]);
   });
 });

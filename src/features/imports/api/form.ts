@@ -4,6 +4,8 @@ export interface ImportInput {
   file: File;
   /** The column choices to use; the server picks (saved or by header name) when omitted. */
   mapping?: ColumnMapping[];
+  /** Preview only: which page of the file's lines to show, from 1. */
+  page?: number;
 }
 
 /** The multipart body: the file in `file`, the choices as JSON {header: field} in `mapping`. */

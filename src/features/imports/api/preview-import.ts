@@ -5,9 +5,15 @@ import { importUrl, type ImportTarget } from '../lib/import-target.ts';
 import { importForm, type ImportInput } from './form.ts';
 import { importKeys } from './keys.ts';
 
-/** POST …/import?dryRun=1: what the file holds and would change; nothing is written. */
+/**
+ * POST …/import?dryRun=1: what the file holds and would change, one page of its lines at a time;
+ * nothing is written.
+ */
 export const previewImport = (target: ImportTarget, input: ImportInput) =>
-  api.post<ImportResult>(importUrl(target, true), importForm(input));
+  api.post<ImportResult>(
+    `${importUrl(target, true)}${input.page && input.page > 1 ? `&page=${input.page}` : ''}`,
+    importForm(input),
+  );
 
 export function usePreviewImport(target: ImportTarget) {
   return useMutation({

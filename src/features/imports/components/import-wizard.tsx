@@ -9,7 +9,7 @@ import { usePreviewImport } from '../api/preview-import.ts';
 import { targetName, type ImportTarget } from '../lib/import-target.ts';
 import { indexPreview, plural } from '../lib/preview.ts';
 import { ChangeList } from './change-list.tsx';
-import { PreviewTable } from './preview-table.tsx';
+import { PreviewPager, PreviewTable } from './preview-table.tsx';
 
 const SOURCE_WORDS: Record<ImportResult['mappingSource'], string> = {
   detected: 'Columns were matched by their headers.',
@@ -50,10 +50,10 @@ export function ImportWizard({
   const index = useMemo(() => (shown ? indexPreview(shown) : null), [shown]);
   const mappingChanged = result ? !sameMapping(mapping, result.mapping) : false;
 
-  function check(next: File, choices?: ColumnMapping[]) {
+  function check(next: File, choices?: ColumnMapping[], page = 1) {
     apply.reset();
     preview.mutate(
-      { file: next, mapping: choices },
+      { file: next, mapping: choices, page },
       {
         onSuccess: (r) => {
           setResult(r);
@@ -197,6 +197,14 @@ export function ImportWizard({
                 Check again with these columns
               </Button>
             </div>
+          ) : null}
+          {result?.page ? (
+            <PreviewPager
+              page={result.page}
+              lines={result.rows}
+              busy={preview.isPending}
+              onPage={(page) => file && check(file, result.mapping, page)}
+            />
           ) : null}
           {result?.table ? (
             <PreviewTable

@@ -1,4 +1,3 @@
-import { useState } from 'react';
 import {
   COLUMN_TARGETS,
   IGNORE,
@@ -6,11 +5,10 @@ import {
   type ColumnMapping,
   type ColumnTarget,
   type ImportChange,
+  type PreviewPage,
 } from '#shared/schemas/imports.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
-import { cellKey, plural, visibleRows, type PreviewIndex } from '../lib/preview.ts';
-
-const FIRST_ROWS = 200;
+import { cellKey, plural, type PreviewIndex } from '../lib/preview.ts';
 
 function targetLabel(target: ColumnTarget): string {
   return target === IGNORE ? 'Not imported' : (IMPORT_FIELD_LABELS[target] ?? target);
@@ -75,7 +73,63 @@ function ChangeCell({
 }
 
 /**
- * The file as read: one column per file column, a choice of field under each header, and every
+ * Which page of the file's lines the preview shows, the way to the others, and straight to the
+ * pages that hold problems.
+ */
+export function PreviewPager({
+  page,
+  lines,
+  busy,
+  onPage,
+}: {
+  page: PreviewPage;
+  /** Lines of the file (data rows). */
+  lines: number;
+  busy?: boolean;
+  onPage: (page: number) => void;
+}) {
+  if (page.count <= 1) return null;
+  const first = (page.number - 1) * page.size + 1;
+  const last = Math.min(page.number * page.size, lines);
+  const problemPages = page.withProblems.filter((p) => p !== page.number);
+  return (
+    <nav
+      aria-label="Pages of the file"
+      className="flex flex-wrap items-center gap-x-3 gap-y-2 text-sm text-ink-soft"
+    >
+      <span>
+        Rows {first.toLocaleString('en')}–{last.toLocaleString('en')} of {plural(lines, 'row')}{' '}
+        (page {page.number} of {page.count})
+      </span>
+      <Button size="sm" disabled={busy || page.number <= 1} onClick={() => onPage(page.number - 1)}>
+        Previous page
+      </Button>
+      <Button
+        size="sm"
+        disabled={busy || page.number >= page.count}
+        onClick={() => onPage(page.number + 1)}
+      >
+        Next page
+      </Button>
+      {problemPages.length ? (
+        <span className="flex flex-wrap items-center gap-1.5">
+          <span className="text-fault">
+            <span aria-hidden>✕ </span>Problems also on page{problemPages.length === 1 ? '' : 's'}
+          </span>
+          {problemPages.slice(0, 12).map((p) => (
+            <Button key={p} size="sm" variant="quiet" disabled={busy} onClick={() => onPage(p)}>
+              {p}
+            </Button>
+          ))}
+          {problemPages.length > 12 ? <span>and {problemPages.length - 12} more</span> : null}
+        </span>
+      ) : null}
+    </nav>
+  );
+}
+
+/**
+ * The file as read (one page of its lines): one column per file column, a choice of field under each header, and every
  * problem shown in its own cell (or on its line when it belongs to the whole line).
  */
 export function PreviewTable({
@@ -94,9 +148,7 @@ export function PreviewTable({
   onMappingChange: (column: number, target: ColumnTarget) => void;
   disabled?: boolean;
 }) {
-  const [showAll, setShowAll] = useState(false);
-  const rows = showAll ? table : visibleRows(table, index, FIRST_ROWS);
-  const hidden = table.length - rows.length;
+  const rows = table;
 
   return (
     <div>
@@ -192,14 +244,6 @@ export function PreviewTable({
           </tbody>
         </table>
       </div>
-      {hidden > 0 ? (
-        <p className="mt-2 flex items-center gap-3 text-sm text-ink-soft">
-          {plural(hidden, 'more line')} without problems not shown.
-          <Button size="sm" variant="quiet" onClick={() => setShowAll(true)}>
-            Show every line
-          </Button>
-        </p>
-      ) : null}
     </div>
   );
 }

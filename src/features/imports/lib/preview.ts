@@ -46,15 +46,6 @@ export function indexPreview(
   return index;
 }
 
-/** Lines shown first: every line with a problem, then the rest in file order up to `limit`. */
-export function visibleRows<T extends { row: number }>(
-  rows: readonly T[],
-  index: PreviewIndex,
-  limit: number,
-): T[] {
-  return rows.filter((r, i) => i < limit || index.problemRows.has(r.row));
-}
-
 export function plural(n: number, one: string, many = `${one}s`): string {
   return `${n.toLocaleString('en')} ${n === 1 ? one : many}`;
 }
