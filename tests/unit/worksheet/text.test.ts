@@ -67,22 +67,37 @@ describe('TextKit', () => {
 });
 
 describe('visualOrder', () => {
+  // Arabic words from the worksheet tests: pump, fuel.
+  const pump = 'مضخة';
+  const fuel = 'الوقود';
+
   it('reverses a run of right-to-left words inside left-to-right text', () => {
     const order = visualOrder(
-      [
-        piece('See ', 'L'),
-        piece('one', 'R'),
-        piece(' ', 'N'),
-        piece('two', 'R'),
-        piece(' now', 'L'),
-      ],
+      [piece('See ', 'L'), piece(pump, 'R'), piece(' ', 'N'), piece(fuel, 'R'), piece(' now', 'L')],
       false,
     );
-    expect(order.map((p) => p.text)).toEqual(['See ', 'two', ' ', 'one', ' now']);
+    expect(order.map((p) => p.text)).toEqual(['See ', fuel, ' ', pump, ' now']);
   });
 
   it('lays a right-to-left paragraph out from the right, keeping numbers in their place', () => {
-    const order = visualOrder([piece('one', 'R'), piece(' 12 ', 'N'), piece('two', 'R')], true);
-    expect(order.map((p) => p.text)).toEqual(['two', ' 12 ', 'one']);
+    // The spaces take the paragraph's direction and the number its own, so the piece is cut.
+    const order = visualOrder([piece(pump, 'R'), piece(' 12 ', 'N'), piece(fuel, 'R')], true);
+    expect(order.map((p) => p.text)).toEqual([fuel, ' ', '12', ' ', pump]);
+  });
+
+  it('keeps a number that follows a right-to-left word with it, cutting the piece it sits in', () => {
+    // UAX #9 W2 and N1: "12" after an Arabic word is read as part of the right-to-left run, so it
+    // is printed to the left of the word; the space before "now" stays with the left-to-right text.
+    const order = visualOrder([piece('See ', 'L'), piece(pump, 'R'), piece(' 12 now', 'L')], false);
+    expect(order.map((p) => p.text)).toEqual(['See ', '12', ' ', pump, ' now']);
+  });
+
+  it('mirrors brackets that fall inside a right-to-left run', () => {
+    // "pump (fuel)" read from the right: the closing bracket is printed leftmost, as "(".
+    const order = visualOrder(
+      [piece(pump, 'R'), piece(' (', 'N'), piece(fuel, 'R'), piece(')', 'N')],
+      true,
+    );
+    expect(order.map((p) => p.text)).toEqual(['(', fuel, ') ', pump]);
   });
 });

@@ -3,9 +3,13 @@
  * forever when a word is wider than the box or x/width leave the margins (pdfkit #262, #477, #1018),
  * and it has no font fallback. Here every string is cleaned and capped, split into runs by the face
  * that has its glyphs, wrapped at spaces (and inside words too long for the box), put in visual order
- * for right-to-left runs, and drawn one line at a time with `lineBreak: false`.
+ * by the Unicode bidirectional algorithm (bidi-js) where right-to-left text is mixed in, and drawn
+ * one line at a time with `lineBreak: false`.
  */
+import bidiFactory from 'bidi-js';
 import { faceCoverage, type Face } from './fonts.ts';
+
+const bidi = bidiFactory();
 
 export interface TextStyle {
   face: Face;
@@ -355,7 +359,7 @@ export class TextKit {
       clusters.push(...w.clusters);
     }
     const logical = this.piecesOf(clusters, size);
-    const pieces = visualOrder(logical, rtl);
+    const pieces = visualOrder(logical, rtl, (p) => this.width(p.face, size, p.text));
     return { pieces, width: pieces.reduce((s, p) => s + p.width, 0), rtl };
   }
 
@@ -411,47 +415,72 @@ export function baselineOf(top: number, style: TextStyle): number {
   return top + style.size * (LINE_HEIGHT - 0.25) + style.size * 0.02;
 }
 
-/** The paragraph's direction is that of its first strong (letter) character. */
+/** The paragraph's direction, by the bidi algorithm's rules P2 and P3 (its first strong character). */
 function paragraphIsRtl(text: string): boolean {
-  for (const ch of text) {
-    const cp = ch.codePointAt(0)!;
-    if (isRtl(cp) && LETTER.test(ch)) return true;
-    if (LETTER.test(ch)) return false;
-  }
+  if (!hasRtl(text)) return false;
+  return bidi.getEmbeddingLevels(text, 'auto').paragraphs[0]?.level === 1;
+}
+
+/** Most lines hold no right-to-left character; they skip the bidi algorithm, which changes nothing. */
+function hasRtl(text: string): boolean {
+  for (const ch of text) if (isRtl(ch.codePointAt(0)!)) return true;
   return false;
 }
 
 /**
- * A reduced Unicode bidi (UAX #9 rules N1/N2 and L2) at the level of pieces: left-to-right pieces
- * at level 0 (2 inside a right-to-left paragraph), right-to-left at 1, neutrals take the direction
- * around them when both sides agree, else the paragraph's; then runs are reversed from the highest
- * level down. A right-to-left piece's own glyphs are reversed by fontkit when it is drawn.
+ * The pieces of one line in visual order, left to right, by the Unicode bidirectional algorithm
+ * (UAX #9, bidi-js): embedding levels for the line's text, then the runs reversed (rule L2). A piece
+ * whose characters resolve to different levels (a number after a right-to-left word, say) is first
+ * cut where the level changes, each part measured again with `measure`. A right-to-left word keeps
+ * its logical order, as fontkit reverses its glyphs when it is drawn; any other part that ends up
+ * right-to-left (brackets, spaces, punctuation in a right-to-left run) has its characters reversed
+ * and mirrored here (rule L4), since it is drawn left to right.
  */
-export function visualOrder(pieces: Piece[], rtl: boolean): Piece[] {
-  const base = rtl ? 1 : 0;
-  const levelOf = (dir: Dir) => (dir === 'R' ? 1 : rtl ? 2 : 0);
-  const strong = pieces.map((p) => (p.dir === 'N' ? null : p.dir));
-  const levels = pieces.map((p, i) => {
-    if (p.dir !== 'N') return levelOf(p.dir);
-    let before: Dir | null = null;
-    for (let j = i - 1; j >= 0 && !before; j--) before = strong[j] ?? null;
-    let after: Dir | null = null;
-    for (let j = i + 1; j < pieces.length && !after; j++) after = strong[j] ?? null;
-    return before && before === after ? levelOf(before) : base;
-  });
-  const max = Math.max(0, ...levels);
-  const order = pieces.map((_, i) => i);
-  for (let level = max; level >= 1; level--) {
-    for (let i = 0; i < order.length;) {
-      if (levels[order[i]!]! < level) {
-        i++;
-        continue;
-      }
-      let j = i;
-      while (j < order.length && levels[order[j]!]! >= level) j++;
-      order.splice(i, j - i, ...order.slice(i, j).reverse());
-      i = j;
-    }
+export function visualOrder(
+  pieces: Piece[],
+  rtl: boolean,
+  measure: (piece: Piece) => number = (piece) => piece.width,
+): Piece[] {
+  const text = pieces.map((p) => p.text).join('');
+  if (text === '' || (!rtl && !hasRtl(text))) return pieces;
+  const embedding = bidi.getEmbeddingLevels(text, rtl ? 'rtl' : 'ltr');
+  const { levels } = embedding;
+
+  // Visual position of each UTF-16 unit of the line.
+  const order = Array.from({ length: text.length }, (_, i) => i);
+  for (const segment of bidi.getReorderSegments(text, embedding)) {
+    const [start, end] = segment as [number, number];
+    order.splice(start, end - start + 1, ...order.slice(start, end + 1).reverse());
   }
-  return order.map((i) => pieces[i]!);
+  const position = new Array<number>(text.length);
+  order.forEach((logical, visual) => (position[logical] = visual));
+
+  const parts: Array<{ piece: Piece; at: number }> = [];
+  let offset = 0;
+  for (const piece of pieces) {
+    let start = 0;
+    const units = piece.text.length;
+    for (let i = 1; i <= units; i++) {
+      if (i < units && levels[offset + i] === levels[offset + start]) continue;
+      // A surrogate pair's halves share a level, so a cut never falls inside one.
+      const slice = piece.text.slice(start, i);
+      const odd = (levels[offset + start]! & 1) === 1;
+      let part: Piece =
+        start === 0 && i === units ? piece : { ...piece, text: slice, space: slice.trim() === '' };
+      if (odd && piece.dir !== 'R') {
+        const mirrored = Array.from(slice)
+          .reverse()
+          .map((ch) => bidi.getMirroredCharacter(ch) ?? ch)
+          .join('');
+        part = { ...part, text: mirrored };
+      }
+      if (part !== piece) part.width = measure(part);
+      let at = Infinity;
+      for (let u = start; u < i; u++) at = Math.min(at, position[offset + u]!);
+      parts.push({ piece: part, at });
+      start = i;
+    }
+    offset += units;
+  }
+  return parts.sort((a, b) => a.at - b.at).map((p) => p.piece);
 }

@@ -12,6 +12,7 @@ import type { SnapshotFeed } from '#shared/schemas/snapshot.schema.ts';
 import { CUT_LIST_RULES, formatMetres, type CutList } from '../cut-list.ts';
 import { pinName, type PlanIndex } from '../plan.ts';
 import type { Sheet } from '../sheet.ts';
+import { drawPlainTable } from '../plain-table.ts';
 import { drawTable, type Row } from '../table.ts';
 import { BODY, bullet, flow, heading, SMALL, swatchLead } from './common.ts';
 
@@ -98,24 +99,18 @@ export async function drawCutList(sheet: Sheet, index: PlanIndex, cut: CutList):
 
   sheet.y += 10;
   const { parts } = cut;
-  await drawTable(sheet, {
-    continued: 'Parts',
+  drawPlainTable(sheet, {
     columns: [
-      { title: 'Parts to have ready', flex: 1 },
-      { title: 'Count', width: 50, align: 'right' },
+      { title: 'Parts to have ready' },
+      { title: 'Count', width: 50, align: 'right', face: 'monoBold' },
     ],
     rows: [
       ['Splices (sealed butt or multi-wire)', parts.splices],
       ['Terminals (cavity, ring or blade, to suit each end)', parts.terminals],
       ['End caps or heat-shrink for cut-and-insulated wires', parts.endCaps],
       ['Seal plugs for de-pinned cavities (sealed housings)', parts.sealPlugs],
-    ].map(([label, count]) => ({
-      cells: [
-        { text: String(label) },
-        { text: String(count), align: 'right', style: { face: 'monoBold' } },
-      ],
-    })),
-    minRowHeight: 16,
+    ].map(([label, count]) => [String(label), String(count)]),
+    rowHeight: 16,
   });
 
   sheet.y += 8;
