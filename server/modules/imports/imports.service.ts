@@ -35,7 +35,13 @@ import {
 import { findConnectorInWorkshop } from '../pin-map/connectors.service.ts';
 import { decodeUtf8, DELIMITER_NAMES, readCsv } from './csv-text.ts';
 import { headerSignature, parseMappingField, resolveMapping } from './mapping.ts';
-import { planImport, type Plan, type PlanContext, type PinData } from './plan.ts';
+import {
+  planImport,
+  planImportYielding,
+  type Plan,
+  type PlanContext,
+  type PinData,
+} from './plan.ts';
 import { parseRowsYielding, type PinRow } from './rows.ts';
 
 export type ImportTarget =
@@ -448,7 +454,7 @@ export async function importPinout(
   // worked out here is still the plan, and is not worked out again.
   const counter = await conversionChangeCounter(actor, where.conversionId);
   const plan = checked.rows.length
-    ? planImport(
+    ? await planImportYielding(
         await loadContext(where),
         checked.rows,
         checked.mentioned,
