@@ -33,32 +33,98 @@ export interface WireColour {
 const isCode = (s: string): s is ColourCode => s in IEC_60757_COLOURS;
 
 export type ColourParse =
-  { ok: true; value: string; colour: WireColour } | { ok: false; error: string };
+  { ok: true; value: string; colour: WireColour; note?: string } | { ok: false; error: string };
 
 /**
- * Reads a colour as typed or imported ("bu/wh", "BU-WH", "BU WH", "GNYE") into the canonical form
- * "BU/WH". An empty string is "no colour recorded".
+ * Spellings met in service literature and on wiring sheets, read as IEC 60757 codes (common
+ * practice, no source). IEC 60757 has no light or dark shades: "LT GRN" is stored as GN and the
+ * parse says so.
+ */
+const COLOUR_ALIASES: Readonly<Record<string, ColourCode>> = {
+  BLK: 'BK',
+  BLACK: 'BK',
+  BRN: 'BN',
+  BROWN: 'BN',
+  RED: 'RD',
+  ORN: 'OG',
+  ORG: 'OG',
+  ORANGE: 'OG',
+  YEL: 'YE',
+  YLW: 'YE',
+  YELLOW: 'YE',
+  GRN: 'GN',
+  GREEN: 'GN',
+  BLU: 'BU',
+  BLUE: 'BU',
+  VIO: 'VT',
+  VIOLET: 'VT',
+  PPL: 'VT',
+  PUR: 'VT',
+  PURPLE: 'VT',
+  GRY: 'GY',
+  GRA: 'GY',
+  GREY: 'GY',
+  GRAY: 'GY',
+  WHT: 'WH',
+  WHITE: 'WH',
+  PNK: 'PK',
+  PINK: 'PK',
+  TRQ: 'TQ',
+  TURQUOISE: 'TQ',
+  GOLD: 'GD',
+  SIL: 'SR',
+  SILVER: 'SR',
+};
+
+/** A shade prefix ("LT", "DK") read off a colour word, with the word left. */
+const SHADE = /^(LT|DK)(?=[A-Z]{2,})/;
+
+function readColourWord(word: string): { code: ColourCode; shade: string | null } | null {
+  const shade = SHADE.exec(word)?.[1] ?? null;
+  const bare = shade ? word.slice(shade.length) : word;
+  const code = isCode(bare) ? bare : (COLOUR_ALIASES[bare] ?? null);
+  if (code === null) return null;
+  return { code, shade: shade === 'LT' ? 'light' : shade === 'DK' ? 'dark' : null };
+}
+
+/**
+ * Reads a colour as typed or imported into the canonical form "BU/WH": IEC 60757 codes ("bu/wh",
+ * "BU-WH", "BU WH") or the common English abbreviations ("BLU/WHT", "LT GRN"). "GN/YE" is green
+ * with a yellow stripe, an ordinary vehicle wire; only "GNYE" typed as one word is IEC 60757's
+ * green-yellow. An empty string is "no colour recorded".
  */
 export function parseWireColour(input: string): ColourParse {
-  const text = input.trim().toUpperCase();
-  if (text === GREEN_YELLOW || text === 'GN/YE' || text === 'GN-YE') {
+  const text = input
+    .trim()
+    .toUpperCase()
+    .replace(/\bLIGHT\s+/g, 'LT')
+    .replace(/\bDARK\s+/g, 'DK')
+    .replace(/\b(LT|DK)[.\s]+(?=[A-Z])/g, '$1');
+  if (text === GREEN_YELLOW) {
     return { ok: true, value: GREEN_YELLOW, colour: { base: GREEN_YELLOW, stripe: null } };
   }
   const parts = text.split(/\s*[/\-\s]\s*/).filter(Boolean);
-  const allowed = `use IEC 60757 codes (${COLOUR_CODES.join(', ')}), a base and an optional stripe like BU/WH`;
+  const allowed = `use IEC 60757 codes (${COLOUR_CODES.join(', ')}) or common abbreviations (BLK, BLU, WHT…), a base and an optional stripe like BU/WH`;
   if (parts.length === 0 || parts.length > 2)
     return { ok: false, error: `"${input}" is not a wire colour: ${allowed}` };
-  const [base, stripe] = parts as [string, string | undefined];
-  if (!isCode(base))
-    return { ok: false, error: `"${base}" is not an IEC 60757 colour code: ${allowed}` };
-  if (stripe !== undefined && !isCode(stripe)) {
-    return { ok: false, error: `"${stripe}" is not an IEC 60757 colour code: ${allowed}` };
+  const [baseWord, stripeWord] = parts as [string, string | undefined];
+  const base = readColourWord(baseWord);
+  if (!base) return { ok: false, error: `"${baseWord}" is not a wire colour: ${allowed}` };
+  const stripe = stripeWord === undefined ? null : readColourWord(stripeWord);
+  if (stripeWord !== undefined && !stripe) {
+    return { ok: false, error: `"${stripeWord}" is not a wire colour: ${allowed}` };
   }
-  if (stripe === base) return { ok: false, error: `a ${base} wire cannot have a ${base} stripe` };
+  if (stripe && stripe.code === base.code)
+    return { ok: false, error: `a ${base.code} wire cannot have a ${base.code} stripe` };
+  const shaded = [base, stripe].filter((c) => c?.shade);
+  const note = shaded.length
+    ? `IEC 60757 has no ${shaded.map((c) => `${c!.shade} ${IEC_60757_COLOURS[c!.code].name}`).join(' or ')}: stored as ${shaded.map((c) => c!.code).join(', ')}; say the shade in the notes if it matters.`
+    : undefined;
   return {
     ok: true,
-    value: stripe ? `${base}/${stripe}` : base,
-    colour: { base, stripe: stripe ?? null },
+    value: stripe ? `${base.code}/${stripe.code}` : base.code,
+    colour: { base: base.code, stripe: stripe?.code ?? null },
+    ...(note ? { note } : {}),
   };
 }
 

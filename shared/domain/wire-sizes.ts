@@ -18,6 +18,13 @@ export const AWG_GAUGES = [
   24, 25, 26, 27, 28, 29, 30,
 ] as const;
 export const AWG_MIN = -3;
+
+/**
+ * The AWG sizes automotive cable is sold in, thinnest first: even gauges 22 … 2, then 1, 1/0, 2/0,
+ * 3/0 and 4/0 (common practice, no source). Suggestions only ever name these; odd gauges can still
+ * be recorded for a wire that is already there.
+ */
+export const SOLD_AWG_GAUGES = [22, 20, 18, 16, 14, 12, 10, 8, 6, 4, 2, 1, 0, -1, -2, -3] as const;
 export const AWG_MAX = 30;
 
 /** ASTM B258: d = 0.127 mm × 92^((36 − n)/39). */
@@ -111,16 +118,20 @@ function trimNumber(n: number): string {
   return String(Number(n.toFixed(n < 1 ? 3 : 2)));
 }
 
-/** A stored size as the workshop reads it: "0.75 mm²", "18 AWG", "≈17 AWG" for a metric size. */
+/**
+ * A stored size as the workshop reads it, always exactly: "0.75 mm²", "18 AWG". A metric size in
+ * an AWG workshop keeps its own label ("1 mm²"), never a nearest "≈" gauge that no one sells; an
+ * AWG size in a metric workshop shows its area ("0.823 mm²").
+ */
 export function formatWireSize(areaMm2: number | null | undefined, unit: SizeUnit): string {
   if (areaMm2 == null) return '';
+  const gauge = exactAwg(areaMm2);
+  const iso = exactIsoSize(areaMm2);
   if (unit === 'awg') {
-    const exact = exactAwg(areaMm2);
-    return exact !== null
-      ? `${formatAwgGauge(exact)} AWG`
-      : `≈${formatAwgGauge(nearestAwg(areaMm2))} AWG`;
+    if (gauge !== null) return `${formatAwgGauge(gauge)} AWG`;
+    return `${trimNumber(iso ?? areaMm2)} mm²`;
   }
-  return `${trimNumber(exactIsoSize(areaMm2) ?? areaMm2)} mm²`;
+  return `${trimNumber(iso ?? areaMm2)} mm²`;
 }
 
 /**

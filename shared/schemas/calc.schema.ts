@@ -5,7 +5,7 @@ import {
   isAwgGauge,
   parseAwgGauge,
 } from '../domain/wire-sizes.ts';
-import { RETURN_PATHS, WIRE_ZONES } from './feeds.schema.ts';
+import { FUSE_TYPES, RETURN_PATHS, WIRE_ZONES } from './feeds.schema.ts';
 import { InsulationRatingSchema } from './pin-map.schema.ts';
 
 /**
@@ -62,7 +62,17 @@ export const CalcRequest = z
     sizeMm2: CalcSizeMm2Schema.optional(),
     awg: CalcAwgSchema.optional(),
     returnPath: z.enum(RETURN_PATHS),
-    conductorTempC: z.number().min(-40).max(200).default(20),
+    /**
+     * Air around the wire, °C. Not given: the ambient Table 5 assumes for the zone (30 °C outside
+     * the engine bay, 50 °C in it), as the checks take it.
+     */
+    ambientC: z.number().min(-40).max(150).optional(),
+    /** Conductor temperature, °C, when measured; not given, it is estimated from the load. */
+    conductorTempC: z.number().min(-40).max(250).optional(),
+    /** For an AWG size: work resistance from the SAE J1128 minimum area (default) or the nominal. */
+    awgAreaBasis: z.enum(['sae-j1128-min', 'astm-b258-nominal']).default('sae-j1128-min'),
+    /** The fuse's family, for the ratings a recommendation picks from. */
+    fuseType: z.enum(FUSE_TYPES).default('standard_blade'),
     insulationRatingC: InsulationRatingSchema.unwrap().default(105),
     zone: z.enum(WIRE_ZONES).default('cabin'),
     /**

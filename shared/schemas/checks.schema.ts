@@ -17,6 +17,9 @@ export const CHECK_RULES = [
   'sensor_ground_extra_ground',
   'undecided_pins',
   'destination_used_twice',
+  'fuse_placement',
+  'relay_coil_driver',
+  'ecu_output_overload',
 ] as const;
 export type CheckRule = (typeof CHECK_RULES)[number];
 

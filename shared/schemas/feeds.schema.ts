@@ -1,6 +1,10 @@
 import { z } from 'zod';
 import { IdParam, noteText, optionalText, requiredText } from './common.schema.ts';
+import { FUSE_TYPES, type FuseType } from '../domain/electrical/fuses.ts';
+import { LOAD_KINDS, type LoadKind } from '../domain/electrical/relays.ts';
 import { InsulationRatingSchema, WireColourSchema, WireSizeMm2Schema } from './pin-map.schema.ts';
+
+export { FUSE_TYPES, LOAD_KINDS, type FuseType, type LoadKind };
 
 /** Where a new feed takes its power from. */
 export const FEED_SOURCES = ['battery', 'ignition', 'relay_output'] as const;
@@ -43,12 +47,16 @@ export const FeedWire = z.strictObject({
   bundled: z.number().int().min(1).max(100),
   returnPath: z.enum(RETURN_PATHS),
   colour: WireColourSchema,
+  /** Crimped terminals and splices along the run, for the drop budget (4 when not given). */
+  connections: z.number().int().min(0).max(50).optional(),
 });
 export type FeedWire = z.infer<typeof FeedWire>;
 
 export const FeedRelay = z.strictObject({
   contactRatingA: z.number().positive().max(200),
   coilCurrentA: z.number().min(0).max(5),
+  /** Coil resistance, Ω: when given, the coil current is worked from it (I = V / R). */
+  coilResistanceOhm: z.number().positive().max(100_000).nullable().optional(),
   /** The pin of the map that drives the relay's coil (usually switching its ground side). */
   coilPinId: z.number().int().positive().nullable(),
 });
@@ -60,6 +68,8 @@ export const FeedLoad = z.strictObject({
   name: optionalText(80),
   currentA: z.number().min(0).max(200),
   continuous: z.boolean(),
+  /** What the load is, for its relay's inrush allowance (resistive when not given). */
+  kind: z.enum(LOAD_KINDS).optional(),
 });
 export type FeedLoad = z.infer<typeof FeedLoad>;
 
@@ -68,7 +78,13 @@ const feedShape = {
   source: z.enum(FEED_SOURCES),
   sourceFeedId: z.number().int().positive().nullable(),
   /** Null means no fuse: refused for battery and ignition feeds by the checks. */
-  fuseA: z.number().positive().max(200).nullable(),
+  fuseA: z.number().positive().max(500).nullable(),
+  /** The fuse's family (a standard blade when not given). */
+  fuseType: z.enum(FUSE_TYPES).optional(),
+  /** Wire between the source and the fuse, mm: 33 CFR 183.455(b) limits it. Null: not recorded. */
+  unfusedLengthMm: z.number().min(0).max(10_000).nullable().optional(),
+  /** The unfused length runs in a sheath or enclosure (the longer limit applies). */
+  fuseSheathed: z.boolean().optional(),
   relay: FeedRelay.nullable(),
   wire: FeedWire,
   loads: z.array(FeedLoad).max(50),
@@ -96,6 +112,9 @@ export const UpdateFeedRequest = z
     source: true,
     sourceFeedId: true,
     fuseA: true,
+    fuseType: true,
+    unfusedLengthMm: true,
+    fuseSheathed: true,
     relay: true,
     wire: true,
     loads: true,
@@ -116,6 +135,9 @@ export interface Feed {
   source: FeedSource;
   sourceFeedId: number | null;
   fuseA: number | null;
+  fuseType?: FuseType;
+  unfusedLengthMm?: number | null;
+  fuseSheathed?: boolean;
   relay: FeedRelay | null;
   wire: FeedWire;
   loads: Array<FeedLoad & { id: number }>;

@@ -11,6 +11,14 @@ export const SIZE_UNIT_LABELS: Record<SizeUnit, string> = { mm2: 'mm²', awg: 'A
 /** SAE J1128 insulation temperature ratings, °C: GPT 85, TWP 105, TXL/GXL/SXL 125. */
 export const INSULATION_RATINGS_C = [60, 75, 80, 85, 90, 105, 125, 200] as const;
 
+/** What each part of a feed may drop, volts (drop-budget.ts); each at most 2 V, a typo guard. */
+export const DropAllowancesSchema = z.strictObject({
+  fuseV: z.number().min(0).max(2),
+  relayContactsV: z.number().min(0).max(2),
+  perConnectionV: z.number().min(0).max(2),
+  chassisReturnV: z.number().min(0).max(2),
+});
+
 export const WorkshopSettings = z.object({
   id: z.number(),
   name: z.string(),
@@ -19,6 +27,7 @@ export const WorkshopSettings = z.object({
   systemVoltage: z.number(),
   defaultInsulationC: z.number(),
   serviceAllowancePct: z.number(),
+  dropAllowances: DropAllowancesSchema,
   version: z.number(),
 });
 export type WorkshopSettings = z.infer<typeof WorkshopSettings>;
@@ -35,6 +44,7 @@ export const UpdateWorkshopRequest = z.strictObject({
     })
     .optional(),
   serviceAllowancePct: z.number().min(0).max(100).optional(),
+  dropAllowances: DropAllowancesSchema.optional(),
   version: z.number().int().min(0),
 });
 export type UpdateWorkshopRequest = z.infer<typeof UpdateWorkshopRequest>;

@@ -9,6 +9,7 @@ import { bench } from './0006-bench.ts';
 import { benchItems } from './0007-bench-items.ts';
 import { seals } from './0008-seals.ts';
 import { changeCounters } from './0009-change-counters.ts';
+import { electricalRules } from './0010-electrical-rules.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -31,6 +32,7 @@ export const MIGRATIONS: Migration[] = [
   benchItems,
   seals,
   changeCounters,
+  electricalRules,
 ];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {

@@ -8,7 +8,14 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import type { DropClass, FeedSource, ReturnPath, WireZone } from '#shared/schemas/feeds.schema.ts';
+import type {
+  DropClass,
+  FeedSource,
+  FuseType,
+  LoadKind,
+  ReturnPath,
+  WireZone,
+} from '#shared/schemas/feeds.schema.ts';
 import type { Conversion } from './conversion.model.ts';
 
 /** A new fused feed: fuse, optional relay, the wire from the fuse to its loads. */
@@ -19,10 +26,14 @@ export class Feed extends Model<InferAttributes<Feed>, InferCreationAttributes<F
   declare source: FeedSource;
   declare sourceFeedId: number | null;
   declare fuseA: number | null;
+  declare fuseType: CreationOptional<FuseType>;
+  declare unfusedLengthMm: CreationOptional<number | null>;
+  declare fuseSheathed: CreationOptional<boolean>;
   declare hasRelay: boolean;
   declare relayContactRatingA: number | null;
   declare relayCoilCurrentA: number | null;
   declare relayCoilPinId: number | null;
+  declare relayCoilResistanceOhm: CreationOptional<number | null>;
   declare wireSizeMm2: number;
   declare wireInsulationRatingC: number;
   declare wireLengthM: number;
@@ -30,6 +41,7 @@ export class Feed extends Model<InferAttributes<Feed>, InferCreationAttributes<F
   declare wireBundled: number;
   declare wireReturnPath: ReturnPath;
   declare wireColour: string;
+  declare wireConnections: CreationOptional<number>;
   declare dropClass: DropClass;
   declare dropLimitPct: number | null;
   declare notes: CreationOptional<string>;
@@ -47,10 +59,14 @@ export class Feed extends Model<InferAttributes<Feed>, InferCreationAttributes<F
         source: { type: DataTypes.TEXT, allowNull: false },
         sourceFeedId: { type: DataTypes.INTEGER, allowNull: true },
         fuseA: { type: DataTypes.REAL, allowNull: true },
+        fuseType: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'standard_blade' },
+        unfusedLengthMm: { type: DataTypes.REAL, allowNull: true },
+        fuseSheathed: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         hasRelay: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         relayContactRatingA: { type: DataTypes.REAL, allowNull: true },
         relayCoilCurrentA: { type: DataTypes.REAL, allowNull: true },
         relayCoilPinId: { type: DataTypes.INTEGER, allowNull: true },
+        relayCoilResistanceOhm: { type: DataTypes.REAL, allowNull: true },
         wireSizeMm2: { type: DataTypes.REAL, allowNull: false },
         wireInsulationRatingC: { type: DataTypes.INTEGER, allowNull: false },
         wireLengthM: { type: DataTypes.REAL, allowNull: false },
@@ -58,6 +74,7 @@ export class Feed extends Model<InferAttributes<Feed>, InferCreationAttributes<F
         wireBundled: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         wireReturnPath: { type: DataTypes.TEXT, allowNull: false },
         wireColour: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        wireConnections: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 4 },
         dropClass: { type: DataTypes.TEXT, allowNull: false },
         dropLimitPct: { type: DataTypes.REAL, allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
@@ -78,6 +95,7 @@ export class FeedLoad extends Model<InferAttributes<FeedLoad>, InferCreationAttr
   declare name: string;
   declare currentA: number;
   declare continuous: boolean;
+  declare kind: CreationOptional<LoadKind>;
   declare position: number;
 
   static initModel(sequelize: Sequelize) {
@@ -88,6 +106,7 @@ export class FeedLoad extends Model<InferAttributes<FeedLoad>, InferCreationAttr
         name: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         currentA: { type: DataTypes.REAL, allowNull: false },
         continuous: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+        kind: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'resistive' },
         position: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       },
       { sequelize, tableName: 'feed_loads', timestamps: false },

@@ -7,6 +7,7 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
+import type { DriverType } from '#shared/domain/electrical/relays.ts';
 import type { Disposition } from '#shared/domain/dispositions.ts';
 import type { SignalClass } from '#shared/domain/signal-classes.ts';
 import type { Connector } from './connector.model.ts';
@@ -30,6 +31,8 @@ export class Pin extends Model<InferAttributes<Pin>, InferCreationAttributes<Pin
   declare destinationFeedId: CreationOptional<number | null>;
   declare runLengthM: CreationOptional<number | null>;
   declare loadCurrentA: CreationOptional<number | null>;
+  declare driverType: CreationOptional<DriverType | null>;
+  declare driverRatedA: CreationOptional<number | null>;
   declare notes: CreationOptional<string>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -52,6 +55,8 @@ export class Pin extends Model<InferAttributes<Pin>, InferCreationAttributes<Pin
         destinationFeedId: { type: DataTypes.INTEGER, allowNull: true },
         runLengthM: { type: DataTypes.REAL, allowNull: true },
         loadCurrentA: { type: DataTypes.REAL, allowNull: true },
+        driverType: { type: DataTypes.TEXT, allowNull: true },
+        driverRatedA: { type: DataTypes.REAL, allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,

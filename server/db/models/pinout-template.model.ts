@@ -7,6 +7,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
+import type { DriverType } from '#shared/domain/electrical/relays.ts';
 import type { Disposition } from '#shared/domain/dispositions.ts';
 import type { SignalClass } from '#shared/domain/signal-classes.ts';
 import type { ConnectorSide } from '#shared/schemas/pin-map.schema.ts';
@@ -67,6 +68,8 @@ export class PinoutTemplatePin extends Model<
   declare sizeMm2: CreationOptional<number | null>;
   declare insulationRatingC: CreationOptional<number | null>;
   declare disposition: CreationOptional<Disposition>;
+  declare driverType: CreationOptional<DriverType | null>;
+  declare driverRatedA: CreationOptional<number | null>;
   declare notes: CreationOptional<string>;
 
   static initModel(sequelize: Sequelize) {
@@ -82,6 +85,8 @@ export class PinoutTemplatePin extends Model<
         sizeMm2: { type: DataTypes.REAL, allowNull: true },
         insulationRatingC: { type: DataTypes.INTEGER, allowNull: true },
         disposition: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'undecided' },
+        driverType: { type: DataTypes.TEXT, allowNull: true },
+        driverRatedA: { type: DataTypes.REAL, allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       },
       { sequelize, tableName: 'pinout_template_pins', timestamps: false },

@@ -16,6 +16,10 @@ export class Workshop extends Model<InferAttributes<Workshop>, InferCreationAttr
   declare systemVoltage: CreationOptional<number>;
   declare defaultInsulationC: CreationOptional<number>;
   declare serviceAllowancePct: CreationOptional<number>;
+  declare dropFuseV: CreationOptional<number>;
+  declare dropRelayContactsV: CreationOptional<number>;
+  declare dropPerConnectionV: CreationOptional<number>;
+  declare dropChassisReturnV: CreationOptional<number>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -30,6 +34,10 @@ export class Workshop extends Model<InferAttributes<Workshop>, InferCreationAttr
         systemVoltage: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 12 },
         defaultInsulationC: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 105 },
         serviceAllowancePct: { type: DataTypes.REAL, allowNull: false, defaultValue: 15 },
+        dropFuseV: { type: DataTypes.REAL, allowNull: false, defaultValue: 0.1 },
+        dropRelayContactsV: { type: DataTypes.REAL, allowNull: false, defaultValue: 0.1 },
+        dropPerConnectionV: { type: DataTypes.REAL, allowNull: false, defaultValue: 0.01 },
+        dropChassisReturnV: { type: DataTypes.REAL, allowNull: false, defaultValue: 0.05 },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

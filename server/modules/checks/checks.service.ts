@@ -4,6 +4,7 @@ import type { ConversionSnapshot } from '#shared/schemas/snapshot.schema.ts';
 import { reportOf, storedFindings } from '#shared/domain/checks/run-checks.ts';
 import { Workshop } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
+import { dropAllowancesOf } from '../workshop/workshop.service.ts';
 import { loadConversionSnapshot } from './snapshot.service.ts';
 
 /**
@@ -19,7 +20,8 @@ export async function checkConversion(
   const snapshot = await loadConversionSnapshot(actor, conversionId, transaction);
   const workshop = await Workshop.findByPk(actor.workshopId, { transaction });
   const sizeUnit = workshop?.sizeUnit ?? 'mm2';
-  const stored = storedFindings(snapshot, { sizeUnit });
+  const dropAllowances = workshop ? dropAllowancesOf(workshop) : undefined;
+  const stored = storedFindings(snapshot, { sizeUnit, dropAllowances });
   return { snapshot, report: reportOf(stored, sizeUnit), stored };
 }
 

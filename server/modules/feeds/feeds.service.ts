@@ -27,11 +27,15 @@ export function toFeedDto(feed: FeedWithLoads): FeedDto {
     source: feed.source,
     sourceFeedId: feed.sourceFeedId,
     fuseA: feed.fuseA,
+    fuseType: feed.fuseType,
+    unfusedLengthMm: feed.unfusedLengthMm,
+    fuseSheathed: Boolean(feed.fuseSheathed),
     relay: feed.hasRelay
       ? {
           contactRatingA: feed.relayContactRatingA ?? 0,
           coilCurrentA: feed.relayCoilCurrentA ?? 0,
           coilPinId: feed.relayCoilPinId,
+          coilResistanceOhm: feed.relayCoilResistanceOhm,
         }
       : null,
     wire: {
@@ -42,6 +46,7 @@ export function toFeedDto(feed: FeedWithLoads): FeedDto {
       bundled: feed.wireBundled,
       returnPath: feed.wireReturnPath,
       colour: feed.wireColour,
+      connections: feed.wireConnections,
     },
     loads: [...(feed.loads ?? [])]
       .sort((a, b) => a.position - b.position)
@@ -51,6 +56,7 @@ export function toFeedDto(feed: FeedWithLoads): FeedDto {
         name: l.name,
         currentA: l.currentA,
         continuous: l.continuous,
+        kind: l.kind,
       })),
     dropClass: feed.dropClass,
     dropLimitPct: feed.dropLimitPct,
@@ -66,11 +72,15 @@ function columnsOf(input: Partial<CreateFeedRequest>) {
   if (input.source !== undefined) columns.source = input.source;
   if (input.sourceFeedId !== undefined) columns.sourceFeedId = input.sourceFeedId;
   if (input.fuseA !== undefined) columns.fuseA = input.fuseA;
+  if (input.fuseType !== undefined) columns.fuseType = input.fuseType;
+  if (input.unfusedLengthMm !== undefined) columns.unfusedLengthMm = input.unfusedLengthMm;
+  if (input.fuseSheathed !== undefined) columns.fuseSheathed = input.fuseSheathed;
   if (input.relay !== undefined) {
     columns.hasRelay = input.relay !== null;
     columns.relayContactRatingA = input.relay?.contactRatingA ?? null;
     columns.relayCoilCurrentA = input.relay?.coilCurrentA ?? null;
     columns.relayCoilPinId = input.relay?.coilPinId ?? null;
+    columns.relayCoilResistanceOhm = input.relay?.coilResistanceOhm ?? null;
   }
   if (input.wire !== undefined) {
     columns.wireSizeMm2 = input.wire.sizeMm2;
@@ -80,6 +90,7 @@ function columnsOf(input: Partial<CreateFeedRequest>) {
     columns.wireBundled = input.wire.bundled;
     columns.wireReturnPath = input.wire.returnPath;
     columns.wireColour = input.wire.colour;
+    if (input.wire.connections !== undefined) columns.wireConnections = input.wire.connections;
   }
   if (input.dropClass !== undefined) columns.dropClass = input.dropClass;
   if (input.dropLimitPct !== undefined) columns.dropLimitPct = input.dropLimitPct;

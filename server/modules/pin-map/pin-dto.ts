@@ -22,6 +22,8 @@ export function toPinDto(pin: PinRow): PinDto {
     destinationFeedId: pin.destinationFeedId,
     runLengthM: pin.runLengthM,
     loadCurrentA: pin.loadCurrentA,
+    driverType: pin.driverType ?? null,
+    driverRatedA: pin.driverRatedA ?? null,
     notes: pin.notes,
     version: pin.version,
     updatedAt: new Date(pin.updatedAt).toISOString(),

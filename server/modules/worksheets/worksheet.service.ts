@@ -32,7 +32,11 @@ export async function draftWorksheetInput(
 ): Promise<WorksheetInput> {
   const snapshot = await loadConversionSnapshot(actor, conversionId);
   const settings = await getWorkshopSettings(actor);
-  const { findings } = checkReport(snapshot, { sizeUnit: settings.sizeUnit }, now);
+  const { findings } = checkReport(
+    snapshot,
+    { sizeUnit: settings.sizeUnit, dropAllowances: settings.dropAllowances },
+    now,
+  );
   return {
     snapshot,
     meta: { ...workshopMeta(settings, now), revision: null, findings },

@@ -1,3 +1,4 @@
+import type { DropAllowances } from '#shared/domain/electrical/drop-budget.ts';
 import type { UpdateWorkshopRequest, WorkshopSettings } from '#shared/schemas/workshop.schema.ts';
 import { db } from '../../db/index.ts';
 import { Workshop } from '../../db/models/index.ts';
@@ -5,6 +6,16 @@ import type { Actor } from '../../lib/actor.ts';
 import { notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { changedFields, recordAudit } from '../audit/audit.service.ts';
+
+/** The workshop's drop allowances, as the checks take them. */
+export function dropAllowancesOf(workshop: Workshop): DropAllowances {
+  return {
+    fuseV: workshop.dropFuseV,
+    relayContactsV: workshop.dropRelayContactsV,
+    perConnectionV: workshop.dropPerConnectionV,
+    chassisReturnV: workshop.dropChassisReturnV,
+  };
+}
 
 export function toWorkshopSettings(workshop: Workshop): WorkshopSettings {
   return {
@@ -15,6 +26,7 @@ export function toWorkshopSettings(workshop: Workshop): WorkshopSettings {
     systemVoltage: workshop.systemVoltage,
     defaultInsulationC: workshop.defaultInsulationC,
     serviceAllowancePct: workshop.serviceAllowancePct,
+    dropAllowances: dropAllowancesOf(workshop),
     version: workshop.version,
   };
 }
@@ -35,10 +47,18 @@ export async function updateWorkshopSettings(
     const workshop = await Workshop.findByPk(actor.workshopId, { transaction: t });
     if (!workshop) throw notFound('Your workshop');
     if (workshop.version !== input.version) throw versionConflict(toWorkshopSettings(workshop));
-    const { version: _version, ...fields } = input;
+    const { version: _version, dropAllowances, ...fields } = input;
     const before = toWorkshopSettings(workshop);
-    const changes = changedFields(before, fields);
+    const changes = changedFields(before, { ...fields, ...(dropAllowances && { dropAllowances }) });
     workshop.set(fields);
+    if (dropAllowances) {
+      workshop.set({
+        dropFuseV: dropAllowances.fuseV,
+        dropRelayContactsV: dropAllowances.relayContactsV,
+        dropPerConnectionV: dropAllowances.perConnectionV,
+        dropChassisReturnV: dropAllowances.chassisReturnV,
+      });
+    }
     await workshop.save({ transaction: t });
     await recordAudit(t, actor, {
       action: 'update',

@@ -10,6 +10,7 @@ import type {
   SnapshotFeed,
   SnapshotPin,
 } from '../../schemas/snapshot.schema.ts';
+import type { DropAllowances } from '../electrical/drop-budget.ts';
 import { citeSources, type SourceId } from '../electrical/sources.ts';
 import { cavityName } from '../pin-names.ts';
 import { FeedChain, type FeedCurrent, type ProtectingFuse } from './feed-chain.ts';
@@ -18,16 +19,11 @@ import { sizeMark } from './finding-sizes.ts';
 export interface CheckOptions {
   /** The workshop's unit: the series sizes are suggested from, and the unit findings are shown in. */
   sizeUnit: SizeUnit;
+  /** The workshop's drop allowances (drop-budget.ts); the defaults when not given. */
+  dropAllowances?: DropAllowances;
 }
 
 export type { FeedCurrent, ProtectingFuse };
-
-/**
- * Conductor temperature for voltage drop: the ambient the ampacity table assumes, 30 °C outside
- * engine spaces and 50 °C inside (33 CFR 183.425 Table 5 and its note 1). A loaded wire runs warmer;
- * the critical 3 % limit leaves room for that.
- */
-export const CONDUCTOR_TEMP_C = { cabin: 30, engine_bay: 50 } as const;
 
 export class CheckContext {
   readonly pins = new Map<number, SnapshotPin>();
@@ -64,6 +60,11 @@ export class CheckContext {
   /** The fuse that protects a feed's wire (feed-chain.ts). */
   protectingFuse(feed: SnapshotFeed): ProtectingFuse | null {
     return this.chain.protectingFuse(feed);
+  }
+
+  /** The feed and every feed up its chain of relay outputs, nearest first (feed-chain.ts). */
+  pathToSource(feed: SnapshotFeed): SnapshotFeed[] {
+    return this.chain.pathToSource(feed);
   }
 
   /** The current through a feed's fuse and wire (feed-chain.ts). */

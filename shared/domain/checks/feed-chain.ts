@@ -57,6 +57,17 @@ export class FeedChain<F extends ChainFeed = ChainFeed> {
     return null;
   }
 
+  /** The feed and every feed up its chain of relay outputs, nearest first; stops at a loop. */
+  pathToSource(feed: F): F[] {
+    const path: F[] = [];
+    for (let at: F | undefined = feed; at && !path.includes(at);) {
+      path.push(at);
+      if (at.source !== 'relay_output' || at.sourceFeedId == null) break;
+      at = this.feeds.get(at.sourceFeedId);
+    }
+    return path;
+  }
+
   /** The current through a feed's fuse and wire: its loads plus those of every feed it powers. */
   current(feed: ChainFeed): FeedCurrent {
     const result: FeedCurrent = { continuousA: 0, nonContinuousA: 0, totalA: 0, feedIds: [] };

@@ -2,6 +2,7 @@
 import type { Finding } from '../../schemas/checks.schema.ts';
 import type { SnapshotPin } from '../../schemas/snapshot.schema.ts';
 import { fuseProtectsWire, smallestWireForFuse } from '../electrical/fuses.ts';
+import { DRIVER_TYPE_LABELS, outputCarries } from '../electrical/relays.ts';
 import { finding, fmt, value, type CheckContext } from './check-context.ts';
 import { ampacityOf } from './feed-rules.ts';
 
@@ -175,6 +176,37 @@ export function checkSharedDestinations(ctx: CheckContext): Finding[] {
           count: value('Pins', pins.length),
         },
         working: [],
+        sourceIds: ['common-practice'],
+      }),
+    );
+  }
+  return findings;
+}
+
+/**
+ * An ECU output wired straight to a load it cannot carry: the output stage burns out inside the
+ * ECU. The fix is a relay whose coil the output drives (common practice, no source).
+ */
+export function checkEcuOutputs(ctx: CheckContext): Finding[] {
+  const findings: Finding[] = [];
+  for (const pin of ctx.snapshot.pins) {
+    const ratedA = pin.driverRatedA;
+    const loadA = pin.loadCurrentA;
+    if (ratedA == null || loadA == null || pin.disposition === 'depin' || pin.disposition === 'cut')
+      continue;
+    if (outputCarries(ratedA, loadA)) continue;
+    findings.push(
+      finding({
+        rule: 'ecu_output_overload',
+        severity: 'error',
+        subject: { pinIds: [pin.id] },
+        title: 'ECU output wired to a load above its rating',
+        message: `${ctx.pinName(pin)} (${pin.function || 'ECU output'}) is ${pin.driverType ? `a ${DRIVER_TYPE_LABELS[pin.driverType].toLowerCase()}` : 'an'} output rated ${fmt(ratedA, 3)} A, wired straight to a load drawing ${fmt(loadA)} A. It would burn out the output stage: drive a relay coil instead, and let the relay switch the load from a fused feed.`,
+        values: {
+          driverRatedA: value('Output rating', ratedA, 'A', 3),
+          loadCurrentA: value('Load on the pin', loadA, 'A'),
+        },
+        working: [`${fmt(loadA)} A > ${fmt(ratedA, 3)} A`],
         sourceIds: ['common-practice'],
       }),
     );

@@ -9,6 +9,7 @@ import { CheckContext, type CheckOptions } from './check-context.ts';
 import { checkFeed } from './feed-rules.ts';
 import { showFinding } from './finding-sizes.ts';
 import {
+  checkEcuOutputs,
   checkJoinedPins,
   checkSensorGrounds,
   checkSharedDestinations,
@@ -27,6 +28,7 @@ export function storedFindings(snapshot: ConversionSnapshot, options: CheckOptio
     ...checkUndecided(ctx),
     ...snapshot.feeds.flatMap((feed) => checkFeed(ctx, feed)),
     ...checkJoinedPins(ctx),
+    ...checkEcuOutputs(ctx),
     ...checkSensorGrounds(ctx),
     ...checkSharedDestinations(ctx),
   ];

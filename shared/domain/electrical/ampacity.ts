@@ -14,11 +14,15 @@ export type InsulationColumnC = (typeof TABLE_5_INSULATION_COLUMNS_C)[number];
 /** SAE J1128 GPT (PVC) insulation, °C: the common rating that falls between two columns. */
 export const SAE_J1128_GPT_C = 85;
 
-/** The AWG rows of Table 5 held here, thinnest first. */
-export const TABLE_5_AWG_ROWS = [18, 16, 14, 12, 10, 8, 6, 4] as const;
+/** The AWG rows of Table 5, thinnest first: 18 … 1, then 1/0 … 4/0 as 0, −1, −2, −3. */
+export const TABLE_5_AWG_ROWS = [18, 16, 14, 12, 10, 8, 6, 4, 3, 2, 1, 0, -1, -2, -3] as const;
 export type Table5Awg = (typeof TABLE_5_AWG_ROWS)[number];
 
-/** 33 CFR 183.425 Table 5: allowable amperage, A, outside engine spaces, 30 °C ambient. */
+/**
+ * 33 CFR 183.425 Table 5: allowable amperage, A, outside engine spaces, 30 °C ambient. Every row
+ * and column as published, read at a reprint of the regulation's text (33 CFR 183.425, "Table 5 —
+ * Allowable Amperage of Conductors"); the 18…4 AWG rows were read again at the same page.
+ */
 export const TABLE_5_AMPACITY_A: Readonly<
   Record<Table5Awg, Readonly<Record<InsulationColumnC, number>>>
 > = {
@@ -30,19 +34,25 @@ export const TABLE_5_AMPACITY_A: Readonly<
   8: { 60: 55, 75: 65, 80: 70, 90: 70, 105: 80, 125: 90, 200: 100 },
   6: { 60: 80, 75: 95, 80: 100, 90: 100, 105: 120, 125: 125, 200: 135 },
   4: { 60: 105, 75: 125, 80: 130, 90: 135, 105: 160, 125: 170, 200: 180 },
+  3: { 60: 120, 75: 145, 80: 150, 90: 155, 105: 180, 125: 195, 200: 210 },
+  2: { 60: 140, 75: 170, 80: 175, 90: 180, 105: 210, 125: 225, 200: 240 },
+  1: { 60: 165, 75: 195, 80: 210, 90: 210, 105: 245, 125: 265, 200: 280 },
+  0: { 60: 195, 75: 230, 80: 245, 90: 245, 105: 285, 125: 305, 200: 325 },
+  [-1]: { 60: 225, 75: 265, 80: 285, 90: 285, 105: 330, 125: 355, 200: 370 },
+  [-2]: { 60: 260, 75: 310, 80: 330, 90: 330, 105: 385, 125: 410, 200: 430 },
+  [-3]: { 60: 300, 75: 360, 80: 385, 90: 385, 105: 445, 125: 475, 200: 510 },
 };
 
 /**
- * 33 CFR 183.425 Table 5 note 1: multipliers inside engine spaces (they take the table from 30 °C
- * to 50 °C ambient). 105 °C: 0.85, read in the published engine-space values. The others were not
- * read at a source: 60 0.58, 75 0.75 and 90 0.82 are from memory and agree with the NEC
- * 310.15(B)(2)(a) factors for a 46–50 °C ambient (read); 80 0.75, 125 0.89 and 200 1.00 are from
- * memory only.
+ * Table 5 note 1: multipliers inside engine spaces (they take the table from 30 °C to 50 °C
+ * ambient). 75 0.75, 80 0.78, 90 0.82, 105 0.85, 125 0.89, 200 1.00: ABYC E-11 Table VI-B, engine-room
+ * column ÷ outside column (a secondary transcription), 105 °C also read in wire makers' reprints of
+ * note 1. 60 °C 0.58 is from memory: no source held gives it.
  */
 export const ENGINE_SPACE_FACTORS: Readonly<Record<InsulationColumnC, number>> = {
   60: 0.58,
   75: 0.75,
-  80: 0.75,
+  80: 0.78,
   90: 0.82,
   105: 0.85,
   125: 0.89,
@@ -52,12 +62,12 @@ export const ENGINE_SPACE_FACTORS: Readonly<Record<InsulationColumnC, number>> =
 /** Which engine-space factors were read at a source; the rest are from memory. */
 export const ENGINE_SPACE_FACTOR_VERIFIED: Readonly<Record<InsulationColumnC, boolean>> = {
   60: false,
-  75: false,
-  80: false,
-  90: false,
+  75: true,
+  80: true,
+  90: true,
   105: true,
-  125: false,
-  200: false,
+  125: true,
+  200: true,
 };
 
 /**
@@ -121,8 +131,8 @@ export type SizeRule =
   | 'largest-row-not-exceeding'
   /** Thinner than 18 AWG: the 18 AWG value scaled down by area. */
   | 'scaled-below-18-awg'
-  /** Thicker than 4 AWG: rated as 4 AWG. */
-  | 'capped-at-4-awg';
+  /** Thicker than 4/0 AWG, the largest row: rated as 4/0 AWG. */
+  | 'capped-at-4-0-awg';
 
 export interface TableRow {
   tableAwg: Table5Awg;
@@ -132,7 +142,7 @@ export interface TableRow {
 }
 
 const THINNEST_ROW: Table5Awg = 18;
-const THICKEST_ROW: Table5Awg = 4;
+const THICKEST_ROW: Table5Awg = -3;
 
 /**
  * The Table 5 row a conductor area is rated by. The table is in AWG; a metric size takes the
@@ -154,7 +164,7 @@ export function table5RowForArea(areaMm2: number): TableRow {
     };
   }
   if (areaMm2 > awgAreaMm2(THICKEST_ROW)) {
-    return { tableAwg: THICKEST_ROW, rule: 'capped-at-4-awg', areaScale: 1 };
+    return { tableAwg: THICKEST_ROW, rule: 'capped-at-4-0-awg', areaScale: 1 };
   }
   let row: Table5Awg = THINNEST_ROW;
   for (const awg of TABLE_5_AWG_ROWS) if (awgAreaMm2(awg) <= areaMm2) row = awg;
@@ -226,9 +236,9 @@ export function wireAmpacity({
     notes.push(
       `${fmt(areaMm2)} mm² is thinner than 18 AWG, the smallest row of Table 5: the 18 AWG value scaled by area (× ${row.areaScale.toFixed(3)}); common practice, no source. Conservative, as ampacity falls more slowly than area.`,
     );
-  } else if (row.rule === 'capped-at-4-awg') {
+  } else if (row.rule === 'capped-at-4-0-awg') {
     notes.push(
-      `${fmt(areaMm2)} mm² is thicker than 4 AWG, the largest row held: rated as 4 AWG (conservative).`,
+      `${fmt(areaMm2)} mm² is thicker than 4/0 AWG, the largest row of Table 5: rated as 4/0 AWG (conservative).`,
     );
   }
 
@@ -262,7 +272,7 @@ export function wireAmpacity({
     engineSpaceFactor: engine,
     bundleFactor: bundle,
     deratingFactor,
-    extrapolated: row.rule === 'scaled-below-18-awg' || row.rule === 'capped-at-4-awg',
+    extrapolated: row.rule === 'scaled-below-18-awg' || row.rule === 'capped-at-4-0-awg',
     notes,
     sources: [...new Set(sources)],
   };

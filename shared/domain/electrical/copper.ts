@@ -1,7 +1,7 @@
 /**
  * Resistance of copper conductors at a conductor temperature.
  */
-import { exactIsoSize } from '../wire-sizes.ts';
+import { exactAwg, exactIsoSize, formatAwgGauge } from '../wire-sizes.ts';
 import { requireFinite, requirePositive } from './guards.ts';
 import type { SourceId } from './sources.ts';
 
@@ -35,6 +35,67 @@ export const ISO_6722_MAX_RESISTANCE_MOHM_PER_M: Readonly<Record<number, number>
 
 export type ResistanceModel = 'iacs' | 'iso6722-max';
 
+/** One circular mil in mm²: π/4 × (0.0254 mm)² [C]. */
+export const CIRCULAR_MIL_MM2 = 5.067e-4;
+
+/**
+ * SAE J1128 minimum conductor areas of automotive AWG cable, circular mils, as reprinted in a wire
+ * maker's catalogue appendix (the standard's own table not read): 5–11 % below the ASTM B258 nominal
+ * areas. Published 12 V / 3 % drop tables (ABYC E-11 Table IX) are built on these areas.
+ */
+export const SAE_J1128_MIN_AREA_CMIL: Readonly<Record<number, number>> = {
+  18: 1537,
+  16: 2336,
+  14: 3702,
+  12: 5833,
+  10: 9343,
+  8: 14810,
+  6: 24538,
+  4: 37360,
+};
+
+/**
+ * Which area an AWG size's resistance is worked from: the SAE J1128 minimum that automotive cable
+ * is made to (the default: a drop worked on it is never better than the cable bought), or the ASTM
+ * B258 nominal area of the gauge.
+ */
+export type AwgAreaBasis = 'sae-j1128-min' | 'astm-b258-nominal';
+
+/**
+ * The area, mm², resistance is worked from. An AWG size on the J1128 basis takes its minimum area
+ * where one is held (18 … 4 AWG); every other size is its own area.
+ */
+export function resistanceAreaMm2(
+  areaMm2: number,
+  basis: AwgAreaBasis = 'sae-j1128-min',
+): { areaMm2: number; basisUsed: AwgAreaBasis | 'as-given'; note: string | null } {
+  const gauge = exactAwg(areaMm2);
+  if (gauge === null || exactIsoSize(areaMm2) !== null)
+    return { areaMm2, basisUsed: 'as-given', note: null };
+  const cmil = SAE_J1128_MIN_AREA_CMIL[gauge];
+  const label = `${formatAwgGauge(gauge)} AWG`;
+  if (basis === 'astm-b258-nominal') {
+    return {
+      areaMm2,
+      basisUsed: 'astm-b258-nominal',
+      note: `${label} worked at its ASTM B258 nominal area, ${areaMm2.toFixed(3)} mm², as asked.`,
+    };
+  }
+  if (cmil === undefined) {
+    return {
+      areaMm2,
+      basisUsed: 'astm-b258-nominal',
+      note: `No SAE J1128 minimum area is held for ${label}: worked at its ASTM B258 nominal area, ${areaMm2.toFixed(3)} mm².`,
+    };
+  }
+  const minMm2 = cmil * CIRCULAR_MIL_MM2;
+  return {
+    areaMm2: minMm2,
+    basisUsed: 'sae-j1128-min',
+    note: `${label} automotive cable is made to the SAE J1128 minimum area, ${cmil} cmil = ${minMm2.toFixed(3)} mm² (nominal ${areaMm2.toFixed(3)} mm²): resistance worked from the minimum.`,
+  };
+}
+
 /** R_T / R₂₀ = 1 + α₂₀ (T − 20): IACS linear model. */
 export function copperTemperatureFactor(conductorTempC: number): number {
   requireFinite('conductorTempC', conductorTempC);
@@ -58,6 +119,8 @@ export interface ConductorResistanceInput {
   /** Overrides the IACS value (a worked example's ρ, say); used by 'iacs' and the ISO fallback. */
   resistivityOhmMm2PerM?: number;
   model?: ResistanceModel;
+  /** For an AWG size: the area worked from (default the SAE J1128 minimum). */
+  awgAreaBasis?: AwgAreaBasis;
 }
 
 export interface ConductorResistance {
@@ -81,6 +144,7 @@ export function conductorResistance({
   conductorTempC = 20,
   resistivityOhmMm2PerM = COPPER_RESISTIVITY_OHM_MM2_PER_M,
   model = 'iacs',
+  awgAreaBasis = 'sae-j1128-min',
 }: ConductorResistanceInput): ConductorResistance {
   requirePositive('areaMm2', areaMm2);
   requirePositive('lengthM', lengthM);
@@ -100,7 +164,11 @@ export function conductorResistance({
       `${exactIsoSize(areaMm2)} mm²: ISO 6722 maximum conductor resistance ${(isoOhmPerM * 1000).toFixed(3)} mΩ/m at 20 °C.`,
     );
   } else {
-    ohmPerM20 = resistivityOhmMm2PerM / areaMm2;
+    const worked = resistanceAreaMm2(areaMm2, awgAreaBasis);
+    ohmPerM20 = resistivityOhmMm2PerM / worked.areaMm2;
+    if (worked.note) notes.push(worked.note);
+    if (worked.basisUsed === 'sae-j1128-min') sources.push('sae-j1128-area');
+    if (worked.basisUsed === 'astm-b258-nominal') sources.push('astm-b258');
     if (model === 'iso6722-max') {
       notes.push(
         `${areaMm2} mm² is not in the ISO 6722 maximum-resistance table held; resistance from annealed-copper resistivity instead.`,

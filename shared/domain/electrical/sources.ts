@@ -25,10 +25,20 @@ export const SOURCES = {
     title: 'SAE J1128 insulation ratings',
     citation: 'SAE J1128: GPT 85 °C (PVC), TWP 105 °C, TXL / GXL / SXL 125 °C (XLPE)',
   },
+  'sae-j1128-area': {
+    title: 'SAE J1128 minimum conductor areas',
+    citation:
+      "SAE J1128 minimum areas of automotive AWG cable, circular mils: 18 → 1537, 16 → 2336, 14 → 3702, 12 → 5833, 10 → 9343, 8 → 14810, 6 → 24538, 4 → 37360 (as reprinted in wire makers' catalogue appendices)",
+  },
+  'faa-43-13-temp': {
+    title: 'Conductor temperature under load',
+    citation:
+      'FAA AC 43.13-1B ¶11-66: T = T_ambient + (T_rating − T_ambient) · (I / I_max)², I_max the allowable current at the insulation rating',
+  },
   'uscg-183-425': {
     title: 'Allowable amperage of conductors',
     citation:
-      '33 CFR 183.425 Table 5: ampacity by AWG and insulation rating, 30 °C ambient; note 1: engine-space correction factors',
+      '33 CFR 183.425 Table 5: ampacity by AWG (18 … 4/0) and insulation rating, 30 °C ambient; note 1: engine-space correction factors (75 °C 0.75, 80 °C 0.78, 90 °C 0.82, 105 °C 0.85, 125 °C 0.89, 200 °C 1.00, after ABYC E-11 Table VI-B)',
   },
   'uscg-183-435': {
     title: 'Bundled conductors',
@@ -37,7 +47,8 @@ export const SOURCES = {
   },
   'uscg-183-455': {
     title: 'Overcurrent protection (marine)',
-    citation: '33 CFR 183.455: (c) a device up to 150 % of Table 5 below 50 V',
+    citation:
+      '33 CFR 183.455: (b) the fuse within 7 in (178 mm) of the source, 40 in (1,016 mm) if the conductor is sheathed; (c) a device up to 150 % of Table 5 below 50 V. A marine rule, borrowed for vehicles by analogy',
   },
   'nec-210-20': {
     title: 'Fuse sized for the load',
@@ -57,6 +68,10 @@ export const SOURCES = {
     title: 'Blade fuses',
     citation:
       "ISO 8820-3 blade-fuse ratings; colours from industry charts (the standard's own table not read)",
+  },
+  'from-memory': {
+    title: 'From memory',
+    citation: 'From memory: not verified at a published source',
   },
   'common-practice': {
     title: 'Common practice',

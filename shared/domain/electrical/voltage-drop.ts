@@ -1,7 +1,7 @@
 /**
  * Voltage drop of a run and the smallest size that keeps it within a limit.
  */
-import { conductorResistance, type ResistanceModel } from './copper.ts';
+import { conductorResistance, type AwgAreaBasis, type ResistanceModel } from './copper.ts';
 import { FLOAT_SLACK, requirePositive } from './guards.ts';
 import type { SourceId } from './sources.ts';
 import { seriesSizes, type SeriesSize, type WireSeries } from './wire-series.ts';
@@ -30,6 +30,7 @@ export interface VoltageDropInput {
   systemV: number;
   resistivityOhmMm2PerM?: number;
   model?: ResistanceModel;
+  awgAreaBasis?: AwgAreaBasis;
 }
 
 export interface VoltageDrop {
@@ -53,6 +54,7 @@ export function voltageDrop(input: VoltageDropInput): VoltageDrop {
     conductorTempC,
     resistivityOhmMm2PerM: input.resistivityOhmMm2PerM,
     model: input.model,
+    awgAreaBasis: input.awgAreaBasis,
   });
   const voltageDropV = currentA * resistance.resistanceOhm;
   const lengthNote =
@@ -79,6 +81,9 @@ export interface MinSizeForDropInput {
   series: WireSeries;
   resistivityOhmMm2PerM?: number;
   model?: ResistanceModel;
+  awgAreaBasis?: AwgAreaBasis;
+  /** The conductor temperature of each size tried (a thinner wire runs hotter); else conductorTempC. */
+  conductorTempFor?: (areaMm2: number) => number;
 }
 
 export interface SizeForDrop extends SeriesSize {
@@ -89,10 +94,11 @@ export interface SizeForDrop extends SeriesSize {
 
 /** The thinnest size of the series whose drop is within the limit; null if even the thickest fails. */
 export function minSizeForDrop(input: MinSizeForDropInput): SizeForDrop | null {
-  const { dropLimitPct, series, ...run } = input;
+  const { dropLimitPct, series, conductorTempFor, ...run } = input;
   requirePositive('dropLimitPct', dropLimitPct);
   for (const size of seriesSizes(series)) {
-    const drop = voltageDrop({ ...run, areaMm2: size.areaMm2 });
+    const conductorTempC = conductorTempFor ? conductorTempFor(size.areaMm2) : run.conductorTempC;
+    const drop = voltageDrop({ ...run, conductorTempC, areaMm2: size.areaMm2 });
     if (drop.voltageDropPct <= dropLimitPct * (1 + FLOAT_SLACK)) {
       return { ...size, voltageDropPct: drop.voltageDropPct, sources: drop.sources };
     }

@@ -2,7 +2,7 @@
  * The size series a workshop picks wires from: ISO 6722 sizes in mm², or AWG gauges.
  */
 import type { SizeUnit } from '../../schemas/workshop.schema.ts';
-import { AWG_GAUGES, awgAreaMm2, formatAwgGauge, ISO_6722_SIZES_MM2 } from '../wire-sizes.ts';
+import { awgAreaMm2, formatAwgGauge, ISO_6722_SIZES_MM2, SOLD_AWG_GAUGES } from '../wire-sizes.ts';
 
 export type WireSeries = SizeUnit;
 
@@ -19,14 +19,14 @@ const METRIC: readonly SeriesSize[] = ISO_6722_SIZES_MM2.map((areaMm2) => ({
   label: `${areaMm2} mm²`,
 }));
 
-// AWG_GAUGES runs thickest first; the series runs thinnest first.
-const AWG: readonly SeriesSize[] = [...AWG_GAUGES].reverse().map((gauge) => ({
+// Only gauges sold as automotive cable are ever suggested (SOLD_AWG_GAUGES, thinnest first).
+const AWG: readonly SeriesSize[] = SOLD_AWG_GAUGES.map((gauge) => ({
   areaMm2: awgAreaMm2(gauge),
   awg: gauge,
   label: `${formatAwgGauge(gauge)} AWG`,
 }));
 
-/** The sizes of a series, thinnest first. */
+/** The sizes of a series a shop can buy, thinnest first: what every suggestion picks from. */
 export function seriesSizes(series: WireSeries): readonly SeriesSize[] {
   return series === 'awg' ? AWG : METRIC;
 }

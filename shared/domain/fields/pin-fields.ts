@@ -36,7 +36,11 @@ import {
   type FieldParse,
   type FieldTable,
 } from './field-table.ts';
+import { DRIVER_TYPES, type DriverType } from '../electrical/relays.ts';
 import {
+  DRIVER_CURRENT,
+  DRIVER_TYPE_SHORT,
+  parseDriverType,
   LOAD_CURRENT,
   parseDisposition,
   parseInsulationRating,
@@ -61,6 +65,10 @@ export interface PinValues {
   destinationFeedId: number | null;
   runLengthM: number | null;
   loadCurrentA: number | null;
+  /** For an ECU output: the stage that switches it. Null for a pin that is not an output. */
+  driverType: DriverType | null;
+  /** For an ECU output: the current its stage is rated to switch, A (the ECU maker's figure). */
+  driverRatedA: number | null;
   notes: string;
 }
 
@@ -230,6 +238,27 @@ export const PIN_FIELDS = {
     show: withUnit('A'),
     csv: [{ header: 'load_current_a', label: 'Load current, A', write: (v) => v }],
     column: { id: 'load', heading: 'Load A' },
+  }),
+  driverType: field({
+    inTemplate: true,
+    label: 'Output stage',
+    schema: z.enum(DRIVER_TYPES).nullable(),
+    blank: null as DriverType | null,
+    parse: parseDriverType,
+    format: (v) => (v == null ? '' : DRIVER_TYPE_SHORT[v]),
+    csv: [{ header: 'driver_type', label: 'ECU output stage', write: (v) => v }],
+    column: { id: 'driverType', heading: 'Output' },
+  }),
+  driverRatedA: field({
+    inTemplate: true,
+    label: 'Output rating',
+    schema: z.number().positive().max(50).nullable(),
+    blank: null,
+    parse: (text) => parseMeasure(text, DRIVER_CURRENT),
+    format: numberText,
+    show: withUnit('A'),
+    csv: [{ header: 'driver_rated_a', label: 'ECU output rating, A', write: (v) => v }],
+    column: { id: 'driverRated', heading: 'Out. A' },
   }),
   notes: field({
     inTemplate: true,

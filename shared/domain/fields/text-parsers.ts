@@ -5,6 +5,7 @@
 import { DISPOSITION_INFO, DISPOSITIONS, type Disposition } from '../dispositions.ts';
 import { SIGNAL_CLASS_LABELS, SIGNAL_CLASSES, type SignalClass } from '../signal-classes.ts';
 import { normalizeText, textProblem } from '../../schemas/common.schema.ts';
+import { DRIVER_TYPE_LABELS, DRIVER_TYPES, type DriverType } from '../electrical/relays.ts';
 import { INSULATION_RATINGS_C } from '../../schemas/workshop.schema.ts';
 import { parsed, refused, type FieldParse } from './field-table.ts';
 
@@ -88,6 +89,45 @@ export const LOAD_CURRENT: Measure = {
   min: 0,
   max: 200,
 };
+
+export const DRIVER_CURRENT: Measure = {
+  suffixes: /\s*(a|amps?|amperes?)$/i,
+  name: 'amperes',
+  min: 0.001,
+  max: 50,
+};
+
+/** Short names for an output stage, as a grid cell shows it. */
+export const DRIVER_TYPE_SHORT: Record<DriverType, string> = {
+  low_side: 'Low side',
+  high_side: 'High side',
+  push_pull: 'Push-pull',
+  open_collector: 'Open collector',
+};
+
+const DRIVER_TYPE_ALIASES = aliasTable<DriverType>(
+  DRIVER_TYPES.map((d) => [d, [d, DRIVER_TYPE_LABELS[d], DRIVER_TYPE_SHORT[d]]]),
+);
+for (const [alias, d] of [
+  ['ls', 'low_side'],
+  ['lowside', 'low_side'],
+  ['hs', 'high_side'],
+  ['highside', 'high_side'],
+  ['pp', 'push_pull'],
+  ['totempole', 'push_pull'],
+  ['oc', 'open_collector'],
+  ['opendrain', 'open_collector'],
+] as const)
+  DRIVER_TYPE_ALIASES.set(alias, d);
+
+/** "Low side", "LS", "low_side", "open drain"; empty is "not an output" (null). */
+export function parseDriverType(text: string): FieldParse<DriverType | null> {
+  if (text.trim() === '') return parsed(null);
+  const found = DRIVER_TYPE_ALIASES.get(squash(text));
+  if (found) return parsed(found);
+  const words = DRIVER_TYPES.map((d) => `${d} (${DRIVER_TYPE_SHORT[d]})`).join(', ');
+  return refused(`"${text.trim()}" is not an output stage: use one of ${words}`);
+}
 
 /** "105", "105 °C", "105C": one of the insulation ratings wire is sold in. */
 export function parseInsulationRating(text: string): FieldParse<number | null> {

@@ -37,9 +37,10 @@ describe('sizes in findings', () => {
     expect(inMm2.values.suggestedSize?.value).toBe('4 mm²');
     // The same stored finding in an AWG workshop: its sizes in AWG, no mark left anywhere.
     const inAwg = showFinding(stored!, 'awg');
-    expect(inAwg.values.wireSize?.value).toBe('≈17 AWG');
-    expect(inAwg.message).toMatch(/than its ≈17 AWG wire.*at least ≈11 AWG/);
-    expect(inAwg.message).not.toMatch(/mm²/);
+    // A metric wire keeps its exact label in an AWG workshop: never a "≈" gauge nobody sells.
+    expect(inAwg.values.wireSize?.value).toBe('1 mm²');
+    expect(inAwg.message).toMatch(/than its 1 mm² wire.*at least 4 mm²/);
+    expect(inAwg.message).not.toMatch(/≈/);
     expect(JSON.stringify(inAwg)).not.toMatch(/⟦/);
   });
 

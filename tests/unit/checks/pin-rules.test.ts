@@ -183,3 +183,34 @@ describe('one destination used twice', () => {
     expect(only(s, 'destination_used_twice')).toHaveLength(0);
   });
 });
+
+describe('ECU outputs wired straight to a load', () => {
+  const output = (loadCurrentA: number | null, driverRatedA: number | null) =>
+    runChecks(
+      snapshot({
+        pins: [
+          {
+            function: 'Fan output',
+            signalClass: 'actuator_output',
+            disposition: 'extend',
+            driverType: 'low_side',
+            driverRatedA,
+            loadCurrentA,
+          },
+        ],
+      }),
+      { sizeUnit: 'mm2' },
+    ).filter((f) => f.rule === 'ecu_output_overload');
+
+  it('flags an 8 A fan on a 0.5 A output and tells the fix (common practice, no source)', () => {
+    const [f] = output(8, 0.5);
+    expect(f?.severity).toBe('error');
+    expect(f?.message).toMatch(/drive a relay coil instead/);
+    expect(f?.message).toMatch(/low side/);
+  });
+
+  it('passes a load within the rating, and says nothing without a rating', () => {
+    expect(output(0.2, 0.5)).toHaveLength(0);
+    expect(output(8, null)).toHaveLength(0);
+  });
+});

@@ -21,13 +21,35 @@ describe('IEC 60757 wire colours', () => {
     ['bu wh', 'BU/WH'],
     [' rd ', 'RD'],
     ['GNYE', 'GNYE'],
-    ['gn/ye', 'GNYE'],
+    // Green with a yellow stripe is an ordinary vehicle wire; only "GNYE" is IEC 60757's
+    // green-yellow (common practice, references.md).
+    ['gn/ye', 'GN/YE'],
+    ['GN-YE', 'GN/YE'],
+    // Common English abbreviations from service literature (common practice, no source).
+    ['BLU/WHT', 'BU/WH'],
+    ['BLK', 'BK'],
+    ['grn/yel', 'GN/YE'],
+    ['ORN', 'OG'],
+    ['BRN/WHT', 'BN/WH'],
+    ['GRY', 'GY'],
+    ['PNK', 'PK'],
+    ['VIO', 'VT'],
+    ['PPL/RED', 'VT/RD'],
+    ['Blue', 'BU'],
+    ['LT GRN', 'GN'],
+    ['dk blu/wht', 'BU/WH'],
   ])('reads %j as %s', (input, value) => {
     const parsed = parseWireColour(input);
     expect(parsed.ok && parsed.value).toBe(value);
   });
 
-  it.each(['BLUE', 'BU/XX', 'BU/BU', 'BU/WH/RD', ''])(
+  it('says when a shade is dropped, as IEC 60757 has none', () => {
+    const parsed = parseWireColour('LT GRN/BLK');
+    expect(parsed.ok && parsed.note).toMatch(/no light green: stored as GN/);
+    expect(parsed.ok && parsed.value).toBe('GN/BK');
+  });
+
+  it.each(['BLUISH', 'BU/XX', 'BU/BU', 'BLU/BLUE', 'BU/WH/RD', ''])(
     'refuses %j with the allowed codes',
     (input) => {
       const parsed = parseWireColour(input);

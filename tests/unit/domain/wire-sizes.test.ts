@@ -71,8 +71,13 @@ describe('entering and showing sizes in the workshop unit', () => {
     expect(parseWireSize('4 awg', 'mm2').ok).toBe(true);
   });
 
-  it('marks a metric size shown in AWG as approximate', () => {
-    expect(formatWireSize(0.75, 'awg')).toBe('≈18 AWG');
+  it('shows a metric size in an AWG workshop by its own exact label, never a "≈" gauge', () => {
+    // Automotive cable is sold in even gauges and ISO 6722 sizes: "≈17 AWG" names nothing sold.
+    expect(formatWireSize(0.75, 'awg')).toBe('0.75 mm²');
+    expect(formatWireSize(1, 'awg')).toBe('1 mm²');
+    for (const size of [0.22, 0.35, 0.5, 0.75, 1, 1.5, 2, 2.5, 3, 4, 6, 10, 16, 25, 35, 50, 70]) {
+      expect(formatWireSize(size, 'awg')).not.toMatch(/≈/);
+    }
     expect(formatWireSize(0.75, 'mm2')).toBe('0.75 mm²');
     expect(formatWireSize(null, 'mm2')).toBe('');
   });

@@ -15,7 +15,9 @@ import { awgAreaMm2 } from '#shared/domain/wire-sizes.ts';
 const COLUMNS = [60, 75, 80, 90, 105, 125, 200] as const;
 
 describe('33 CFR 183.425 Table 5', () => {
-  // 33 CFR 183.425 Table 5, outside engine spaces, 30 °C ambient; transcribed from references.md.
+  // 33 CFR 183.425 Table 5, outside engine spaces, 30 °C ambient: every row and column as read at
+  // a reprint of the regulation's text (18 … 4 also in references.md; the 105 °C column of 3 … 4/0
+  // read again by a reviewer: 180, 210, 245, 285, 330, 385, 445). Gauge 0, −1, −2, −3 = 1/0 … 4/0.
   it.each([
     [18, [10, 10, 15, 20, 20, 25, 25]],
     [16, [15, 15, 20, 25, 25, 30, 35]],
@@ -25,6 +27,13 @@ describe('33 CFR 183.425 Table 5', () => {
     [8, [55, 65, 70, 70, 80, 90, 100]],
     [6, [80, 95, 100, 100, 120, 125, 135]],
     [4, [105, 125, 130, 135, 160, 170, 180]],
+    [3, [120, 145, 150, 155, 180, 195, 210]],
+    [2, [140, 170, 175, 180, 210, 225, 240]],
+    [1, [165, 195, 210, 210, 245, 265, 280]],
+    [0, [195, 230, 245, 245, 285, 305, 325]],
+    [-1, [225, 265, 285, 285, 330, 355, 370]],
+    [-2, [260, 310, 330, 330, 385, 410, 430]],
+    [-3, [300, 360, 385, 385, 445, 475, 510]],
   ])('row %i AWG', (awg, amps) => {
     COLUMNS.forEach((column, i) => expect(tableAmpacityA(awg, column)).toBe(amps[i]));
   });
@@ -36,7 +45,7 @@ describe('33 CFR 183.425 Table 5', () => {
   it('refuses rows it does not hold', () => {
     expect(() => tableAmpacityA(20, 105)).toThrow(RangeError);
     expect(() => tableAmpacityA(13, 105)).toThrow(RangeError);
-    expect(() => tableAmpacityA(2, 105)).toThrow(RangeError);
+    expect(() => tableAmpacityA(-4, 105)).toThrow(RangeError);
   });
 });
 
@@ -89,31 +98,57 @@ describe('engine spaces (Table 5 note 1)', () => {
   });
 
   it('uses the note 1 factor of each insulation column', () => {
-    // 105 °C: 0.85 [V]. 60 0.58, 75 0.75, 90 0.82 from memory, and equal to the NEC
-    // 310.15(B)(2)(a) correction factors for a 46–50 °C ambient [V]; 80 0.75, 125 0.89,
-    // 200 1.00 from memory only.
+    // ABYC E-11 Table VI-B engine-room column ÷ outside column (secondary transcription, [V] in
+    // references.md): 75 0.75, 80 0.78, 90 0.82, 105 0.85, 125 0.89, 200 1.00; 105 °C also in two
+    // wire makers' reprints of note 1. 60 °C 0.58 is from memory.
     expect(ENGINE_SPACE_FACTORS).toEqual({
       60: 0.58,
       75: 0.75,
-      80: 0.75,
+      80: 0.78,
       90: 0.82,
       105: 0.85,
       125: 0.89,
       200: 1.0,
     });
-    expect(Object.entries(ENGINE_SPACE_FACTOR_VERIFIED).filter(([, v]) => v)).toEqual([
-      ['105', true],
+    expect(Object.entries(ENGINE_SPACE_FACTOR_VERIFIED).filter(([, v]) => !v)).toEqual([
+      ['60', false],
     ]);
     // [C] hotter-rated insulation keeps more of its rating in a hot space: never a lower factor.
     const factors = COLUMNS.map((c) => ENGINE_SPACE_FACTORS[c]);
     factors.slice(1).forEach((f, i) => expect(f).toBeGreaterThanOrEqual(factors[i]!));
-    expect(engineSpaceFactor(85)).toBe(0.75); // by the column rule, 80 °C
+    expect(engineSpaceFactor(85)).toBe(0.78); // by the column rule, 80 °C
+  });
+
+  it('gives the check values of the issue', () => {
+    // [C] 2 AWG, 105 °C, engine bay: Table 5 210 A × 0.85 = 178.5 A.
+    const two = wireAmpacity({
+      areaMm2: awgAreaMm2(2),
+      insulationRatingC: 105,
+      zone: 'engine_bay',
+    });
+    expect(two.ampacityA).toBeCloseTo(178.5, 6);
+    expect(two.extrapolated).toBe(false);
+    // Table 5, 1/0 AWG, 105 °C, outside engine spaces: 285 A.
+    const zero = wireAmpacity({ areaMm2: awgAreaMm2(0), insulationRatingC: 105, zone: 'cabin' });
+    expect(zero.ampacityA).toBe(285);
+    // [C] 16 AWG, 80 °C, engine space: 20 × 0.78 = 15.6 A (references.md check value).
+    const sixteen = wireAmpacity({
+      areaMm2: awgAreaMm2(16),
+      insulationRatingC: 80,
+      zone: 'engine_bay',
+    });
+    expect(sixteen.ampacityA).toBeCloseTo(15.6, 9);
+    // [C] 85 °C GPT cable is rated by the 80 °C column: 14 AWG in the engine bay 25 × 0.78 = 19.5 A.
+    expect(
+      wireAmpacity({ areaMm2: awgAreaMm2(14), insulationRatingC: 85, zone: 'engine_bay' })
+        .ampacityA,
+    ).toBeCloseTo(19.5, 9);
   });
 
   it('marks a factor from memory in the working', () => {
-    // [C] 12 AWG, 125 °C, engine bay: 50 × 0.89 = 44.5 A
-    const r = wireAmpacity({ areaMm2: awgAreaMm2(12), insulationRatingC: 125, zone: 'engine_bay' });
-    expect(r.ampacityA).toBeCloseTo(44.5, 9);
+    // [C] 12 AWG, 60 °C, engine bay: 25 × 0.58 = 14.5 A (0.58 from memory)
+    const r = wireAmpacity({ areaMm2: awgAreaMm2(12), insulationRatingC: 60, zone: 'engine_bay' });
+    expect(r.ampacityA).toBeCloseTo(14.5, 9);
     expect(r.notes.join(' ')).toMatch(/from memory/);
     const verified = wireAmpacity({
       areaMm2: awgAreaMm2(12),
@@ -239,16 +274,22 @@ describe('sizes outside the table', () => {
     ).toBeCloseTo(12.58, 2);
   });
 
-  it('rates anything thicker than 4 AWG as 4 AWG, flagged', () => {
-    for (const areaMm2 of [25, awgAreaMm2(2), 70]) {
-      const r = wireAmpacity({ areaMm2, insulationRatingC: 105, zone: 'cabin' });
-      expect(r.tableAwg).toBe(4);
-      expect(r.ampacityA).toBe(160); // Table 5, 4 AWG, 105 °C
-      expect(r.extrapolated).toBe(true);
-      expect(r.sizeRule).toBe('capped-at-4-awg');
-    }
-    const four = wireAmpacity({ areaMm2: awgAreaMm2(4), insulationRatingC: 105, zone: 'cabin' });
-    expect(four.extrapolated).toBe(false);
+  it('rates sizes past 4 AWG by their own rows, and only beyond 4/0 caps, flagged', () => {
+    // 25 mm² lies between 4 AWG (21.2 mm²) and 3 AWG (26.7 mm²): rated as 4 AWG, 160 A at 105 °C.
+    const metric = wireAmpacity({ areaMm2: 25, insulationRatingC: 105, zone: 'cabin' });
+    expect(metric.tableAwg).toBe(4);
+    expect(metric.ampacityA).toBe(160);
+    expect(metric.extrapolated).toBe(false);
+    // 70 mm² lies between 2/0 (67.4 mm²) and 3/0 (85.0 mm²): the 2/0 row, 330 A at 105 °C.
+    expect(wireAmpacity({ areaMm2: 70, insulationRatingC: 105, zone: 'cabin' }).ampacityA).toBe(
+      330,
+    );
+    // Thicker than 4/0 (107.2 mm²): rated as 4/0, 445 A, flagged.
+    const huge = wireAmpacity({ areaMm2: 120, insulationRatingC: 105, zone: 'cabin' });
+    expect(huge.tableAwg).toBe(-3);
+    expect(huge.ampacityA).toBe(445);
+    expect(huge.extrapolated).toBe(true);
+    expect(huge.sizeRule).toBe('capped-at-4-0-awg');
   });
 
   it('refuses insulation below the table and sizes that are not sizes', () => {

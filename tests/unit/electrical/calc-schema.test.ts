@@ -14,7 +14,8 @@ describe('calculator request', () => {
   it('accepts a minimal request and fills the defaults', () => {
     expect(CalcRequest.parse(VALID)).toEqual({
       ...VALID,
-      conductorTempC: 20,
+      awgAreaBasis: 'sae-j1128-min',
+      fuseType: 'standard_blade',
       insulationRatingC: 105,
       zone: 'cabin',
       bundled: 1,

@@ -7,8 +7,10 @@ import {
   copperTemperatureFactor,
   ISO_6722_MAX_RESISTANCE_MOHM_PER_M,
   iso6722MaxResistanceOhmPerM,
+  resistanceAreaMm2,
+  SAE_J1128_MIN_AREA_CMIL,
 } from '#shared/domain/electrical/copper.ts';
-import { awgAreaMm2 } from '#shared/domain/wire-sizes.ts';
+import { awgAreaMm2, storedAwgAreaMm2 } from '#shared/domain/wire-sizes.ts';
 
 const FOOT_M = 0.3048;
 const relative = (a: number, b: number) => Math.abs(a - b) / b;
@@ -31,16 +33,68 @@ describe('copper resistance at 20 °C', () => {
     [18, 6.385],
     [20, 10.15],
   ])('%i AWG from its ASTM B258 area is %f Ω/1000 ft within 0.5 %', (gauge, published) => {
-    const ohm = conductorResistanceOhm({ areaMm2: awgAreaMm2(gauge), lengthM: 1000 * FOOT_M });
+    const ohm = conductorResistanceOhm({
+      areaMm2: awgAreaMm2(gauge),
+      lengthM: 1000 * FOOT_M,
+      awgAreaBasis: 'astm-b258-nominal',
+    });
     expect(relative(ohm, published)).toBeLessThan(0.005);
   });
 
   it('takes a given resistivity, as worked examples use', () => {
     // [C] ρ = 0.01785 (the worked example's value): 0.01785 × 40 / 1.3 = 0.54923 Ω.
-    const r = conductorResistance({ areaMm2: 1.3, lengthM: 40, resistivityOhmMm2PerM: 0.01785 });
+    const r = conductorResistance({
+      areaMm2: 1.3,
+      lengthM: 40,
+      resistivityOhmMm2PerM: 0.01785,
+      awgAreaBasis: 'astm-b258-nominal',
+    });
     expect(r.resistanceOhm).toBeCloseTo(0.54923, 5);
     expect(r.sources).not.toContain('iacs-copper');
     expect(r.notes.join(' ')).toMatch(/as given/);
+  });
+});
+
+describe('automotive AWG cable at its SAE J1128 minimum area', () => {
+  // SAE J1128 minimum areas, circular mils, as reprinted in a wire maker's catalogue appendix.
+  it.each([
+    [18, 1537],
+    [16, 2336],
+    [14, 3702],
+    [12, 5833],
+    [10, 9343],
+    [8, 14810],
+    [6, 24538],
+    [4, 37360],
+  ])('%i AWG is worked at %i cmil by default', (gauge, cmil) => {
+    expect(SAE_J1128_MIN_AREA_CMIL[gauge]).toBe(cmil);
+    const worked = resistanceAreaMm2(storedAwgAreaMm2(gauge));
+    expect(worked.basisUsed).toBe('sae-j1128-min');
+    // [C] 1 cmil = 5.067×10⁻⁴ mm².
+    expect(worked.areaMm2).toBeCloseTo(cmil * 5.067e-4, 9);
+    // 5–11 % below the ASTM B258 nominal area (the same appendix says so).
+    const below = 1 - worked.areaMm2 / awgAreaMm2(gauge);
+    expect(below).toBeGreaterThan(0.04);
+    expect(below).toBeLessThan(0.12);
+  });
+
+  it('keeps the ASTM B258 nominal area when asked, and for gauges no minimum is held for', () => {
+    expect(resistanceAreaMm2(storedAwgAreaMm2(12), 'astm-b258-nominal').basisUsed).toBe(
+      'astm-b258-nominal',
+    );
+    const thick = resistanceAreaMm2(storedAwgAreaMm2(2));
+    expect(thick.basisUsed).toBe('astm-b258-nominal');
+    expect(thick.note).toMatch(/No SAE J1128 minimum area is held for 2 AWG/);
+    // A metric size is worked at its own area.
+    expect(resistanceAreaMm2(2.5)).toEqual({ areaMm2: 2.5, basisUsed: 'as-given', note: null });
+  });
+
+  it('names the J1128 area in the working', () => {
+    const r = conductorResistance({ areaMm2: storedAwgAreaMm2(14), lengthM: 1 });
+    expect(r.sources).toContain('sae-j1128-area');
+    expect(r.notes.join(' ')).toMatch(/3702 cmil/);
+    // [C] 0.017241 / (3702 × 5.067e-4) = 0.0091912 Ω/m
+    expect(r.ohmPerM20).toBeCloseTo(0.017241 / (3702 * 5.067e-4), 9);
   });
 });
 
@@ -90,7 +144,12 @@ describe('the ISO 6722 maximum-resistance option', () => {
   it('falls back to IACS for sizes the table lacks, and says so', () => {
     // 25 mm² is an ISO 6722 size without a maximum in the table held; 0.823 mm² is 18 AWG.
     for (const areaMm2 of [25, 0.22, awgAreaMm2(18)]) {
-      const r = conductorResistance({ areaMm2, lengthM: 1, model: 'iso6722-max' });
+      const r = conductorResistance({
+        areaMm2,
+        lengthM: 1,
+        model: 'iso6722-max',
+        awgAreaBasis: 'astm-b258-nominal',
+      });
       expect(r.modelUsed).toBe('iacs');
       expect(r.resistanceOhm).toBeCloseTo(COPPER_RESISTIVITY_OHM_MM2_PER_M / areaMm2, 9);
       expect(r.notes.join(' ')).toMatch(/not in the ISO 6722 maximum-resistance table/);

@@ -1,4 +1,5 @@
 import fc from 'fast-check';
+import { DRIVER_TYPES } from '#shared/domain/electrical/relays.ts';
 import { describe, expect, it } from 'vitest';
 import {
   blankRecord,
@@ -52,6 +53,8 @@ const INPUTS: { [K in keyof PinValues]: fc.Arbitrary<unknown> } = {
   destinationFeedId: orNull(fc.integer({ min: -5, max: Number.MAX_SAFE_INTEGER })),
   runLengthM: orNull(fc.double({ min: -1, max: 120, noNaN: true })),
   loadCurrentA: orNull(fc.double({ min: -1, max: 250, noNaN: true })),
+  driverType: orNull(fc.constantFrom(...DRIVER_TYPES)),
+  driverRatedA: orNull(fc.double({ min: -1, max: 60, noNaN: true })),
   notes: fc.string({ maxLength: 2100, unit: 'binary' }),
 };
 

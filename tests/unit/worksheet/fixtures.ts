@@ -75,6 +75,8 @@ export function bigSnapshot(pinCount: number): ConversionSnapshot {
               : 0.5 + (i % 7) * 0.25
             : null,
         loadCurrentA: null,
+        driverType: null,
+        driverRatedA: null,
         notes: i % 25 === 0 ? 'Check the routing against the loom drawing.' : '',
       });
     }

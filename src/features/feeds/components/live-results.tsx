@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { CONDUCTOR_TEMP_C } from '#shared/domain/checks/check-context.ts';
+import { AMBIENT_C } from '#shared/domain/electrical/conductor-temperature.ts';
 import { recommendedFuseA } from '#shared/domain/electrical/fuses.ts';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
 import { fuseLabel, num } from '../lib/feed-display.ts';
@@ -28,8 +28,10 @@ export function LiveResults({
     >
       <h3 className="font-semibold">Live results</h3>
       <p className="mb-2 text-xs text-ink-faint">
-        As the checks will see this feed: the conductor at {CONDUCTOR_TEMP_C[values.zone]} °C, the
-        ambient Table 5 assumes {values.zone === 'engine_bay' ? 'in' : 'outside'} the engine bay.
+        As the checks will see this feed: air at {AMBIENT_C[values.zone]} °C, the ambient Table 5
+        assumes {values.zone === 'engine_bay' ? 'in' : 'outside'} the engine bay, and the conductor
+        warmed by its load. The drop here is the wire&apos;s own; the checks add the fuse, relay,
+        terminals and return path.
       </p>
       {live.ok ? (
         <>

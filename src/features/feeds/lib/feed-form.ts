@@ -2,7 +2,6 @@
  * The feed form's values (text as typed) and their mapping to and from the API's shapes. Pure, so
  * the mapping is unit-tested in node.
  */
-import { CONDUCTOR_TEMP_C } from '#shared/domain/checks/check-context.ts';
 import { FeedChain } from '#shared/domain/checks/feed-chain.ts';
 import { DROP_LIMIT_PCT } from '#shared/domain/electrical/voltage-drop.ts';
 import {
@@ -357,7 +356,6 @@ export function formToCalcRequest(
     systemV: context.systemV,
     ...(iso !== null ? { sizeMm2: iso } : { awg: gauge ?? undefined }),
     returnPath: values.returnPath,
-    conductorTempC: CONDUCTOR_TEMP_C[values.zone],
     insulationRatingC: Number(values.insulationRatingC),
     zone: values.zone,
     bundled: bundled.ok && bundled.value !== null && bundled.value >= 1 ? bundled.value : 1,

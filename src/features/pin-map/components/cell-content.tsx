@@ -1,3 +1,4 @@
+import { DRIVER_TYPE_SHORT } from '#shared/domain/fields/text-parsers.ts';
 import { SIGNAL_CLASS_LABELS } from '#shared/domain/signal-classes.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
@@ -70,6 +71,10 @@ export function CellContent({
       return numberCell(pin.runLengthM);
     case 'load':
       return numberCell(pin.loadCurrentA);
+    case 'driverType':
+      return pin.driverType ? <span>{DRIVER_TYPE_SHORT[pin.driverType]}</span> : <Empty />;
+    case 'driverRated':
+      return numberCell(pin.driverRatedA);
     case 'notes':
       return pin.notes ? <span className="truncate text-ink-soft">{pin.notes}</span> : <Empty />;
   }

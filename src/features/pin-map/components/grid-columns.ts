@@ -47,6 +47,8 @@ const COLUMN_WIDTHS: Record<GridColumnId, number> = {
   destination: 170,
   runLength: 80,
   load: 80,
+  driverType: 116,
+  driverRated: 80,
   notes: 220,
 };
 
@@ -65,6 +67,8 @@ const SORT_FN: Record<PinColumnId, 'alphanumeric' | 'text' | 'basic'> = {
   destination: 'text',
   runLength: 'basic',
   load: 'basic',
+  driverType: 'text',
+  driverRated: 'basic',
   notes: 'text',
 };
 

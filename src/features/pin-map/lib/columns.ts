@@ -90,6 +90,8 @@ export function sortValue(row: PinRow, id: PinColumnId): string | number | undef
       return pin.runLengthM ?? undefined;
     case 'load':
       return pin.loadCurrentA ?? undefined;
+    case 'driverRated':
+      return pin.driverRatedA ?? undefined;
     default:
       return cellText(row, id, 'mm2');
   }
