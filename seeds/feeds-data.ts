@@ -2,7 +2,8 @@
  * The demo's new fused feeds (sizes are demo values). Pins are named "E2-9" and resolved to ids when
  * seeding. The draft plants two feed problems: the cooling fan drawn in 1.0 mm² under a 30 A fuse
  * (the fuse does not protect the wire) and a 4 m run to the rear fuel pump in 0.75 mm² (voltage
- * drop too high).
+ * drop too high). The signed-off plan's critical feeds are sized for the whole drop budget: fuse,
+ * relay contacts, terminals and chassis return on top of the wire (2.5 mm² ECU main, 6 mm² pump).
  */
 import type { CreateFeedRequest } from '#shared/schemas/feeds.schema.ts';
 
@@ -21,7 +22,7 @@ const ECU_MAIN: DemoFeed = {
   fuseA: 15,
   relay: { contactRatingA: 30, coilCurrentA: 0.15, coilPin: 'E2-1' },
   wire: {
-    sizeMm2: 1.5,
+    sizeMm2: 2.5,
     insulationRatingC: 105,
     lengthM: 1,
     zone: 'engine_bay',
@@ -70,7 +71,7 @@ const FUEL_PUMP: DemoFeed = {
   fuseA: 20,
   relay: { contactRatingA: 30, coilCurrentA: 0.15, coilPin: 'E2-9' },
   wire: {
-    sizeMm2: 4,
+    sizeMm2: 6,
     insulationRatingC: 105,
     lengthM: 4,
     zone: 'cabin',

@@ -250,7 +250,8 @@ async function seedSignedOffRevision(
   const snapshot = await loadConversionSnapshot({ workshopId }, conversionId, transaction);
   const { findings } = checkReport(snapshot, { sizeUnit: 'mm2' });
   if (findings.some((f) => f.severity === 'error')) {
-    throw new Error('the signed-off demo conversion must pass its checks');
+    const errors = findings.filter((f) => f.severity === 'error').map((f) => f.message);
+    throw new Error(`the signed-off demo conversion must pass its checks: ${errors.join(' | ')}`);
   }
   const builder = await User.findByPk(users.builder!, { transaction });
   const reviewer = await User.findByPk(users.reviewer!, { transaction });

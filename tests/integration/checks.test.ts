@@ -44,7 +44,10 @@ describe('checks on the demo conversions', () => {
     );
     expect(pump).toMatchObject({ severity: 'error' });
     expect(pump!.values.voltageDropPct!.value as number).toBeGreaterThan(3);
-    expect(pump!.working.join(' ')).toMatch(/0\.017241/);
+    // The working shows the conductor temperature (¶11-66) and the whole drop budget.
+    expect(pump!.working.join(' ')).toMatch(/Conductor temperature 30 \+ \(105 − 30\)/);
+    expect(pump!.working.join(' ')).toMatch(/Relay contacts 30 A at 14 A/);
+    expect(pump!.working.join(' ')).toMatch(/Chassis return: 0\.05 V/);
 
     const ground = findings.find((f) => f.rule === 'sensor_ground_extra_ground');
     expect(ground).toMatchObject({ severity: 'warning' });
@@ -108,14 +111,48 @@ describe('POST /api/calc/run', () => {
       .set('Authorization', await ctx.authFor('technician'))
       .send(base);
     expect(res.status).toBe(200);
-    // 0.017241 × 4 / 0.75 = 0.091952 Ω at 20 °C; × 14 A = 1.287 V = 10.73 % of 12 V [C].
-    expect(res.body.resistanceOhm).toBeCloseTo(0.09195, 4);
-    expect(res.body.voltageDropV).toBeCloseTo(1.287, 2);
-    expect(res.body.voltageDropPct).toBeCloseTo(10.73, 1);
+    // [C] 0.75 mm² is rated 20 × 0.75/0.8231 = 18.22 A (Table 5, 18 AWG scaled); in 30 °C air
+    //     14 A runs it at 30 + 75 × (14/18.22)² = 74.3 °C (FAA AC 43.13-1B ¶11-66), × 1.21329:
+    //     R = 0.017241 × 4 / 0.75 × 1.21329 = 0.11156 Ω; × 14 A = 1.562 V = 13.02 % of 12 V.
+    expect(res.body.conductorTempC).toBeCloseTo(74.27, 1);
+    expect(res.body.resistanceOhm).toBeCloseTo(0.11156, 4);
+    expect(res.body.voltageDropV).toBeCloseTo(1.562, 2);
+    expect(res.body.voltageDropPct).toBeCloseTo(13.02, 1);
     expect(res.body.fuseProtectsWire).toBe(false);
     expect(res.body.recommendedFuseA).toBe(20);
+    // [C] 3 mm² (14 AWG row, 35 A, 42 °C): 0.02498 Ω ≤ 0.36 V / 14 A = 0.02571 Ω.
     expect(res.body.minSizeForDrop.mm2.areaMm2).toBe(3);
     expect(res.body.sources.length).toBeGreaterThan(0);
+  });
+
+  it.each([
+    // [C] Table 5, 2 AWG, 105 °C: 210 A × 0.85 (note 1, engine space) = 178.5 A.
+    [{ awg: 2, insulationRatingC: 105, zone: 'engine_bay' }, 178.5],
+    // Table 5, 1/0 AWG, 105 °C, outside engine spaces: 285 A.
+    [{ awg: '1/0', insulationRatingC: 105, zone: 'cabin' }, 285],
+    // [C] Table 5, 16 AWG, 80 °C: 20 A × 0.78 (ABYC E-11 Table VI-B ratio) = 15.6 A.
+    [{ awg: 16, insulationRatingC: 80, zone: 'engine_bay' }, 15.6],
+  ])('rates %j at %f A', async (wire, ampacityA) => {
+    const res = await request(ctx.app)
+      .post('/api/calc/run')
+      .set('Authorization', await ctx.authFor('builder'))
+      .send({ currentA: 5, lengthM: 1, systemV: 12, returnPath: 'wire', ...wire });
+    expect(res.status).toBe(200);
+    expect(Math.abs(res.body.ampacityA - ampacityA)).toBeLessThanOrEqual(0.5);
+  });
+
+  it('never names a size with "≈", and suggests only gauges that are sold', async () => {
+    for (const currentA of [3, 9, 15, 27, 60]) {
+      const res = await request(ctx.app)
+        .post('/api/calc/run')
+        .set('Authorization', await ctx.authFor('builder'))
+        .send({ ...base, currentA, sizeMm2: 1, dropLimitPct: 3, fuseA: undefined });
+      expect(res.status).toBe(200);
+      expect(JSON.stringify(res.body)).not.toMatch(/≈\s*\d/);
+      const gauge = res.body.minSizeForDrop.awg?.awg as number | undefined;
+      // Even gauges 22 … 2, then 1 and 1/0 … 4/0 (common practice, no source).
+      if (gauge !== undefined) expect(gauge % 2 === 0 || gauge <= 1).toBe(true);
+    }
   });
 
   it('takes an AWG size', async () => {

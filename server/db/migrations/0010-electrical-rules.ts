@@ -24,7 +24,7 @@ export const electricalRules: Migration = {
         CHECK (kind IN ('resistive', 'motor', 'lamp'))`,
       `ALTER TABLE workshops ADD COLUMN drop_fuse_v REAL NOT NULL DEFAULT 0.1`,
       `ALTER TABLE workshops ADD COLUMN drop_relay_contacts_v REAL NOT NULL DEFAULT 0.1`,
-      `ALTER TABLE workshops ADD COLUMN drop_per_connection_v REAL NOT NULL DEFAULT 0.01`,
+      `ALTER TABLE workshops ADD COLUMN drop_per_connection_v REAL NOT NULL DEFAULT 0.005`,
       `ALTER TABLE workshops ADD COLUMN drop_chassis_return_v REAL NOT NULL DEFAULT 0.05`,
     ];
     for (const sql of statements) await sequelize.query(sql, { transaction });

@@ -36,7 +36,7 @@ export class Workshop extends Model<InferAttributes<Workshop>, InferCreationAttr
         serviceAllowancePct: { type: DataTypes.REAL, allowNull: false, defaultValue: 15 },
         dropFuseV: { type: DataTypes.REAL, allowNull: false, defaultValue: 0.1 },
         dropRelayContactsV: { type: DataTypes.REAL, allowNull: false, defaultValue: 0.1 },
-        dropPerConnectionV: { type: DataTypes.REAL, allowNull: false, defaultValue: 0.01 },
+        dropPerConnectionV: { type: DataTypes.REAL, allowNull: false, defaultValue: 0.005 },
         dropChassisReturnV: { type: DataTypes.REAL, allowNull: false, defaultValue: 0.05 },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,

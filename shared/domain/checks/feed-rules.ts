@@ -369,8 +369,12 @@ export function checkFeed(ctx: CheckContext, feed: SnapshotFeed): Finding[] {
     const budget = dropBudget({
       copperV: drop.voltageDropV,
       upstream,
-      fuses: path.filter((f) => f.fuseA != null).length,
-      relays: path.filter((f) => f.relay != null).length,
+      fuses: path.flatMap((f) =>
+        f.fuseA != null ? [{ ratingA: f.fuseA, currentA: ctx.current(f).totalA }] : [],
+      ),
+      relays: path.flatMap((f) =>
+        f.relay ? [{ ratingA: f.relay.contactRatingA, currentA: ctx.current(f).totalA }] : [],
+      ),
       connections: path.reduce((n, f) => n + (f.wire.connections ?? DEFAULT_CONNECTIONS), 0),
       returnPath: feed.wire.returnPath,
       allowances,

@@ -6,11 +6,15 @@ import { FLOAT_SLACK, requireNonNegative, requirePositive } from './guards.ts';
 import type { SourceId } from './sources.ts';
 import type { ReturnPath } from './voltage-drop.ts';
 
-/** What each part of a circuit is allowed to drop, volts; a workshop can change every one. */
+/**
+ * What each part of a circuit drops, volts; a workshop can change every one. A fuse and a set of
+ * relay contacts are resistances, so their figure is at their rating and scales with the current
+ * through them; a terminal and the chassis are taken as fixed.
+ */
 export interface DropAllowances {
-  /** Across one fuse and its holder. */
+  /** Across one fuse and its holder, at the fuse's rating. */
   fuseV: number;
-  /** Across a closed relay's contacts. */
+  /** Across a closed relay's contacts, at their rating. */
   relayContactsV: number;
   /** Per crimped terminal or splice along the feed. */
   perConnectionV: number;
@@ -20,13 +24,13 @@ export interface DropAllowances {
 
 /**
  * Defaults. The fuse figure is from memory (blade-fuse makers' datasheets list roughly 0.1 V across
- * a fuse near its rating); the others are common practice, no source. A shop that measures its own
+ * a fuse at its rating); the others are common practice, no source. A shop that measures its own
  * parts should put its figures in the workshop settings.
  */
 export const DEFAULT_DROP_ALLOWANCES: Readonly<DropAllowances> = {
   fuseV: 0.1,
   relayContactsV: 0.1,
-  perConnectionV: 0.01,
+  perConnectionV: 0.005,
   chassisReturnV: 0.05,
 };
 
@@ -45,10 +49,10 @@ export interface DropBudgetInput {
   copperV: number;
   /** Drops in the wires of the feeds up the chain of relay outputs, V, nearest first. */
   upstream?: ReadonlyArray<{ name: string; copperV: number }>;
-  /** Fuses the current passes through. */
-  fuses: number;
-  /** Relay contact sets the current passes through. */
-  relays: number;
+  /** Fuses on the path: each one's rating and the current through it, A. */
+  fuses: ReadonlyArray<{ ratingA: number; currentA: number }>;
+  /** Relay contact sets on the path: each one's contact rating and the current through it, A. */
+  relays: ReadonlyArray<{ ratingA: number; currentA: number }>;
   /** Crimped terminals and splices. */
   connections: number;
   returnPath: ReturnPath;
@@ -90,23 +94,36 @@ export function dropBudget(input: DropBudgetInput): DropBudget {
       source: 'iacs-copper',
     });
   }
-  const parts: Array<[number, string, keyof DropAllowances]> = [
-    [input.fuses, `${input.fuses} × fuse at ${r3(a.fuseV)} V`, 'fuseV'],
-    [
-      input.relays,
-      `${input.relays} × relay contacts at ${r3(a.relayContactsV)} V`,
-      'relayContactsV',
-    ],
-    [
-      input.connections,
-      `${input.connections} × terminal or splice at ${r3(a.perConnectionV)} V`,
-      'perConnectionV',
-    ],
-    [input.returnPath === 'chassis' ? 1 : 0, 'Chassis return', 'chassisReturnV'],
-  ];
-  for (const [count, label, key] of parts) {
-    if (count > 0)
-      lines.push({ label, volts: count * a[key], source: DROP_ALLOWANCE_SOURCES[key] });
+  // A fuse or a set of contacts drops its figure at its rating, in proportion below it.
+  const scaled = (
+    parts: DropBudgetInput['fuses'],
+    name: string,
+    key: 'fuseV' | 'relayContactsV',
+  ) => {
+    for (const p of parts) {
+      requirePositive('ratingA', p.ratingA);
+      lines.push({
+        label: `${name} ${r3(p.ratingA)} A at ${r3(p.currentA)} A: ${r3(a[key])} V × ${r3(p.currentA)} / ${r3(p.ratingA)}`,
+        volts: (a[key] * p.currentA) / p.ratingA,
+        source: DROP_ALLOWANCE_SOURCES[key],
+      });
+    }
+  };
+  scaled(input.fuses, 'Fuse', 'fuseV');
+  scaled(input.relays, 'Relay contacts', 'relayContactsV');
+  if (input.connections > 0) {
+    lines.push({
+      label: `${input.connections} × terminal or splice at ${r3(a.perConnectionV)} V`,
+      volts: input.connections * a.perConnectionV,
+      source: DROP_ALLOWANCE_SOURCES.perConnectionV,
+    });
+  }
+  if (input.returnPath === 'chassis') {
+    lines.push({
+      label: 'Chassis return',
+      volts: a.chassisReturnV,
+      source: DROP_ALLOWANCE_SOURCES.chassisReturnV,
+    });
   }
   const totalV = lines.reduce((sum, l) => sum + l.volts, 0);
   const limitV = (limitPct / 100) * systemV;

@@ -24,11 +24,13 @@ describe('calculator form → request', () => {
         systemV: 12,
         sizeMm2: 1.5,
         returnPath: 'wire',
-        conductorTempC: 20,
+        // No temperatures: the server takes the zone's ambient and estimates the conductor from
+        // the load, as the checks do (one set of defaults for both).
         insulationRatingC: 105,
         zone: 'cabin',
         bundled: 1,
         fuseA: 15,
+        fuseType: 'standard_blade',
         dropLimitPct: 3,
       },
     });

@@ -54,9 +54,9 @@ describe('conductor temperature under load (FAA AC 43.13-1B ¶11-66)', () => {
 describe('drop budget', () => {
   it('has defaults, each with its source or marked common practice / from memory', () => {
     expect(DEFAULT_DROP_ALLOWANCES).toEqual({
-      fuseV: 0.1, // from memory: blade-fuse datasheets list about 0.1 V near the rating
-      relayContactsV: 0.1, // common practice, no source
-      perConnectionV: 0.01, // common practice, no source
+      fuseV: 0.1, // at the fuse's rating; from memory: blade-fuse datasheets list about 0.1 V
+      relayContactsV: 0.1, // at the contact rating; common practice, no source
+      perConnectionV: 0.005, // common practice, no source
       chassisReturnV: 0.05, // common practice, no source
     });
     expect(DROP_ALLOWANCE_SOURCES.fuseV).toBe('from-memory');
@@ -64,36 +64,38 @@ describe('drop budget', () => {
   });
 
   it('adds copper, fuse, relay, terminals and return path against the limit', () => {
-    // [C] 0.2 + 0.1 + 0.1 + 4 × 0.01 + 0.05 = 0.49 V = 4.08 % of 12 V > 3 % (0.36 V).
+    // [C] 0.2 V copper + 15 A fuse at 10 A: 0.1 × 10/15 = 0.0667 V + 30 A contacts at 10 A:
+    //     0.1 × 10/30 = 0.0333 V + 4 × 0.005 V + chassis 0.05 V = 0.37 V = 3.08 % > 3 % (0.36 V).
     const b = dropBudget({
       copperV: 0.2,
-      fuses: 1,
-      relays: 1,
+      fuses: [{ ratingA: 15, currentA: 10 }],
+      relays: [{ ratingA: 30, currentA: 10 }],
       connections: 4,
       returnPath: 'chassis',
       allowances: DEFAULT_DROP_ALLOWANCES,
       systemV: 12,
       limitPct: 3,
     });
-    expect(b.totalV).toBeCloseTo(0.49, 9);
+    expect(b.totalV).toBeCloseTo(0.37, 9);
     expect(b.limitV).toBeCloseTo(0.36, 9);
     expect(b.withinLimit).toBe(false);
-    // [C] copper may take 0.36 − 0.29 = 0.07 V.
-    expect(b.copperAllowanceV).toBeCloseTo(0.07, 9);
+    // [C] copper may take 0.36 − 0.17 = 0.19 V.
+    expect(b.copperAllowanceV).toBeCloseTo(0.19, 9);
     expect(b.lines.map((l) => l.label)).toEqual([
       'Wire of this feed',
-      '1 × fuse at 0.1 V',
-      '1 × relay contacts at 0.1 V',
-      '4 × terminal or splice at 0.01 V',
+      'Fuse 15 A at 10 A: 0.1 V × 10 / 15',
+      'Relay contacts 30 A at 10 A: 0.1 V × 10 / 30',
+      '4 × terminal or splice at 0.005 V',
       'Chassis return',
     ]);
   });
 
   it('leaves out the chassis on a two-wire circuit', () => {
+    // [C] 0.1 + 0.1 × 15/15 = 0.2 V ≤ 0.36 V
     const b = dropBudget({
       copperV: 0.1,
-      fuses: 1,
-      relays: 0,
+      fuses: [{ ratingA: 15, currentA: 15 }],
+      relays: [],
       connections: 0,
       returnPath: 'wire',
       allowances: DEFAULT_DROP_ALLOWANCES,

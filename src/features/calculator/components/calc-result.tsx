@@ -66,7 +66,6 @@ export function CalcResultView({
 }) {
   const r = result;
   const limitPct = request.dropLimitPct;
-  const conductorTempC = request.conductorTempC ?? 20;
   const compact = mode === 'compact';
   const headingId = useId();
   const derated = r.deratingFactor !== 1;
@@ -92,7 +91,7 @@ export function CalcResultView({
           term="Voltage drop"
           detail={
             !compact
-              ? `${num(r.conductorLengthM)} m of conductor, ${num(r.resistanceOhm, 4)} Ω at ${conductorTempC} °C`
+              ? `${num(r.conductorLengthM)} m of conductor, ${num(r.resistanceOhm, 4)} Ω at ${num(r.conductorTempC, 1)} °C (${r.conductorTempEstimated ? `estimated from the load in ${num(r.ambientC)} °C air` : 'as measured'})`
               : undefined
           }
         >
@@ -116,7 +115,11 @@ export function CalcResultView({
             <>
               Table 5 {rowText}
               {factors.length ? ` ${factors.join(' ')}` : ''}
-              {r.extrapolated ? ' (scaled down by area: thinner than the table)' : ''}
+              {r.extrapolated
+                ? r.tableAwg === 18
+                  ? ' (scaled down by area: thinner than the table)'
+                  : ' (rated as 4/0 AWG: thicker than the table)'
+                : ''}
             </>
           }
         >

@@ -1,5 +1,6 @@
 import { useId, useState } from 'react';
-import { BLADE_FUSES } from '#shared/domain/electrical/fuses.ts';
+import { AMBIENT_C } from '#shared/domain/electrical/conductor-temperature.ts';
+import { FUSE_FAMILIES, FUSE_TYPES } from '#shared/domain/electrical/fuses.ts';
 import {
   AWG_GAUGES,
   editableWireSize,
@@ -171,11 +172,31 @@ export function CalculatorScreen({
           '3 or more applies the bundle factors (a conservative choice below 50 V).',
         )}
         {text(
-          'conductorTempC',
-          'Conductor temperature',
-          'The checks take 30 °C outside the engine bay, 50 °C in it.',
+          'ambientC',
+          'Air around the wire',
+          `Empty: ${AMBIENT_C.cabin} °C outside the engine bay, ${AMBIENT_C.engine_bay} °C in it, as Table 5 assumes and the checks take.`,
           '°C',
         )}
+        {text(
+          'conductorTempC',
+          'Conductor temperature',
+          'Empty: estimated from the load (FAA AC 43.13-1B ¶11-66), as the checks do. Fill in only a measured value.',
+          '°C',
+        )}
+        <SelectField
+          label="Fuse type"
+          name="fuseType"
+          value={values.fuseType}
+          onChange={(e) => set('fuseType', e.target.value as CalcFormValues['fuseType'])}
+          error={errors.fuseType}
+          hint={FUSE_FAMILIES[values.fuseType].description}
+        >
+          {FUSE_TYPES.map((t) => (
+            <option key={t} value={t}>
+              {FUSE_FAMILIES[t].label}
+            </option>
+          ))}
+        </SelectField>
         {text('systemV', 'System voltage', undefined, 'V')}
         <TextField
           label="Fuse (A)"
@@ -190,11 +211,11 @@ export function CalculatorScreen({
           className="font-mono"
         />
         <datalist id={fuseListId}>
-          {BLADE_FUSES.map((f) => (
+          {FUSE_FAMILIES[values.fuseType].ratings.map((f) => (
             <option
               key={f.ratingA}
               value={String(f.ratingA)}
-              label={`${f.ratingA} A (${f.colour})`}
+              label={f.colour ? `${f.ratingA} A (${f.colour})` : `${f.ratingA} A`}
             />
           ))}
         </datalist>

@@ -3,6 +3,7 @@
  * checked by the same zod schema as the server. Pure, so it is unit-tested in node.
  */
 import { CalcRequest, type CalcRequestInput } from '#shared/schemas/calc.schema.ts';
+import type { FuseType } from '#shared/schemas/feeds.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 
 export interface CalcFormValues {
@@ -13,12 +14,16 @@ export interface CalcFormValues {
   /** In `unit`: "1.5" for mm², "16" or "4/0" for AWG. */
   size: string;
   returnPath: 'wire' | 'chassis';
+  /** '' for the zone's Table 5 ambient. */
+  ambientC: string;
+  /** '' to estimate it from the load (FAA AC 43.13-1B ¶11-66), as the checks do. */
   conductorTempC: string;
   insulationRatingC: string;
   zone: 'cabin' | 'engine_bay';
   bundled: string;
   /** '' for no fuse. */
   fuseA: string;
+  fuseType: FuseType;
   /** '' for no limit. */
   dropLimitPct: string;
 }
@@ -31,7 +36,9 @@ const FIELD_OF: Record<string, keyof CalcFormValues> = {
   sizeMm2: 'size',
   awg: 'size',
   returnPath: 'returnPath',
+  ambientC: 'ambientC',
   conductorTempC: 'conductorTempC',
+  fuseType: 'fuseType',
   insulationRatingC: 'insulationRatingC',
   zone: 'zone',
   bundled: 'bundled',
@@ -53,11 +60,13 @@ export function defaultCalcForm(workshop: {
     unit: workshop.sizeUnit,
     size: workshop.sizeUnit === 'awg' ? '16' : '1.5',
     returnPath: 'wire',
-    conductorTempC: '20',
+    ambientC: '',
+    conductorTempC: '',
     insulationRatingC: String(workshop.defaultInsulationC),
     zone: 'cabin',
     bundled: '1',
     fuseA: '15',
+    fuseType: 'standard_blade',
     dropLimitPct: '3',
   };
 }
@@ -103,11 +112,13 @@ export function calcFormToRequest(values: CalcFormValues): CalcFormRead {
     systemV: number('systemV', true),
     ...sizeField,
     returnPath: values.returnPath,
+    ambientC: number('ambientC', false),
     conductorTempC: number('conductorTempC', false),
     insulationRatingC: number('insulationRatingC', false),
     zone: values.zone,
     bundled: number('bundled', false),
     fuseA: number('fuseA', false),
+    fuseType: values.fuseType,
     dropLimitPct: number('dropLimitPct', false),
   };
   // Leave out what was not given so the schema's defaults apply.

@@ -8,7 +8,9 @@ import { useUpdateWorkshop } from '../api/workshop.ts';
 
 export function SettingsForm({ workshop }: { workshop: WorkshopSettings }) {
   const update = useUpdateWorkshop();
-  const errors = update.error instanceof ApiError ? update.error.fieldIssues() : {};
+  const errors: Record<string, string | undefined> =
+    update.error instanceof ApiError ? update.error.fieldIssues() : {};
+  const DROP = workshop.dropAllowances;
 
   function submit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -20,6 +22,12 @@ export function SettingsForm({ workshop }: { workshop: WorkshopSettings }) {
       systemVoltage: Number(form.get('systemVoltage')) as 12 | 24,
       defaultInsulationC: Number(form.get('defaultInsulationC')),
       serviceAllowancePct: Number(form.get('serviceAllowancePct')),
+      dropAllowances: {
+        fuseV: Number(form.get('dropFuseV')),
+        relayContactsV: Number(form.get('dropRelayContactsV')),
+        perConnectionV: Number(form.get('dropPerConnectionV')),
+        chassisReturnV: Number(form.get('dropChassisReturnV')),
+      },
       version: workshop.version,
     });
   }
@@ -83,6 +91,56 @@ export function SettingsForm({ workshop }: { workshop: WorkshopSettings }) {
         defaultValue={workshop.serviceAllowancePct}
         error={errors.serviceAllowancePct}
       />
+      <fieldset className="grid gap-4 md:col-span-2 md:grid-cols-2">
+        <legend className="mb-1 font-semibold">Voltage-drop budget</legend>
+        <p className="text-sm text-ink-soft md:col-span-2">
+          The checks add these to each feed&apos;s own wire before comparing with its drop limit; a
+          fuse or relay figure is at its rating and scales with the current through it. The fuse
+          figure is from memory (blade-fuse makers list about 0.1 V at the rating); the others are
+          common practice. Put in what your own parts measure.
+        </p>
+        {(
+          [
+            [
+              'dropFuseV',
+              'Across a fuse and its holder, at its rating (V)',
+              DROP.fuseV,
+              errors['dropAllowances.fuseV'],
+            ],
+            [
+              'dropRelayContactsV',
+              'Across closed relay contacts, at their rating (V)',
+              DROP.relayContactsV,
+              errors['dropAllowances.relayContactsV'],
+            ],
+            [
+              'dropPerConnectionV',
+              'Per crimped terminal or splice (V)',
+              DROP.perConnectionV,
+              errors['dropAllowances.perConnectionV'],
+            ],
+            [
+              'dropChassisReturnV',
+              'Chassis return path (V)',
+              DROP.chassisReturnV,
+              errors['dropAllowances.chassisReturnV'],
+            ],
+          ] as const
+        ).map(([name, label, value, error]) => (
+          <TextField
+            key={name}
+            label={label}
+            name={name}
+            type="number"
+            min={0}
+            max={2}
+            step={0.005}
+            defaultValue={value}
+            error={error}
+            className="font-mono"
+          />
+        ))}
+      </fieldset>
       <div className="flex flex-col gap-3 md:col-span-2">
         {update.error && !Object.keys(errors).length ? (
           <Notice tone="fault" title="Settings not saved">
