@@ -164,6 +164,8 @@ describe('workshop templates', () => {
         sizeMm2: p.sizeMm2,
         insulationRatingC: p.insulationRatingC,
         disposition: p.disposition,
+        driverType: p.driverType,
+        driverRatedA: p.driverRatedA,
         notes: p.notes,
       })),
     );

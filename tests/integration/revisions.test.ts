@@ -59,7 +59,8 @@ async function fixDraft() {
   }>;
   for (const [name, sizeMm2] of [
     ['Cooling fan', 4],
-    ['Fuel pump', 4],
+    // 6 mm²: the pump's 3 % is shared with its fuse, relay contacts, terminals and chassis return.
+    ['Fuel pump', 6],
   ] as const) {
     const feed = feeds.find((f) => f.name === name)!;
     await request(ctx.app)

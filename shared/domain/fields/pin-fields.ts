@@ -252,7 +252,7 @@ export const PIN_FIELDS = {
   driverRatedA: field({
     inTemplate: true,
     label: 'Output rating',
-    schema: z.number().positive().max(50).nullable(),
+    schema: z.number().min(0.001).max(50).nullable(),
     blank: null,
     parse: (text) => parseMeasure(text, DRIVER_CURRENT),
     format: numberText,

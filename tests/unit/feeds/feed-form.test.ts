@@ -216,8 +216,8 @@ describe('the live calculation mirrors the checks', () => {
       systemV: 12,
       sizeMm2: 1,
       returnPath: 'wire',
-      // The ambient 33 CFR 183.425 Table 5 note 1 assumes in engine spaces.
-      conductorTempC: 50,
+      // No temperature: the calculator takes the zone's Table 5 ambient and estimates the
+      // conductor from the load (FAA AC 43.13-1B ¶11-66), as the checks do.
       insulationRatingC: 105,
       zone: 'engine_bay',
       bundled: 1,

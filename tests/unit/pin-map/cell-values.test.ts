@@ -25,7 +25,11 @@ describe('colour cells', () => {
     expect(set(parseCell('colour', 'bu/wh', mm2))).toEqual({ colour: 'BU/WH' });
     expect(set(parseCell('colour', 'BU-WH', mm2))).toEqual({ colour: 'BU/WH' });
     expect(set(parseCell('colour', ' rd ', mm2))).toEqual({ colour: 'RD' });
-    expect(set(parseCell('colour', 'gn/ye', mm2))).toEqual({ colour: 'GNYE' });
+    // Green with a yellow stripe; only "GNYE" is IEC 60757's green-yellow (common practice).
+    expect(set(parseCell('colour', 'gn/ye', mm2))).toEqual({ colour: 'GN/YE' });
+    expect(set(parseCell('colour', 'gnye', mm2))).toEqual({ colour: 'GNYE' });
+    // Service-literature abbreviations are read as IEC 60757 codes.
+    expect(set(parseCell('colour', 'BLU/WHT', mm2))).toEqual({ colour: 'BU/WH' });
   });
 
   it('empties the colour on an empty cell', () => {
@@ -33,9 +37,9 @@ describe('colour cells', () => {
   });
 
   it('refuses what is not an IEC 60757 code, saying so', () => {
-    const result = parseCell('colour', 'blue', mm2);
+    const result = parseCell('colour', 'bluish', mm2);
     expect(result.ok).toBe(false);
-    expect(result.ok ? '' : result.error).toMatch(/not an IEC 60757 colour code/);
+    expect(result.ok ? '' : result.error).toMatch(/not a wire colour: use IEC 60757 codes/);
     expect(parseCell('colour', 'BU/BU', mm2).ok).toBe(false);
   });
 });
