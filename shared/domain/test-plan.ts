@@ -27,12 +27,12 @@ export const TEST_PHASE_INFO: Record<TestPhase, { title: string; caution: string
   unplugged: {
     title: 'ECU unplugged, battery disconnected',
     caution:
-      'Battery disconnected and every ECU connector unplugged. Meter on resistance; zero the leads first.',
+      'Battery disconnected and every ECU connector unplugged. Meter on resistance; zero the leads first. Never a test lamp on an ECU pin. Insulation tests only with the ECU and every module unplugged.',
   },
   powered: {
     title: 'Key on, ECU plugged in',
     caution:
-      'First power-up from a current-limited supply where you can. Fuel pump fuse out until the wiring passes. The CAN measurement is made with the power off.',
+      'First power-up from a current-limited supply where you can. Fuel pump fuse out until the wiring passes, and the crash or inertia cut-off in circuit. Measure ECU pins with a high-impedance meter only. The CAN measurement is made with the power off.',
   },
   first_start: {
     title: 'First start',

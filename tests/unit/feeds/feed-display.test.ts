@@ -16,7 +16,7 @@ describe('fuse labels', () => {
   });
 
   it('says so for a rating that is not a blade fuse', () => {
-    expect(fuseLabel(12)).toBe('12 A (not a blade rating)');
+    expect(fuseLabel(12)).toBe('12 A (not a standard blade fuse rating)');
   });
 });
 

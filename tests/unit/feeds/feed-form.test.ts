@@ -24,7 +24,10 @@ const coolingFan: Feed = {
   source: 'battery',
   sourceFeedId: null,
   fuseA: 30,
-  relay: { contactRatingA: 40, coilCurrentA: 0.2, coilPinId: 162 },
+  fuseType: 'standard_blade',
+  unfusedLengthMm: null,
+  fuseSheathed: false,
+  relay: { contactRatingA: 40, coilCurrentA: 0.2, coilPinId: 162, coilResistanceOhm: null },
   wire: {
     sizeMm2: 1,
     insulationRatingC: 105,
@@ -33,8 +36,18 @@ const coolingFan: Feed = {
     bundled: 1,
     returnPath: 'wire',
     colour: 'BU',
+    connections: 4,
   },
-  loads: [{ id: 4, pinId: null, name: 'Electric cooling fan', currentA: 22, continuous: true }],
+  loads: [
+    {
+      id: 4,
+      pinId: null,
+      name: 'Electric cooling fan',
+      currentA: 22,
+      continuous: true,
+      kind: 'motor',
+    },
+  ],
   dropClass: 'general',
   dropLimitPct: null,
   notes: '',
@@ -46,6 +59,9 @@ const requestOf = (feed: Feed) => ({
   source: feed.source,
   sourceFeedId: feed.sourceFeedId,
   fuseA: feed.fuseA,
+  fuseType: feed.fuseType,
+  unfusedLengthMm: feed.unfusedLengthMm,
+  fuseSheathed: feed.fuseSheathed,
   relay: feed.relay,
   wire: feed.wire,
   loads: feed.loads.map(({ id: _id, ...l }) => l),
@@ -157,9 +173,34 @@ describe('feed form ↔ request', () => {
     const form = feedToForm(coolingFan, 'mm2');
     const request = valid({
       ...form,
-      loads: [{ key: 'a', pinId: '154', name: '', currentA: '5', continuous: true }],
+      loads: [{ key: 'a', pinId: '154', name: '', currentA: '5', continuous: true, kind: 'motor' }],
     });
-    expect(request.loads).toEqual([{ pinId: 154, name: '', currentA: 5, continuous: true }]);
+    expect(request.loads).toEqual([
+      { pinId: 154, name: '', currentA: 5, continuous: true, kind: 'motor' },
+    ]);
+  });
+
+  it('carries the fuse family, its distance from the source and the coil resistance', () => {
+    const form = feedToForm(coolingFan, 'mm2');
+    const request = valid({
+      ...form,
+      fuseType: 'maxi_blade',
+      fuseA: '40',
+      unfusedLengthMm: '120',
+      fuseSheathed: true,
+      relayCoilResistanceOhm: '80',
+      connections: '6',
+    });
+    expect(request).toMatchObject({
+      fuseType: 'maxi_blade',
+      fuseA: 40,
+      unfusedLengthMm: 120,
+      fuseSheathed: true,
+      relay: { coilResistanceOhm: 80 },
+      wire: { connections: 6 },
+    });
+    // Not measured yet: no length, and no finding about it.
+    expect(valid({ ...form, unfusedLengthMm: '' }).unfusedLengthMm).toBeNull();
   });
 });
 
@@ -224,6 +265,7 @@ describe('the live calculation mirrors the checks', () => {
       fuseA: 30,
       // ABYC E-11: 10 % for a general circuit.
       dropLimitPct: 10,
+      fuseType: 'standard_blade',
     });
     const result = runCircuitCalc(CalcRequest.parse(live.request));
     // 18 AWG row, 105 °C: 20 A × 0.85 engine-space factor = 17 A (33 CFR 183.425 Table 5).

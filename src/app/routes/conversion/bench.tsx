@@ -62,9 +62,10 @@ export function ConversionBenchRoute() {
       </div>
       <Notice tone="caution" title="Before you start">
         Disconnect the battery. Relieve fuel pressure before opening the fuel system. Airbag
-        circuits stay live after disconnection: follow the maker&apos;s waiting time. Test every
-        circuit before first power-up, ideally from a current-limited supply. Local codes and
-        licensed practice prevail.
+        circuits stay live after disconnection: leave them to the maker&apos;s procedure. Never
+        probe an ECU pin with a test lamp or put 12 V on one; unplug the ECU before an insulation
+        test. Test every circuit before first power-up, ideally from a current-limited supply. Local
+        codes and licensed practice prevail.
       </Notice>
       <div className="flex flex-wrap items-center justify-between gap-3">
         <div role="tablist" aria-label="Bench" className="flex gap-1">

@@ -1,5 +1,9 @@
 import { useFormContext } from 'react-hook-form';
-import { BLADE_FUSES } from '#shared/domain/electrical/fuses.ts';
+import {
+  FUSE_FAMILIES,
+  FUSE_TYPES,
+  UNFUSED_LENGTH_LIMIT_MM,
+} from '#shared/domain/electrical/fuses.ts';
 import { FEED_SOURCE_LABELS, FEED_SOURCES, type Feed } from '#shared/schemas/feeds.schema.ts';
 import { SelectField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
@@ -22,8 +26,9 @@ export function FeedSourceFields({
   const { register } = useFormContext<FeedFormValues>();
   const errorOf = useErrorOf();
   const fuseA = readNumber(values.fuseA === NO_FUSE ? '' : values.fuseA);
+  const family = FUSE_FAMILIES[values.fuseType];
   const standardFuse =
-    values.fuseA === NO_FUSE || BLADE_FUSES.some((f) => String(f.ratingA) === values.fuseA);
+    values.fuseA === NO_FUSE || family.ratings.some((f) => String(f.ratingA) === values.fuseA);
 
   return (
     <FormGroup legend="Feed">
@@ -57,22 +62,60 @@ export function FeedSourceFields({
         </SelectField>
       ) : null}
       <SelectField
-        label="Fuse"
-        {...register('fuseA')}
-        error={errorOf('fuseA')}
-        className="font-mono"
+        label="Fuse type"
+        {...register('fuseType')}
+        error={errorOf('fuseType')}
+        hint={family.description}
       >
-        {values.fuseA === '' ? <option value="">— choose a rating —</option> : null}
-        <option value={NO_FUSE}>No fuse</option>
-        {BLADE_FUSES.map((f) => (
-          <option key={f.ratingA} value={String(f.ratingA)}>
-            {fuseLabel(f.ratingA)}
+        {FUSE_TYPES.map((t) => (
+          <option key={t} value={t}>
+            {FUSE_FAMILIES[t].label}
           </option>
         ))}
-        {!standardFuse && fuseA.ok && fuseA.value !== null ? (
-          <option value={values.fuseA}>{fuseLabel(fuseA.value)}</option>
-        ) : null}
       </SelectField>
+      {family.ratings.length ? (
+        <SelectField
+          label="Fuse"
+          {...register('fuseA')}
+          error={errorOf('fuseA')}
+          className="font-mono"
+        >
+          {values.fuseA === '' ? <option value="">— choose a rating —</option> : null}
+          <option value={NO_FUSE}>No fuse</option>
+          {family.ratings.map((f) => (
+            <option key={f.ratingA} value={String(f.ratingA)}>
+              {fuseLabel(f.ratingA, values.fuseType)}
+            </option>
+          ))}
+          {!standardFuse && fuseA.ok && fuseA.value !== null ? (
+            <option value={values.fuseA}>{fuseLabel(fuseA.value, values.fuseType)}</option>
+          ) : null}
+        </SelectField>
+      ) : (
+        <TextField
+          label="Rating its maker states (A)"
+          inputMode="decimal"
+          className="font-mono"
+          {...register('fuseA')}
+          error={errorOf('fuseA')}
+        />
+      )}
+      {values.fuseA !== NO_FUSE ? (
+        <>
+          <TextField
+            label="Unfused wire from the source (mm)"
+            inputMode="decimal"
+            className="font-mono"
+            {...register('unfusedLengthMm')}
+            error={errorOf('unfusedLengthMm')}
+            hint={`At most ${UNFUSED_LENGTH_LIMIT_MM.bare} mm, ${UNFUSED_LENGTH_LIMIT_MM.sheathed.toLocaleString('en')} mm in a sheath (33 CFR 183.455(b), a marine rule borrowed by analogy). Empty until measured.`}
+          />
+          <label className="flex items-center gap-2 self-center text-sm font-medium text-ink">
+            <input type="checkbox" className="size-4 accent-copper" {...register('fuseSheathed')} />
+            Unfused run is in a sheath or enclosure
+          </label>
+        </>
+      ) : null}
       {values.fuseA === NO_FUSE ? (
         <div className="sm:col-span-2">
           {upstream ? (

@@ -1,3 +1,4 @@
+import { FUSE_FAMILIES } from '#shared/domain/electrical/fuses.ts';
 import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
 import { DROP_LIMIT_PCT } from '#shared/domain/electrical/voltage-drop.ts';
@@ -91,8 +92,22 @@ export function FeedsTable({
         header: 'Fuse',
         cell: ({ row }) => {
           const f = row.original;
-          if (f.fuseA != null)
-            return <span className="font-mono whitespace-nowrap">{fuseLabel(f.fuseA)}</span>;
+          if (f.fuseA != null) {
+            const type = f.fuseType ?? 'standard_blade';
+            return (
+              <span className="whitespace-nowrap">
+                <span className="font-mono">{fuseLabel(f.fuseA, type)}</span>
+                {type !== 'standard_blade' ? (
+                  <span className="block text-xs text-ink-soft">{FUSE_FAMILIES[type].label}</span>
+                ) : null}
+                {f.unfusedLengthMm != null ? (
+                  <span className="block text-xs text-ink-soft">
+                    {f.unfusedLengthMm} mm from source{f.fuseSheathed ? ', sheathed' : ''}
+                  </span>
+                ) : null}
+              </span>
+            );
+          }
           const upstream = f.source === 'relay_output' ? upstreamFuse(f.sourceFeedId, feeds) : null;
           if (upstream) {
             return (

@@ -1,3 +1,4 @@
+import { LOAD_KIND_LABELS, LOAD_KINDS, type LoadKind } from '#shared/domain/electrical/relays.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { newLoadRow, type LoadRow } from '../lib/feed-form.ts';
 import type { PinChoice } from '../lib/feed-display.ts';
@@ -53,6 +54,9 @@ export function LoadsEditor({
               <th scope="col" className="w-28 px-2 py-1.5">
                 Continuous
               </th>
+              <th scope="col" className="w-32 px-2 py-1.5">
+                Kind
+              </th>
               {readOnly ? null : (
                 <th scope="col" className="w-10 px-2 py-1.5">
                   <span className="sr-only">Remove</span>
@@ -63,7 +67,7 @@ export function LoadsEditor({
           <tbody>
             {loads.length === 0 ? (
               <tr>
-                <td colSpan={5} className="px-2 py-3 text-center text-ink-faint">
+                <td colSpan={6} className="px-2 py-3 text-center text-ink-faint">
                   No loads yet.
                 </td>
               </tr>
@@ -121,6 +125,21 @@ export function LoadsEditor({
                       />
                       <span aria-hidden>{load.continuous ? 'Yes' : 'No'}</span>
                     </label>
+                  </td>
+                  <td className="px-2 py-1.5">
+                    <select
+                      aria-label={`Load ${n} kind`}
+                      title="A motor or lamp draws a surge at switch-on: its relay needs room for it."
+                      className={CELL}
+                      value={load.kind}
+                      onChange={(e) => update(i, { kind: e.target.value as LoadKind })}
+                    >
+                      {LOAD_KINDS.map((k) => (
+                        <option key={k} value={k}>
+                          {LOAD_KIND_LABELS[k]}
+                        </option>
+                      ))}
+                    </select>
                   </td>
                   {readOnly ? null : (
                     <td className="px-2 py-1.5">

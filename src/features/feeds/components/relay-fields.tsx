@@ -31,6 +31,15 @@ export function RelayFields({ hasRelay, pins }: { hasRelay: boolean; pins: PinCh
             className="font-mono"
             {...register('relayCoilCurrentA')}
             error={errorOf('relay.coilCurrentA')}
+            hint="Used when the coil resistance is not given."
+          />
+          <TextField
+            label="Coil resistance (Ω)"
+            inputMode="decimal"
+            className="font-mono"
+            {...register('relayCoilResistanceOhm')}
+            error={errorOf('relay.coilResistanceOhm')}
+            hint="From the relay's datasheet; the coil current is worked as V / R and checked against the output that drives it."
           />
           <div className="sm:col-span-2">
             <SelectField

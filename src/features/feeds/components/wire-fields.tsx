@@ -1,11 +1,11 @@
 import { useId } from 'react';
 import { useFormContext } from 'react-hook-form';
 import {
-  AWG_GAUGES,
   exactAwg,
   formatAwgGauge,
   ISO_6722_SIZES_MM2,
   parseWireSize,
+  SOLD_AWG_GAUGES,
 } from '#shared/domain/wire-sizes.ts';
 import { parseWireColour } from '#shared/domain/wire-colours.ts';
 import {
@@ -55,7 +55,7 @@ export function WireFields({ values, sizeUnit }: { values: FeedFormValues; sizeU
       <datalist id={sizeListId}>
         {sizeUnit === 'mm2'
           ? ISO_6722_SIZES_MM2.map((s) => <option key={s} value={String(s)} />)
-          : AWG_GAUGES.map((g) => <option key={g} value={formatAwgGauge(g)} />)}
+          : SOLD_AWG_GAUGES.map((g) => <option key={g} value={formatAwgGauge(g)} />)}
       </datalist>
       <SelectField
         label="Insulation rating"
@@ -99,6 +99,14 @@ export function WireFields({ values, sizeUnit }: { values: FeedFormValues; sizeU
         hint="This one included."
       />
       <TextField
+        label="Terminals and splices"
+        inputMode="numeric"
+        className="font-mono"
+        {...register('connections')}
+        error={errorOf('wire.connections')}
+        hint="Crimped joints from source to load, for the drop budget."
+      />
+      <TextField
         label="Colour (IEC 60757)"
         autoComplete="off"
         className="font-mono uppercase"
@@ -106,9 +114,12 @@ export function WireFields({ values, sizeUnit }: { values: FeedFormValues; sizeU
         error={errorOf('wire.colour')}
         hint={
           colourPreview?.ok ? (
-            <WireColour value={colourPreview.value} />
+            <>
+              <WireColour value={colourPreview.value} />
+              {colourPreview.note ? <span className="block">{colourPreview.note}</span> : null}
+            </>
           ) : (
-            'Base and stripe, e.g. BU/WH'
+            'Base and stripe, e.g. BU/WH (BLU/WHT reads the same); GNYE only for green-yellow'
           )
         }
       />

@@ -1,14 +1,23 @@
 /** How a feed reads in the table and the pickers: fuse colours, sources, pins, check results. */
 import { cavityName } from '#shared/domain/pin-names.ts';
-import { fuseColour } from '#shared/domain/electrical/fuses.ts';
+import {
+  DEFAULT_FUSE_TYPE,
+  FUSE_FAMILIES,
+  fuseColour,
+  isStandardFuseRating,
+  type FuseType,
+} from '#shared/domain/electrical/fuses.ts';
 import { SEVERITIES, type Finding, type Severity } from '#shared/schemas/checks.schema.ts';
 import { FEED_SOURCE_LABELS, type Feed } from '#shared/schemas/feeds.schema.ts';
 import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
 
 /** "15 A (blue)"; a rating that is not a blade fuse has no printed colour to give. */
-export function fuseLabel(fuseA: number): string {
-  const colour = fuseColour(fuseA);
-  return colour ? `${fuseA} A (${colour})` : `${fuseA} A (not a blade rating)`;
+export function fuseLabel(fuseA: number, type: FuseType = DEFAULT_FUSE_TYPE): string {
+  const colour = fuseColour(fuseA, type);
+  if (colour) return `${fuseA} A (${colour})`;
+  return isStandardFuseRating(fuseA, type)
+    ? `${fuseA} A`
+    : `${fuseA} A (not a ${FUSE_FAMILIES[type].label.toLowerCase()} rating)`;
 }
 
 export function sourceLabel(feed: Pick<Feed, 'source' | 'sourceFeedId'>, feeds: Feed[]): string {

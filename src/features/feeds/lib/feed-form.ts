@@ -3,6 +3,8 @@
  * the mapping is unit-tested in node.
  */
 import { FeedChain } from '#shared/domain/checks/feed-chain.ts';
+import { DEFAULT_CONNECTIONS } from '#shared/domain/electrical/drop-budget.ts';
+import { DEFAULT_FUSE_TYPE } from '#shared/domain/electrical/fuses.ts';
 import { DROP_LIMIT_PCT } from '#shared/domain/electrical/voltage-drop.ts';
 import {
   editableWireSize,
@@ -17,6 +19,8 @@ import {
   type DropClass,
   type Feed,
   type FeedSource,
+  type FuseType,
+  type LoadKind,
   type ReturnPath,
   type WireZone,
 } from '#shared/schemas/feeds.schema.ts';
@@ -29,6 +33,7 @@ export interface LoadRow {
   name: string;
   currentA: string;
   continuous: boolean;
+  kind: LoadKind;
 }
 
 export interface FeedFormValues {
@@ -37,9 +42,15 @@ export interface FeedFormValues {
   sourceFeedId: string;
   /** A rating; NO_FUSE, chosen on purpose; or '' before anything is chosen. */
   fuseA: string;
+  fuseType: FuseType;
+  /** Wire between the source and the fuse, mm; '' when not measured yet. */
+  unfusedLengthMm: string;
+  fuseSheathed: boolean;
   hasRelay: boolean;
   relayContactRatingA: string;
   relayCoilCurrentA: string;
+  /** '' when the coil current is given instead. */
+  relayCoilResistanceOhm: string;
   relayCoilPinId: string;
   /** As typed, in the workshop's unit (or with an explicit "mm²" / "AWG"). */
   wireSize: string;
@@ -49,6 +60,8 @@ export interface FeedFormValues {
   bundled: string;
   returnPath: ReturnPath;
   colour: string;
+  /** Crimped terminals and splices along the run. */
+  connections: string;
   loads: LoadRow[];
   dropClass: DropClass;
   /** '' uses the class's limit. */
@@ -63,7 +76,7 @@ export type FieldErrors = Record<string, string>;
 export const NO_FUSE = 'none';
 
 const FORM_FIELDS =
-  /^(name|source|sourceFeedId|fuseA|relay\.(contactRatingA|coilCurrentA|coilPinId)|wire\.(sizeMm2|insulationRatingC|lengthM|zone|bundled|returnPath|colour)|loads(\.\d+\.(name|pinId|currentA))?|dropClass|dropLimitPct|notes)$/;
+  /^(name|source|sourceFeedId|fuseA|fuseType|unfusedLengthMm|fuseSheathed|relay\.(contactRatingA|coilCurrentA|coilResistanceOhm|coilPinId)|wire\.(sizeMm2|insulationRatingC|lengthM|zone|bundled|returnPath|colour|connections)|loads(\.\d+\.(name|pinId|currentA|kind))?|dropClass|dropLimitPct|notes)$/;
 
 /** Whether the form shows an error under this request path; others are told in words above Save. */
 export function isFormField(path: string): boolean {
@@ -73,7 +86,14 @@ export function isFormField(path: string): boolean {
 let loadCounter = 0;
 export function newLoadRow(): LoadRow {
   loadCounter += 1;
-  return { key: `new-${loadCounter}`, pinId: '', name: '', currentA: '', continuous: true };
+  return {
+    key: `new-${loadCounter}`,
+    pinId: '',
+    name: '',
+    currentA: '',
+    continuous: true,
+    kind: 'resistive',
+  };
 }
 
 export function emptyFeedForm(defaults: { insulationRatingC: number }): FeedFormValues {
@@ -82,9 +102,13 @@ export function emptyFeedForm(defaults: { insulationRatingC: number }): FeedForm
     source: 'battery',
     sourceFeedId: '',
     fuseA: '',
+    fuseType: DEFAULT_FUSE_TYPE,
+    unfusedLengthMm: '',
+    fuseSheathed: false,
     hasRelay: false,
     relayContactRatingA: '30',
     relayCoilCurrentA: '0.15',
+    relayCoilResistanceOhm: '',
     relayCoilPinId: '',
     wireSize: '',
     insulationRatingC: String(defaults.insulationRatingC),
@@ -93,6 +117,7 @@ export function emptyFeedForm(defaults: { insulationRatingC: number }): FeedForm
     bundled: '1',
     returnPath: 'wire',
     colour: '',
+    connections: String(DEFAULT_CONNECTIONS),
     loads: [newLoadRow()],
     dropClass: 'general',
     dropLimitPct: '',
@@ -106,9 +131,14 @@ export function feedToForm(feed: Feed, unit: SizeUnit): FeedFormValues {
     source: feed.source,
     sourceFeedId: feed.sourceFeedId == null ? '' : String(feed.sourceFeedId),
     fuseA: feed.fuseA == null ? NO_FUSE : String(feed.fuseA),
+    fuseType: feed.fuseType ?? DEFAULT_FUSE_TYPE,
+    unfusedLengthMm: feed.unfusedLengthMm == null ? '' : String(feed.unfusedLengthMm),
+    fuseSheathed: feed.fuseSheathed ?? false,
     hasRelay: feed.relay !== null,
     relayContactRatingA: feed.relay ? String(feed.relay.contactRatingA) : '30',
     relayCoilCurrentA: feed.relay ? String(feed.relay.coilCurrentA) : '0.15',
+    relayCoilResistanceOhm:
+      feed.relay?.coilResistanceOhm == null ? '' : String(feed.relay.coilResistanceOhm),
     relayCoilPinId: feed.relay?.coilPinId == null ? '' : String(feed.relay.coilPinId),
     wireSize: editableWireSize(feed.wire.sizeMm2, unit),
     insulationRatingC: String(feed.wire.insulationRatingC),
@@ -117,12 +147,14 @@ export function feedToForm(feed: Feed, unit: SizeUnit): FeedFormValues {
     bundled: String(feed.wire.bundled),
     returnPath: feed.wire.returnPath,
     colour: feed.wire.colour,
+    connections: String(feed.wire.connections ?? DEFAULT_CONNECTIONS),
     loads: feed.loads.map((l) => ({
       key: `load-${l.id}`,
       pinId: l.pinId == null ? '' : String(l.pinId),
       name: l.name,
       currentA: String(l.currentA),
       continuous: l.continuous,
+      kind: l.kind ?? 'resistive',
     })),
     dropClass: feed.dropClass,
     dropLimitPct: feed.dropLimitPct == null ? '' : String(feed.dropLimitPct),
@@ -174,10 +206,18 @@ export function formToRequest(values: FeedFormValues, unit: SizeUnit): FormToReq
     source: values.source,
     sourceFeedId: values.source === 'relay_output' ? readId(values.sourceFeedId) : null,
     fuseA: values.fuseA === NO_FUSE ? null : number('fuseA', values.fuseA, true),
+    fuseType: values.fuseType,
+    unfusedLengthMm: number('unfusedLengthMm', values.unfusedLengthMm, false),
+    fuseSheathed: values.fuseSheathed,
     relay: values.hasRelay
       ? {
           contactRatingA: number('relay.contactRatingA', values.relayContactRatingA, true),
           coilCurrentA: number('relay.coilCurrentA', values.relayCoilCurrentA, true),
+          coilResistanceOhm: number(
+            'relay.coilResistanceOhm',
+            values.relayCoilResistanceOhm,
+            false,
+          ),
           coilPinId: readId(values.relayCoilPinId),
         }
       : null,
@@ -189,6 +229,7 @@ export function formToRequest(values: FeedFormValues, unit: SizeUnit): FormToReq
       bundled: number('wire.bundled', values.bundled, true),
       returnPath: values.returnPath,
       colour: values.colour,
+      connections: number('wire.connections', values.connections, true) ?? undefined,
     },
     loads: values.loads.map((l, i) => {
       if (l.pinId === '' && l.name.trim() === '') {
@@ -199,6 +240,7 @@ export function formToRequest(values: FeedFormValues, unit: SizeUnit): FormToReq
         name: l.name,
         currentA: number(`loads.${i}.currentA`, l.currentA, true),
         continuous: l.continuous,
+        kind: l.kind,
       };
     }),
     dropClass: values.dropClass,
@@ -361,6 +403,7 @@ export function formToCalcRequest(
     bundled: bundled.ok && bundled.value !== null && bundled.value >= 1 ? bundled.value : 1,
     ...(fuseA !== undefined && { fuseA }),
     dropLimitPct,
+    fuseType: values.fuseType,
   };
   return {
     ok: true,

@@ -8,6 +8,7 @@ import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
+import { SafetyNotes } from './safety-notes.tsx';
 import { useCreateConnector } from '../api/create-connector.ts';
 import { useDeleteConnector } from '../api/delete-connector.ts';
 import { useConnectors } from '../api/get-connectors.ts';
@@ -208,6 +209,7 @@ function PinMap({
           Your role can look through the pin map, filter it and copy from it, but not change it.
         </Notice>
       ) : null}
+      <SafetyNotes pins={pins} />
 
       {form && !readOnly ? (
         <ConnectorForm

@@ -7,6 +7,13 @@ import { fuseColour } from '#shared/domain/electrical/fuses.ts';
 import { CONNECTOR_SIDE_LABELS } from '#shared/schemas/pin-map.schema.ts';
 import { drawDispositionGlyph, drawWarningSign, drawWriteLine } from '../marks.ts';
 import { formatDateTime, statusLabel } from '../meta.ts';
+import {
+  AIRBAG_CAUTION,
+  ECU_PROBING_CAUTION,
+  FUEL_PUMP_CUTOFF_CAUTION,
+  INSULATION_TEST_CAUTION,
+  REGULATED_CIRCUITS_CAUTION,
+} from '#shared/domain/safety.ts';
 import { dispositionCounts, type PlanIndex } from '../plan.ts';
 import { RULE, type Sheet } from '../sheet.ts';
 import { baselineOf, cleanText, INK, LINE_HEIGHT, type Line, type TextStyle } from '../text.ts';
@@ -15,8 +22,12 @@ import { BODY, count, flow, SMALL } from './common.ts';
 export const CAUTIONS = [
   'Disconnect the battery (negative terminal first) before any work on the harness.',
   'Relieve the fuel pressure before opening the fuel system; no sparks or flames near fuel.',
-  'Airbag circuits stay live after the battery is disconnected: follow the vehicle maker’s waiting time before touching them, and never probe an airbag connector.',
+  AIRBAG_CAUTION,
   'Every new feed is fused near its source. A feed without a fuse is a fire risk.',
+  ECU_PROBING_CAUTION,
+  INSULATION_TEST_CAUTION,
+  FUEL_PUMP_CUTOFF_CAUTION,
+  REGULATED_CIRCUITS_CAUTION,
   'Test every circuit before first power-up: continuity end to end, no short to ground, and the reading written on this sheet.',
   'Local codes and licensed practice prevail over this sheet and over Loomwright’s checks.',
 ];
