@@ -40,10 +40,13 @@ test('the builder sees the draft’s planted problems, fixes the cooling fan wir
   );
 
   // The fuel pump: 14 A over 4 m of 0.75 mm², chassis return, against the 3 % critical limit.
+  // The wire runs at 74 °C (¶11-66) and drops 1.56 V; its fuse, relay contacts, terminals and the
+  // chassis return add 0.19 V: 1.75 V from source to load.
   const pump = findingWith(page, '"Fuel pump" loses');
   await expect(pump).toContainText('Error');
   await expect(pump).toContainText('Voltage drop too high');
-  await expect(pump).toContainText('1.34 V (11.1 % of 12 V) over 4 m of 0.75 mm² at 14 A');
+  await expect(pump).toContainText('1.75 V (14.6 % of 12 V) from its source to its loads at 14 A');
+  await expect(pump).toContainText('1.56 V of it in 4 m of 0.75 mm²');
   await expect(pump).toContainText('the limit for a critical circuit is 3 %');
   await expect(pump).toContainText('Voltage-drop limits');
 
@@ -150,7 +153,8 @@ test('the calculator answers a what-if, in either unit, and marks a bad size', a
   await page.getByRole('link', { name: 'Calculator' }).click();
   await expect(page.getByRole('heading', { name: 'Circuit calculator' })).toBeVisible();
 
-  // The demo fuel pump's run: 14 A, 4 m of 0.75 mm², chassis return, conductor at 30 °C.
+  // The demo fuel pump's run: 14 A, 4 m of 0.75 mm², chassis return, a measured conductor at
+  // 30 °C (left empty, the calculator estimates it from the load as the checks do).
   await page.getByLabel('Current (A)').fill('14');
   await page.getByLabel('One-way length (m)').fill('4');
   await page.getByLabel('Wire size (mm²)').fill('0.75');
@@ -159,7 +163,7 @@ test('the calculator answers a what-if, in either unit, and marks a bad size', a
   await page.getByLabel('Fuse (A)').fill('20');
   await page.getByLabel('Drop limit (%)').fill('3');
   const result = page.getByRole('region', { name: 'Result' });
-  // The same figures the checks give: 0.0956 Ω × 14 A = 1.338 V, 11.15 % of 12 V.
+  // [C] 0.017241 × 4 / 0.75 × 1.0393 = 0.0956 Ω × 14 A = 1.338 V, 11.15 % of 12 V.
   await expect(result).toContainText('1.338 V · 11.15 %');
   await expect(result).toContainText('over the 3 % limit');
   await expect(result).toContainText(/3 mm²\s*·\s*12 AWG/);
