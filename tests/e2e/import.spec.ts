@@ -89,7 +89,7 @@ test('the builder imports a messy pinout, fixes it, exports it and gets the same
   await expect(page.getByText('3 problems — fix them in the file')).toBeVisible();
   await expect(cellAt(page, 5, 'Colour')).toContainText('PU');
   await expect(cellAt(page, 5, 'Colour')).toContainText(
-    'Problem: "PU" is not an IEC 60757 colour code',
+    'Problem: "PU" is not a wire colour: use IEC 60757 codes',
   );
   await expect(cellAt(page, 6, 'Disposition')).toContainText(
     'Problem: "remove" is not a disposition: use one of',

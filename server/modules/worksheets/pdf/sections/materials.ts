@@ -1,5 +1,10 @@
 /** What to get ready before the work: the wire cut list with the parts count, and the fuses and relays. */
-import { fuseColour } from '#shared/domain/electrical/fuses.ts';
+import {
+  DEFAULT_FUSE_TYPE,
+  FUSE_FAMILIES,
+  fuseColour,
+  isStandardFuseRating,
+} from '#shared/domain/electrical/fuses.ts';
 import { describeWireColour, parseWireColour } from '#shared/domain/wire-colours.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import type { Finding } from '#shared/schemas/checks.schema.ts';
@@ -141,7 +146,21 @@ function fuseText(feed: SnapshotFeed): string {
   if (feed.fuseA == null) {
     return feed.source === 'relay_output' ? 'none (fused upstream)' : 'NO FUSE';
   }
-  return fuseColour(feed.fuseA) ?? 'not a standard blade rating';
+  const type = feed.fuseType ?? DEFAULT_FUSE_TYPE;
+  const family = FUSE_FAMILIES[type];
+  const colour = fuseColour(feed.fuseA, type);
+  return [
+    type === DEFAULT_FUSE_TYPE ? null : family.label.toLowerCase(),
+    colour ??
+      (isStandardFuseRating(feed.fuseA, type)
+        ? null
+        : `not a ${family.label.toLowerCase()} rating`),
+    feed.unfusedLengthMm != null
+      ? `${feed.unfusedLengthMm} mm from source${feed.fuseSheathed ? ', sheathed' : ''}`
+      : 'fit within 178 mm of source',
+  ]
+    .filter(Boolean)
+    .join('\n');
 }
 
 function checkText(own: Finding[]): string {
@@ -167,7 +186,9 @@ export async function drawFuseSchedule(sheet: Sheet, index: PlanIndex): Promise<
     const relay = feed.relay
       ? [
           `Contacts ${feed.relay.contactRatingA} A`,
-          `Coil ${feed.relay.coilCurrentA} A`,
+          feed.relay.coilResistanceOhm != null
+            ? `Coil ${feed.relay.coilResistanceOhm} Ω`
+            : `Coil ${feed.relay.coilCurrentA} A`,
           feed.relay.coilPinId != null
             ? `Coil driven by ${pinName(index, feed.relay.coilPinId)}`
             : '',
@@ -187,7 +208,7 @@ export async function drawFuseSchedule(sheet: Sheet, index: PlanIndex): Promise<
       ? feed.loads
           .map(
             (l) =>
-              `${l.pinId != null ? `${pinName(index, l.pinId)} ` : ''}${l.name || 'load'}: ${l.currentA} A${l.continuous ? ' continuous' : ''}`,
+              `${l.pinId != null ? `${pinName(index, l.pinId)} ` : ''}${l.name || 'load'}: ${l.currentA} A${l.continuous ? ' continuous' : ''}${l.kind && l.kind !== 'resistive' ? `, ${l.kind}` : ''}`,
           )
           .join('\n')
       : 'no loads recorded';
