@@ -31,6 +31,12 @@ const conversionIdOf = (params: LoaderFunctionArgs['params']) => Number(params.c
 
 export function conversionLoaders(queryClient: QueryClient) {
   const ensure = queryClient.ensureQueryData.bind(queryClient);
+  /** The plan's lists: connectors, pins and feeds, which the overview, pin map and feeds show. */
+  const plan = (id: number) => [
+    ensure(getConnectorsQueryOptions(id)),
+    ensure(getPinsQueryOptions(id)),
+    ensure(getFeedsQueryOptions(id)),
+  ];
   return {
     /** The frame of every conversion page; the workshop's settings most sections need. */
     conversion: ({ params }: LoaderFunctionArgs) =>
@@ -39,35 +45,17 @@ export function conversionLoaders(queryClient: QueryClient) {
         ensure(getWorkshopQueryOptions()),
       ),
 
-    overview: ({ params }: LoaderFunctionArgs) => {
-      const id = conversionIdOf(params);
-      return settle(
-        ensure(getConnectorsQueryOptions(id)),
-        ensure(getPinsQueryOptions(id)),
-        ensure(getFeedsQueryOptions(id)),
-        ensure(getRevisionsQueryOptions(id)),
-      );
-    },
+    overview: ({ params }: LoaderFunctionArgs) =>
+      settle(
+        ...plan(conversionIdOf(params)),
+        ensure(getRevisionsQueryOptions(conversionIdOf(params))),
+      ),
 
-    pinMap: ({ params }: LoaderFunctionArgs) => {
-      const id = conversionIdOf(params);
-      return settle(
-        ensure(getConnectorsQueryOptions(id)),
-        ensure(getPinsQueryOptions(id)),
-        ensure(getFeedsQueryOptions(id)),
-      );
-    },
+    pinMap: ({ params }: LoaderFunctionArgs) => settle(...plan(conversionIdOf(params))),
 
     // Not the check report: it is run afresh whenever a page showing findings opens (staleTime
     // 0), so filling it here would run the checks twice.
-    feeds: ({ params }: LoaderFunctionArgs) => {
-      const id = conversionIdOf(params);
-      return settle(
-        ensure(getFeedsQueryOptions(id)),
-        ensure(getPinsQueryOptions(id)),
-        ensure(getConnectorsQueryOptions(id)),
-      );
-    },
+    feeds: ({ params }: LoaderFunctionArgs) => settle(...plan(conversionIdOf(params))),
 
     // The bench sheet waits: it is asked for only once the revision shows it is signed off.
     revision: ({ params }: LoaderFunctionArgs) =>

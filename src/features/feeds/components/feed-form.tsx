@@ -2,12 +2,11 @@ import { useId, useState, type ReactNode } from 'react';
 import { Controller, FormProvider, useFormContext } from 'react-hook-form';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
 import { DROP_CLASS_LABELS, DROP_CLASSES, type Feed } from '#shared/schemas/feeds.schema.ts';
-import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextAreaField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { useErrorOf } from '@/lib/form-errors.ts';
-import { useFeedForm } from '../hooks/use-feed-form.ts';
+import { useFeedForm, type FeedFormOptions } from '../hooks/use-feed-form.ts';
 import { num, type PinChoice } from '../lib/feed-display.ts';
 import {
   formToCalcRequest,
@@ -23,21 +22,10 @@ import { LoadsEditor } from './loads-editor.tsx';
 import { RelayFields } from './relay-fields.tsx';
 import { WireFields } from './wire-fields.tsx';
 
-export interface FeedFormProps {
-  conversionId: number;
+export interface FeedFormProps extends FeedFormOptions {
   systemV: number;
-  /** The feed being edited, or null for a new one. */
-  feed: Feed | null;
   feeds: Feed[];
   pins: PinChoice[];
-  sizeUnit: SizeUnit;
-  defaultInsulationC: number;
-  readOnly: boolean;
-  onSaved: (feed: Feed, created: boolean) => void;
-  onDeleted: (feed: Feed) => void;
-  onConflict: (current: Feed) => void;
-  /** A new attempt: whatever the screen said about the last one no longer applies. */
-  onSubmitting: () => void;
   onClose: () => void;
   /** The calculator's answer for these inputs, composed in by the route. */
   renderLiveResults: (request: CalcRequestInput) => ReactNode;

@@ -20,6 +20,7 @@ const NEEDS_CORRECTING = 'Some fields need correcting: see the marks.';
 
 export interface FeedFormOptions {
   conversionId: number;
+  /** The feed being edited, or null for a new one. */
   feed: Feed | null;
   sizeUnit: SizeUnit;
   defaultInsulationC: number;
@@ -27,6 +28,7 @@ export interface FeedFormOptions {
   onSaved: (feed: Feed, created: boolean) => void;
   onDeleted: (feed: Feed) => void;
   onConflict: (current: Feed) => void;
+  /** A new attempt: whatever the screen said about the last one no longer applies. */
   onSubmitting: () => void;
 }
 

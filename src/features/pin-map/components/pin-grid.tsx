@@ -1,4 +1,3 @@
-import type { ColumnVisibilityState, OnChangeFn, RowSelectionState } from '@tanstack/react-table';
 import {
   useId,
   useImperativeHandle,
@@ -12,14 +11,13 @@ import { useCellErrors } from '../hooks/use-cell-errors.ts';
 import { useDocumentClipboard } from '../hooks/use-document-clipboard.ts';
 import { useGridCursor, type CellKey } from '../hooks/use-grid-cursor.ts';
 import { useGridVirtualizer } from '../hooks/use-grid-virtualizer.ts';
-import { usePinTable } from '../hooks/use-pin-table.ts';
+import { usePinTable, type PinTableOptions } from '../hooks/use-pin-table.ts';
 import type { PinEditing } from '../hooks/use-pin-editing.ts';
 import { useStableHandler } from '../hooks/use-stable-handler.ts';
 import { isEditableColumn, type CellContext, type EditableColumnId } from '../lib/cell-values.ts';
 import { cellText, SELECT_COLUMN } from '../lib/columns.ts';
 import { editorKind, editorListWidth, editorOptions } from '../lib/editor-options.ts';
 import { moveFocus, type GridPosition, type Move } from '../lib/navigation.ts';
-import type { PinRow } from '../lib/rows.ts';
 import { CellEditor, type EditorMove } from './cell-editor.tsx';
 import { gridCommands } from './grid-commands.ts';
 import { focusHeading, GridHeader } from './grid-header.tsx';
@@ -45,15 +43,8 @@ const EDITOR_MOVES: Record<Exclude<EditorMove, 'stay'>, Move> = {
   left: 'previous',
 };
 
-interface PinGridProps {
-  /** The rows to show, already filtered. */
-  rows: PinRow[];
+interface PinGridProps extends Omit<PinTableOptions, 'unit'> {
   ctx: CellContext;
-  readOnly: boolean;
-  rowSelection: RowSelectionState;
-  onRowSelectionChange: OnChangeFn<RowSelectionState>;
-  columnVisibility: ColumnVisibilityState;
-  onColumnVisibilityChange: OnChangeFn<ColumnVisibilityState>;
   editing: PinEditing;
   /** Id of the text that explains the grid's keys. */
   describedBy?: string;
@@ -64,30 +55,12 @@ interface PinGridProps {
  * The pin grid: a spreadsheet-like table of pins, moved through by keyboard, edited cell by cell,
  * pasted into and filled down. Only the rows in view are drawn, so a thousand pins scroll freely.
  */
-export function PinGrid({
-  rows,
-  ctx,
-  readOnly,
-  rowSelection,
-  onRowSelectionChange,
-  columnVisibility,
-  onColumnVisibilityChange,
-  editing,
-  describedBy,
-  ref,
-}: PinGridProps) {
+export function PinGrid({ ctx, editing, describedBy, ref, ...tableOptions }: PinGridProps) {
   const gridId = `pin-grid-${useId().replace(/[^a-zA-Z0-9]/g, '')}`;
   const unit = ctx.sizeUnit;
+  const { readOnly, rowSelection } = tableOptions;
   const { table, displayed, shownRows, rowIndexOf, layout, columnIds, width, stickyWidth } =
-    usePinTable({
-      rows,
-      unit,
-      readOnly,
-      rowSelection,
-      onRowSelectionChange,
-      columnVisibility,
-      onColumnVisibilityChange,
-    });
+    usePinTable({ ...tableOptions, unit });
 
   const { active, setActive, anchor, setAnchor, activePos, range, keyAt, ...cursor } =
     useGridCursor({ rows: shownRows, columnIds, rowIndexOf });

@@ -16,6 +16,17 @@ const getRowId = (row: PinRow) => String(row.pin.id);
  * The grid's table: its rows in the order shown and its visible columns laid out left to right
  * (the checkbox column hidden from those who cannot change pins).
  */
+export interface PinTableOptions {
+  /** The rows to show, already filtered. */
+  rows: PinRow[];
+  unit: SizeUnit;
+  readOnly: boolean;
+  rowSelection: RowSelectionState;
+  onRowSelectionChange: OnChangeFn<RowSelectionState>;
+  columnVisibility: ColumnVisibilityState;
+  onColumnVisibilityChange: OnChangeFn<ColumnVisibilityState>;
+}
+
 export function usePinTable({
   rows,
   unit,
@@ -24,15 +35,7 @@ export function usePinTable({
   onRowSelectionChange,
   columnVisibility,
   onColumnVisibilityChange,
-}: {
-  rows: PinRow[];
-  unit: SizeUnit;
-  readOnly: boolean;
-  rowSelection: RowSelectionState;
-  onRowSelectionChange: OnChangeFn<RowSelectionState>;
-  columnVisibility: ColumnVisibilityState;
-  onColumnVisibilityChange: OnChangeFn<ColumnVisibilityState>;
-}) {
+}: PinTableOptions) {
   const columns = useMemo(() => pinGridColumns(unit), [unit]);
   const visibility = useMemo(
     () => (readOnly ? { ...columnVisibility, [SELECT_COLUMN]: false } : columnVisibility),
