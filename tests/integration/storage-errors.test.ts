@@ -167,4 +167,25 @@ describe('a full database file', () => {
     expect(await Conversion.count()).toBe(before);
     expect((await request(ctx.app).get('/api/health')).status).toBe(200);
   });
+
+  it('answers 503 with Retry-After when SQLite refuses writes (read-only), and keeps serving', async () => {
+    const admin = await ctx.authFor('admin');
+    const before = await Conversion.count();
+    // query_only makes SQLite refuse every write with SQLITE_READONLY, as a read-only mount does.
+    await inTransaction(db(), (t) => db().query('PRAGMA query_only = 1', { transaction: t }));
+    try {
+      const res = await request(ctx.app)
+        .post('/api/conversions')
+        .set('Authorization', admin)
+        .send({ name: 'Nowhere', donorEngine: 'x', receivingVehicle: 'y', systemVoltage: 12 });
+      expect(res.status).toBe(503);
+      expect(res.body.error.code).toBe('storage_read_only');
+      expect(res.headers['retry-after']).toBeDefined();
+      expect(JSON.stringify(res.body)).not.toMatch(/SQLITE/);
+    } finally {
+      await inTransaction(db(), (t) => db().query('PRAGMA query_only = 0', { transaction: t }));
+    }
+    expect(await Conversion.count()).toBe(before);
+    expect((await request(ctx.app).get('/api/health')).status).toBe(200);
+  });
 });
