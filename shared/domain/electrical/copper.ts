@@ -183,7 +183,7 @@ export function conductorResistance({
   if (conductorTempC !== 20) {
     sources.push('iacs-copper');
     notes.push(
-      `Corrected from 20 °C to ${conductorTempC} °C: × ${temperatureFactor.toFixed(4)} (α₂₀ = ${COPPER_ALPHA_20_PER_C} /°C).`,
+      `Corrected from 20 °C to ${Number(conductorTempC.toFixed(1))} °C: × ${temperatureFactor.toFixed(4)} (α₂₀ = ${COPPER_ALPHA_20_PER_C} /°C).`,
     );
   }
   return {

@@ -130,12 +130,8 @@ export function fuseRatingsA(type: FuseType = DEFAULT_FUSE_TYPE): readonly numbe
 /** NEC 210.20(A): a device carries a continuous load at no more than 80 % of its rating. */
 export const CONTINUOUS_LOAD_FACTOR = 1.25;
 
-/** Sources behind recommendedFuseA: the 125 % rule, the blade ratings, vehicle-work practice. */
-export const RECOMMENDED_FUSE_SOURCES: readonly SourceId[] = [
-  'nec-210-20',
-  'iso-8820-3',
-  'common-practice',
-];
+/** Sources behind recommendedFuseA: the 125 % rule and vehicle-work practice (the family adds its own). */
+export const RECOMMENDED_FUSE_SOURCES: readonly SourceId[] = ['nec-210-20', 'common-practice'];
 
 /** Sources behind fuseProtectsWire: the rule checked, and the laxer marine rule noted. */
 export const FUSE_PROTECTS_WIRE_SOURCES: readonly SourceId[] = ['nec-240-4', 'uscg-183-455'];

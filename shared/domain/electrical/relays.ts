@@ -8,9 +8,9 @@ import { FLOAT_SLACK, requireNonNegative, requirePositive } from './guards.ts';
 export const LOAD_KINDS = ['resistive', 'motor', 'lamp'] as const;
 export type LoadKind = (typeof LOAD_KINDS)[number];
 export const LOAD_KIND_LABELS: Record<LoadKind, string> = {
-  resistive: 'Resistive (heater, electronics)',
-  motor: 'Motor (fan, pump)',
-  lamp: 'Incandescent lamp',
+  resistive: 'Resistive',
+  motor: 'Motor',
+  lamp: 'Lamp',
 };
 
 /**

@@ -1,3 +1,4 @@
+import { FUSE_FAMILIES } from '#shared/domain/electrical/fuses.ts';
 import { Fragment, useId, type ReactNode } from 'react';
 import type { CircuitCalcResult } from '#shared/domain/electrical/circuit-calc.ts';
 import { formatAwgGauge } from '#shared/domain/wire-sizes.ts';
@@ -67,6 +68,7 @@ export function CalcResultView({
   const r = result;
   const limitPct = request.dropLimitPct;
   const compact = mode === 'compact';
+  const family = FUSE_FAMILIES[request.fuseType ?? 'standard_blade'];
   const headingId = useId();
   const derated = r.deratingFactor !== 1;
   const rowText = `${formatAwgGauge(r.tableAwg)} AWG row, ${r.insulationColumnC} °C column: ${num(r.tableAmpacityA)} A`;
@@ -149,10 +151,14 @@ export function CalcResultView({
         <Row
           stacked={compact}
           term="Recommended fuse"
-          detail="For the load taken as continuous: 125 % of it, next blade rating."
+          detail={`For the load taken as continuous: 125 % of it, the next ${family.label.toLowerCase()} rating.`}
         >
           {r.recommendedFuseA === null ? (
-            <span>More than the largest blade fuse (40 A)</span>
+            <span>
+              {family.ratings.length
+                ? `More than the largest ${family.label.toLowerCase()} (${family.ratings.at(-1)!.ratingA} A)`
+                : 'The rating its maker states'}
+            </span>
           ) : (
             <Mono>{fuseText(r.recommendedFuseA, r.recommendedFuseColour)}</Mono>
           )}

@@ -15,7 +15,15 @@ export function SafetyCautions({ unfused }: { unfused: boolean }) {
           {unfused ? null : (
             <li>A feed without a fuse is a fire risk: fuse every new feed near its source.</li>
           )}
-          <li>Take particular care with fuel-system and airbag circuits.</li>
+          <li>
+            Take particular care with fuel-system and airbag circuits: a crash or inertia cut-off
+            for the fuel pump; airbag circuits are not to be touched.
+          </li>
+          <li>
+            Never probe an ECU pin with a test lamp or put 12 V on one; unplug the ECU before an
+            insulation test.
+          </li>
+          <li>Emissions and anti-theft circuits may be regulated where the vehicle is used.</li>
           <li>
             Test before first power-up: continuity, shorts to ground and between neighbouring pins;
             power up first from a current-limited supply.

@@ -129,7 +129,7 @@ export function LoadsEditor({
                   <td className="px-2 py-1.5">
                     <select
                       aria-label={`Load ${n} kind`}
-                      title="A motor or lamp draws a surge at switch-on: its relay needs room for it."
+                      title="Resistive: heaters, electronics. Motor: fans, pumps. Lamp: incandescent bulbs. A motor or lamp draws a surge at switch-on: its relay needs room for it."
                       className={CELL}
                       value={load.kind}
                       onChange={(e) => update(i, { kind: e.target.value as LoadKind })}
