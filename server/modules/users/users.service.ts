@@ -89,11 +89,13 @@ async function answerForTakenAddress(
   actor: Actor,
   input: CreateUserRequest,
 ): Promise<UserSummary> {
-  const [row] = await db().query(
+  const [row] = await db().query<{ seq: number }>(
     "UPDATE sqlite_sequence SET seq = seq + 1 WHERE name = 'users' RETURNING seq",
     { transaction: t, type: QueryTypes.SELECT },
   );
-  const id = Number((row as { seq: number }).seq);
+  // The sequence row exists once any user has been created, and an admin is asking.
+  if (!row) throw new Error('users has no AUTOINCREMENT sequence row');
+  const id = Number(row.seq);
   await recordAudit(t, actor, {
     action: 'create',
     entityType: 'user',
