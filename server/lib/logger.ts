@@ -1,3 +1,4 @@
+import { writeSync } from 'node:fs';
 import { pino } from 'pino';
 
 /**
@@ -28,5 +29,28 @@ export const logger = pino(
     },
   },
   // Through process.stdout (not straight to the file descriptor) so tests can read what is logged.
-  { write: (line: string) => process.stdout.write(line) },
+  { write: writeLogLine },
 );
+
+/**
+ * Set once standard output has failed (a log file on a full disk, a closed pipe). Node would make
+ * the failed write an uncaught exception and end the process over a log line; instead the line is
+ * dropped, and later lines are written straight to the descriptor, so logging resumes by itself
+ * once there is room again.
+ */
+let stdoutFailed = false;
+process.stdout.on('error', () => {
+  stdoutFailed = true;
+});
+
+function writeLogLine(line: string): void {
+  if (!stdoutFailed) {
+    process.stdout.write(line);
+    return;
+  }
+  try {
+    writeSync(1, line);
+  } catch {
+    // Still full or gone: this line is lost, the request it describes is not.
+  }
+}
