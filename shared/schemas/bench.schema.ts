@@ -90,4 +90,6 @@ export interface BenchNotice {
   signedAt: string;
   /** Items under rework or to take out, not yet re-done. */
   reworkOpen: number;
+  /** Items of the signed-off plan, and how many are done and how many tested. */
+  progress: { total: number; done: number; tested: number };
 }

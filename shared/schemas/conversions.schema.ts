@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import type { BenchNotice } from './bench.schema.ts';
 import { noteText, requiredText } from './common.schema.ts';
+import type { RevisionStatus } from './revisions.schema.ts';
 
 export const SYSTEM_VOLTAGES = [12, 24] as const;
 export const SystemVoltage = z.union([z.literal(12), z.literal(24)], {
@@ -40,5 +41,23 @@ export const Conversion = z.object({
 });
 export type Conversion = z.infer<typeof Conversion>;
 
-/** A row of the conversions list: the conversion and what its bench has to know. */
-export type ConversionListItem = Conversion & { bench: BenchNotice | null };
+/** Where a conversion stands: its latest revision's status, or a draft before any submission. */
+export const CONVERSION_STATES = ['draft', 'in_review', 'changes_requested', 'signed_off'] as const;
+export type ConversionState = (typeof CONVERSION_STATES)[number];
+export const CONVERSION_STATE_LABELS: Record<ConversionState, string> = {
+  draft: 'Draft',
+  in_review: 'In review',
+  changes_requested: 'Changes asked',
+  signed_off: 'Signed off',
+};
+
+/** A row of the conversions list: the conversion, where it stands and what its bench has to know. */
+export type ConversionListItem = Conversion & {
+  state: ConversionState;
+  latestRevision: { number: number; status: RevisionStatus; submittedBy: string } | null;
+  /** The latest change to the conversion, its connectors, pins, feeds, revisions or bench. */
+  lastChangeAt: string;
+  /** In review, submitted by someone else, and the reader may sign it off. */
+  waitingForYou: boolean;
+  bench: BenchNotice | null;
+};

@@ -158,3 +158,67 @@ describe('PATCH /api/conversions/:id', () => {
     expect(res.status).toBe(400);
   });
 });
+
+describe('where each conversion stands, on the list', () => {
+  type Item = {
+    id: number;
+    name: string;
+    state: string;
+    latestRevision: { number: number; status: string } | null;
+    lastChangeAt: string;
+    waitingForYou: boolean;
+    bench: { progress: { total: number; done: number; tested: number } } | null;
+  };
+  const list = async (role: 'builder' | 'reviewer') =>
+    (
+      await request(ctx.app)
+        .get('/api/conversions')
+        .set('Authorization', await ctx.authFor(role))
+        .expect(200)
+    ).body.conversions as Item[];
+  const byName = (items: Item[], name: string) => items.find((c) => c.name === name)!;
+
+  it('gives the state, the latest revision and the bench progress', async () => {
+    const items = await list('builder');
+    const signed = byName(items, 'Pellow farm flatbed');
+    expect(signed.state).toBe('signed_off');
+    expect(signed.latestRevision).toMatchObject({ number: 1, status: 'signed_off' });
+    expect(signed.bench!.progress.total).toBeGreaterThan(0);
+    expect(signed.bench!.progress.done).toBeLessThanOrEqual(signed.bench!.progress.total);
+    const draft = byName(items, 'Ashby yard truck');
+    expect(draft.state).toBe('draft');
+    expect(draft.latestRevision).toBeNull();
+    expect(draft.bench).toBeNull();
+  });
+
+  it('moves the last change when a pin changes, and counts a submission as waiting for the reviewer', async () => {
+    const auth = await ctx.authFor('builder');
+    const before = byName(await list('builder'), 'Pellow farm flatbed');
+    const pins = (
+      await request(ctx.app).get(`/api/conversions/${before.id}/pins`).set('Authorization', auth)
+    ).body.pins as Array<{ id: number; version: number }>;
+    const edited = await request(ctx.app)
+      .patch(`/api/pins/${pins[3]!.id}`)
+      .set('Authorization', auth)
+      .send({ notes: 'Checked against the donor loom', version: pins[3]!.version })
+      .expect(200);
+    const after = byName(await list('builder'), 'Pellow farm flatbed');
+    expect(Date.parse(after.lastChangeAt)).toBeGreaterThan(Date.parse(before.lastChangeAt));
+    expect(Date.parse(after.lastChangeAt)).toBeGreaterThanOrEqual(
+      Date.parse(edited.body.pin.updatedAt ?? after.lastChangeAt),
+    );
+
+    await request(ctx.app)
+      .post(`/api/conversions/${before.id}/revisions`)
+      .set('Authorization', auth)
+      .send({})
+      .expect(201);
+    const forReviewer = byName(await list('reviewer'), 'Pellow farm flatbed');
+    expect(forReviewer).toMatchObject({
+      state: 'in_review',
+      latestRevision: { number: 2, status: 'in_review' },
+      waitingForYou: true,
+    });
+    expect(byName(await list('builder'), 'Pellow farm flatbed').waitingForYou).toBe(false);
+  });
+});

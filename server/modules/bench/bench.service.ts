@@ -313,12 +313,17 @@ export async function benchNotices(actor: Actor): Promise<Map<number, BenchNotic
   });
   const latest = new Map<number, Revision>();
   for (const r of signed) if (!latest.has(r.conversionId)) latest.set(r.conversionId, r);
-  const owed = await BenchRecord.findAll({
-    where: { revisionId: [...latest.values()].map((r) => r.id), reworkJson: { [Op.ne]: null } },
+  const records = await BenchRecord.findAll({
+    where: { revisionId: [...latest.values()].map((r) => r.id) },
   });
+  const owed = records.filter((r) => r.reworkJson != null);
   const notices = new Map<number, BenchNotice>();
   for (const revision of latest.values()) {
-    const items = new Map(benchPlanItems(snapshotOf(revision)).map((i) => [i.key, i]));
+    const plan = benchPlanItems(snapshotOf(revision));
+    const items = new Map(plan.map((i) => [i.key, i]));
+    const ticks = new Map(
+      records.filter((r) => r.revisionId === revision.id).map((r) => [r.itemKey, ticksOf(r)]),
+    );
     const open = owed.filter((r) => {
       if (r.revisionId !== revision.id) return false;
       const item = items.get(r.itemKey);
@@ -328,6 +333,11 @@ export async function benchNotices(actor: Actor): Promise<Map<number, BenchNotic
       revisionNumber: revision.number,
       signedAt: iso(revision.signedAt!),
       reworkOpen: open,
+      progress: {
+        total: plan.length,
+        done: plan.filter((i) => isDone(i, ticks.get(i.key))).length,
+        tested: plan.filter((i) => isTested(i, ticks.get(i.key))).length,
+      },
     });
   }
   return notices;

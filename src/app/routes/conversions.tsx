@@ -7,7 +7,7 @@ import { PageHeader } from '@/components/ui/page-header.tsx';
 import { paths } from '@/config/paths.ts';
 import { useCan } from '@/features/auth/hooks/use-can.ts';
 import { useConversions } from '@/features/conversions/api/get-conversions.ts';
-import { ConversionsTable } from '@/features/conversions/components/conversions-table.tsx';
+import { ConversionsList } from '@/features/conversions/components/conversions-list.tsx';
 import { CreateConversionForm } from '@/features/conversions/components/create-conversion-form.tsx';
 import { useWorkshop } from '@/features/workshop/api/workshop.ts';
 
@@ -50,7 +50,7 @@ export function ConversionsRoute() {
           {conversions.error.message}
         </Notice>
       ) : (
-        <ConversionsTable conversions={conversions.data} />
+        <ConversionsList conversions={conversions.data} />
       )}
     </>
   );
