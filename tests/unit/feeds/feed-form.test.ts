@@ -7,14 +7,16 @@ import {
   emptyFeedForm,
   feedFormSchema,
   feedToForm,
-  formToCalcRequest,
   formToRequest,
   isFormField,
-  loadTotals,
   NO_FUSE,
-  upstreamFuse,
   type FeedFormValues,
 } from '../../../src/features/feeds/lib/feed-form.ts';
+import {
+  formToCalcRequest,
+  loadTotals,
+  upstreamFuse,
+} from '../../../src/features/feeds/lib/feed-live-calc.ts';
 
 /** The demo draft's cooling fan: 30 A fuse over 1 mm² in the engine bay (seeds/feeds-data.ts). */
 const coolingFan: Feed = {

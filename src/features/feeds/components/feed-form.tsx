@@ -8,12 +8,8 @@ import { Notice } from '@/components/ui/notice.tsx';
 import { useErrorOf } from '@/lib/form-errors.ts';
 import { useFeedForm, type FeedFormOptions } from '../hooks/use-feed-form.ts';
 import { num, type PinChoice } from '../lib/feed-display.ts';
-import {
-  formToCalcRequest,
-  upstreamFuse,
-  type FeedFormValues,
-  type LoadTotals,
-} from '../lib/feed-form.ts';
+import type { FeedFormValues } from '../lib/feed-form.ts';
+import { formToCalcRequest, upstreamFuse, type LoadTotals } from '../lib/feed-live-calc.ts';
 import { DeleteConfirm } from './delete-confirm.tsx';
 import { FeedSourceFields } from './feed-source-fields.tsx';
 import { FormGroup } from './form-group.tsx';

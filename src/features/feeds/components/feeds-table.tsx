@@ -18,7 +18,7 @@ import {
   worstRank,
   type PinChoice,
 } from '../lib/feed-display.ts';
-import { upstreamFuse } from '../lib/feed-form.ts';
+import { upstreamFuse } from '../lib/feed-live-calc.ts';
 
 export type ChecksState =
   { status: 'pending' } | { status: 'error' } | { status: 'ready'; findings: Finding[] };

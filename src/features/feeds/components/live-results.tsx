@@ -3,7 +3,8 @@ import { AMBIENT_C } from '#shared/domain/electrical/conductor-temperature.ts';
 import { recommendedFuseA } from '#shared/domain/electrical/fuses.ts';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
 import { fuseLabel, num } from '../lib/feed-display.ts';
-import { NO_FUSE, type FeedFormValues, type LiveCalc } from '../lib/feed-form.ts';
+import { NO_FUSE, type FeedFormValues } from '../lib/feed-form.ts';
+import type { LiveCalc } from '../lib/feed-live-calc.ts';
 
 /** Beside the form: what the checks will compute for the feed as typed so far. */
 export function LiveResults({
