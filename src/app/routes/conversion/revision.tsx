@@ -17,6 +17,7 @@ import {
 import { ChangesView } from '@/features/revisions/components/changes-view.tsx';
 import { CommentsPanel } from '@/features/revisions/components/comments-panel.tsx';
 import { FrozenFindings } from '@/features/revisions/components/frozen-findings.tsx';
+import { FrozenPlan } from '@/features/revisions/components/frozen-plan.tsx';
 import { ReviewActions } from '@/features/revisions/components/review-actions.tsx';
 import { RevisionStatusBadge } from '@/features/revisions/components/revision-status.tsx';
 import { useWorkshop } from '@/features/workshop/api/workshop.ts';
@@ -59,6 +60,14 @@ export function ConversionRevisionRoute() {
     );
   }
   const r = revision.data;
+  // On a first revision the whole plan is what is reviewed: it comes first. Later, the changes do.
+  const frozenPlan = (
+    <FrozenPlan
+      snapshot={r.snapshot}
+      revisionNumber={r.number}
+      unit={workshop.data?.sizeUnit ?? 'mm2'}
+    />
+  );
   return (
     <div className="flex flex-col gap-6">
       <p>
@@ -129,12 +138,15 @@ export function ConversionRevisionRoute() {
         />
       ) : (
         <Notice tone="info" title="First revision for review">
-          There is no earlier signed-off revision to compare with: review the whole plan.
+          There is no earlier signed-off revision to compare with: review the whole plan, as frozen
+          below.
         </Notice>
       )}
+      {r.changes ? null : frozenPlan}
       {bench.data ? <BenchPhotosPanel sheet={bench.data} /> : null}
       <FrozenFindings findings={r.findings} />
       <CommentsPanel conversionId={conversion.id} revision={r} canComment={mayComment} />
+      {r.changes ? frozenPlan : null}
     </div>
   );
 }

@@ -1,0 +1,47 @@
+import { expect, test } from '@playwright/test';
+import { DEMO, signIn, signOut } from './support/session.ts';
+import { createSmallPlan } from './support/small-plan.ts';
+
+test('a first revision shows the plan as frozen, not the draft edited since', async ({ page }) => {
+  await signIn(page, DEMO.builder);
+  const plan = await createSmallPlan(page.request, 'Tamsin shop van');
+  await page.goto(`/conversions/${plan.conversionId}/revisions`);
+  await page.getByRole('button', { name: 'Submit for review' }).click();
+  await expect(page.getByRole('heading', { name: /Revision 1/ })).toBeVisible();
+
+  // The draft moves on after submission: the revision must not follow it.
+  const signal = plan.pins.find((p) => p.cavity === '2')!;
+  const pins = (await (await page.request.get(`/api/conversions/${plan.conversionId}/pins`)).json())
+    .pins as Array<{ id: number; version: number }>;
+  const now = pins.find((p) => p.id === signal.id)!;
+  expect(
+    (
+      await page.request.patch(`/api/pins/${signal.id}`, {
+        data: { function: 'Oil pressure signal', version: now.version },
+      })
+    ).status(),
+  ).toBe(200);
+  await signOut(page);
+
+  await signIn(page, DEMO.reviewer);
+  await page.goto(`/conversions/${plan.conversionId}/revisions/1`);
+  await expect(page.getByText('review the whole plan, as frozen below')).toBeVisible();
+  const frozen = page.getByRole('region', { name: 'The plan as frozen in revision 1' });
+  await expect(frozen.getByRole('tab', { name: 'Pin map (4 pins)' })).toHaveAttribute(
+    'aria-selected',
+    'true',
+  );
+  const row = frozen.getByRole('row', { name: /E5-2/ });
+  await expect(row.getByRole('cell', { name: 'Coolant temperature signal' })).toBeVisible();
+  await expect(frozen.getByText('Oil pressure signal')).toHaveCount(0);
+  await expect(
+    frozen.getByRole('row', { name: /E5-1/ }).getByRole('cell', { name: 'Feed: ECU supply' }),
+  ).toBeVisible();
+  await page.screenshot({ path: 'test-results/screens/frozen-plan-pins.png', fullPage: true });
+
+  await frozen.getByRole('tab', { name: 'Feeds (1)' }).click();
+  const feed = frozen.getByRole('row', { name: /ECU supply/ });
+  await expect(feed.getByRole('cell', { name: '10 A' })).toBeVisible();
+  await expect(feed.getByText('E5-1')).toBeVisible();
+  await page.screenshot({ path: 'test-results/screens/frozen-plan-feeds.png', fullPage: true });
+});
