@@ -1,7 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import {
   colourOptions,
+  AS_TYPED_KEY,
   destinationOptions,
+  editorOptions,
 } from '../../../src/features/pin-map/lib/editor-options.ts';
 import { filterRows, NO_FILTER, revealRow } from '../../../src/features/pin-map/lib/filter.ts';
 import { moveFocus, moveForKey } from '../../../src/features/pin-map/lib/navigation.ts';
@@ -112,6 +114,22 @@ describe('the cell editor’s suggestions', () => {
     };
     expect(destinationOptions('tach', ctx, 2).map((o) => o.commit)).toEqual(['V1-3']);
     expect(destinationOptions('', ctx, 3)).toEqual([]);
+  });
+
+  it('offers the text as typed last, and only when no suggestion reads the same', () => {
+    const ctx = {
+      sizeUnit: 'mm2' as const,
+      destinations: [{ pinId: 3, name: 'V1-3', function: 'Tachometer signal' }],
+      feeds: [{ feedId: 1, name: 'ECU main' }],
+    };
+    const ecu = editorOptions('destination', 'ECU', ctx, 2);
+    expect(ecu.map((o) => o.commit)).toEqual(['Feed: ECU main', 'ECU']);
+    expect(ecu[1]).toMatchObject({ key: AS_TYPED_KEY, label: 'Use “ECU” as typed' });
+    expect(editorOptions('destination', 'dash lamp', ctx, 2).map((o) => o.key)).toEqual([
+      AS_TYPED_KEY,
+    ]);
+    expect(editorOptions('destination', 'v1-3', ctx, 2).map((o) => o.commit)).toEqual(['V1-3']);
+    expect(editorOptions('destination', '', ctx, 2).map((o) => o.key)).not.toContain(AS_TYPED_KEY);
   });
 });
 

@@ -29,6 +29,7 @@ export interface CellEditorProps {
 /**
  * The editor of one grid cell: a text box, with a list of choices or suggestions for columns that
  * have them. Enter saves and moves down, Tab saves and moves sideways, Escape puts the value back.
+ * In a type-ahead, both save the highlighted suggestion, not the letters typed so far.
  */
 export function CellEditor({
   id,
@@ -50,8 +51,13 @@ export function CellEditor({
   const [error, setError] = useState<string | null>(null);
   const list = kind === 'text' ? [] : options(filtering ? text : '');
   const currentIndex = list.findIndex((o) => o.commit === initialText);
+  // A type-ahead opened by typing starts on its first suggestion, as it does after each keystroke.
   const [highlight, setHighlight] = useState(() =>
-    kind === 'choice' ? Math.max(0, fresh ? 0 : currentIndex) : -1,
+    kind === 'choice'
+      ? Math.max(0, fresh ? 0 : currentIndex)
+      : kind === 'typeahead' && fresh && initialText.trim()
+        ? 0
+        : -1,
   );
   const inputRef = useRef<HTMLInputElement>(null);
   const finished = useRef(false);
@@ -114,6 +120,7 @@ export function CellEditor({
     if (finished.current) return;
     finished.current = true;
     if (kind === 'choice') onLeave(filtering ? chosen() : null);
+    else if (kind === 'typeahead') onLeave(filtering ? chosen() : null);
     else onLeave(text === initialText && !fresh ? null : text);
   }
 
@@ -141,7 +148,9 @@ export function CellEditor({
           setText(e.target.value);
           setFiltering(true);
           setError(null);
-          setHighlight(kind === 'choice' ? 0 : -1);
+          setHighlight(
+            kind === 'choice' || (kind === 'typeahead' && e.target.value.trim()) ? 0 : -1,
+          );
         }}
         onKeyDown={onKeyDown}
         onBlur={onBlur}

@@ -29,9 +29,10 @@ export interface EditorOption {
 
 /**
  * choice: pick one of a fixed list, typing narrows it; suggest: free text with suggestions;
- * text: free text only.
+ * typeahead: typing highlights the first suggestion and Enter takes it, free text only when
+ * nothing matches or "use as typed" is picked; text: free text only.
  */
-export type EditorKind = 'choice' | 'suggest' | 'text';
+export type EditorKind = 'choice' | 'suggest' | 'typeahead' | 'text';
 
 export function editorKind(column: EditableColumnId): EditorKind {
   switch (column) {
@@ -41,8 +42,9 @@ export function editorKind(column: EditableColumnId): EditorKind {
     case 'colour':
     case 'size':
     case 'insulation':
-    case 'destination':
       return 'suggest';
+    case 'destination':
+      return 'typeahead';
     default:
       return 'text';
   }
@@ -162,6 +164,22 @@ export function destinationOptions(
   return [...feeds, ...cavities].slice(0, MAX_OPTIONS);
 }
 
+/** The key of the option that keeps the text exactly as typed. */
+export const AS_TYPED_KEY = 'as-typed';
+
+/**
+ * A type-ahead's suggestions and, after them, the typed text itself, unless a suggestion already
+ * reads the same: a destination a person spells out still goes in, but only when they pick it.
+ */
+export function withAsTyped(text: string, options: EditorOption[]): EditorOption[] {
+  const typed = text.trim();
+  if (!typed || options.some((o) => fold(o.commit) === fold(typed))) return options;
+  return [
+    ...options,
+    { key: AS_TYPED_KEY, commit: typed, label: `Use “${typed}” as typed`, hint: 'free text' },
+  ];
+}
+
 export function editorOptions(
   column: EditableColumnId,
   text: string,
@@ -180,7 +198,7 @@ export function editorOptions(
     case 'insulation':
       return insulationOptions(text);
     case 'destination':
-      return destinationOptions(text, ctx, selfPinId);
+      return withAsTyped(text, destinationOptions(text, ctx, selfPinId));
     default:
       return [];
   }

@@ -1,0 +1,53 @@
+import { expect, test, type Page } from '@playwright/test';
+import { DEMO, signIn } from './support/session.ts';
+import { createSmallPlan } from './support/small-plan.ts';
+
+const grid = (page: Page) => page.getByRole('grid', { name: 'Pins' });
+const cell = (page: Page, pin: string, column: string) =>
+  grid(page).locator(`[role="row"][data-pin="${pin}"] [role="gridcell"][data-column="${column}"]`);
+
+async function allSaved(page: Page) {
+  await expect(page.getByText('All changes saved')).toBeVisible();
+}
+
+test('Enter takes the highlighted destination; free text only as typed on purpose or when nothing matches', async ({
+  page,
+}) => {
+  await signIn(page, DEMO.builder);
+  const plan = await createSmallPlan(page.request, 'Orrin tow tractor', { joined: false });
+  await page.goto(`/conversions/${plan.conversionId}/pins`);
+  await expect(grid(page)).toBeVisible();
+
+  await cell(page, 'E5-1', 'destination').click();
+  await page.keyboard.type('ECU');
+  const options = page.getByRole('listbox').getByRole('option');
+  await expect(options).toHaveText([/Feed: ECU supply/, /Use “ECU” as typed/]);
+  await expect(options.first()).toHaveAttribute('aria-selected', 'true');
+  await page.screenshot({ path: 'test-results/screens/destination-typeahead.png' });
+  await page.keyboard.press('Enter');
+  await expect(cell(page, 'E5-1', 'destination')).toContainText('→ Feed: ECU supply');
+  await allSaved(page);
+
+  // "Use as typed" keeps the letters.
+  await cell(page, 'E5-2', 'destination').click();
+  await page.keyboard.type('ECU');
+  await page.keyboard.press('ArrowDown');
+  await expect(options.last()).toHaveAttribute('aria-selected', 'true');
+  await page.keyboard.press('Enter');
+  await expect(cell(page, 'E5-2', 'destination')).toHaveText('ECU');
+
+  // Nothing matches: the text goes in as it is.
+  await cell(page, 'E5-3', 'destination').click();
+  await page.keyboard.type('Dash lamp');
+  await expect(options).toHaveText([/Use “Dash lamp” as typed/]);
+  await page.keyboard.press('Enter');
+  await expect(cell(page, 'E5-3', 'destination')).toHaveText('Dash lamp');
+  await allSaved(page);
+
+  const pins = (await (await page.request.get(`/api/conversions/${plan.conversionId}/pins`)).json())
+    .pins as Array<{ cavity: string; destination: string; destinationFeedId: number | null }>;
+  const byCavity = new Map(pins.map((p) => [p.cavity, p]));
+  expect(byCavity.get('1')!.destinationFeedId).toBe(plan.feedId);
+  expect(byCavity.get('2')).toMatchObject({ destination: 'ECU', destinationFeedId: null });
+  expect(byCavity.get('3')).toMatchObject({ destination: 'Dash lamp', destinationFeedId: null });
+});
