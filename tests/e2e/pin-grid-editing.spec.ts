@@ -45,9 +45,53 @@ test('Enter takes the highlighted destination; free text only as typed on purpos
   await allSaved(page);
 
   const pins = (await (await page.request.get(`/api/conversions/${plan.conversionId}/pins`)).json())
-    .pins as Array<{ cavity: string; destination: string; destinationFeedId: number | null }>;
+    .pins as Array<{
+    id: number;
+    cavity: string;
+    destination: string;
+    destinationFeedId: number | null;
+  }>;
   const byCavity = new Map(pins.map((p) => [p.cavity, p]));
   expect(byCavity.get('1')!.destinationFeedId).toBe(plan.feedId);
   expect(byCavity.get('2')).toMatchObject({ destination: 'ECU', destinationFeedId: null });
   expect(byCavity.get('3')).toMatchObject({ destination: 'Dash lamp', destinationFeedId: null });
+  // One fact: the pin joined to the feed is now one of the feed's loads.
+  const feeds = (
+    await (await page.request.get(`/api/conversions/${plan.conversionId}/feeds`)).json()
+  ).feeds as Array<{ id: number; loads: Array<{ pinId: number | null }> }>;
+  expect(feeds.find((f) => f.id === plan.feedId)!.loads.map((l) => l.pinId)).toEqual([
+    byCavity.get('1')!.id,
+  ]);
+});
+
+test('adding a pin as a feed load joins the pin to the feed, and the unfused power pin finding clears', async ({
+  page,
+}) => {
+  await signIn(page, DEMO.builder);
+  const plan = await createSmallPlan(page.request, 'Wenna hay loader', { joined: false });
+  await page.goto(`/conversions/${plan.conversionId}/checks`);
+  await expect(page.getByText('Power pin joined without a fuse upstream').first()).toBeVisible();
+
+  await page.getByRole('link', { name: 'Feeds', exact: true }).click();
+  await page
+    .getByRole('button', { name: 'Edit ECU supply' })
+    .or(page.getByRole('link', { name: 'Edit ECU supply' }))
+    .click();
+  await page.getByRole('button', { name: 'Add a load' }).click();
+  const pinChoice = page.getByLabel('Load 1 pin');
+  const label = await pinChoice.locator('option', { hasText: 'E5-1' }).textContent();
+  await pinChoice.selectOption({ label: label! });
+  await page.getByLabel('Load 1 device').fill('ECU');
+  await page.getByLabel('Load 1 current (A)').fill('4');
+  await page.getByRole('button', { name: 'Save feed' }).click();
+  await expect(page.getByRole('button', { name: 'Save feed' })).toHaveCount(0);
+
+  await page.getByRole('link', { name: 'Pin map', exact: true }).click();
+  await expect(cell(page, 'E5-1', 'destination')).toContainText('→ Feed: ECU supply');
+  await page.screenshot({ path: 'test-results/screens/feed-load-joins-pin.png' });
+  await page.getByRole('link', { name: 'Checks', exact: true }).click();
+  await expect(page.getByRole('heading', { name: 'Circuit checks' })).toBeVisible();
+  await expect(page.getByText('0 errors')).toBeVisible();
+  await expect(page.getByText('Power pin joined without a fuse upstream')).toHaveCount(0);
+  await page.screenshot({ path: 'test-results/screens/feed-load-checks.png', fullPage: true });
 });

@@ -202,3 +202,96 @@ describe('feeds', () => {
     expect(res.status).toBe(404);
   });
 });
+
+describe('a pin joined to a feed is one fact', () => {
+  const pinsOf = async () =>
+    (
+      await request(ctx.app)
+        .get(`/api/conversions/${draftId}/pins`)
+        .set('Authorization', builder)
+        .expect(200)
+    ).body.pins as Array<{
+      id: number;
+      version: number;
+      function: string;
+      destination: string;
+      destinationFeedId: number | null;
+    }>;
+  const feedOf = async (id: number) =>
+    (
+      await request(ctx.app)
+        .get(`/api/conversions/${draftId}/feeds`)
+        .set('Authorization', builder)
+        .expect(200)
+    ).body.feeds.find((f: { id: number }) => f.id === id) as {
+      id: number;
+      version: number;
+      loads: Array<{ pinId: number | null; name: string }>;
+    };
+
+  it('adding a pin as a feed load sets its destination; taking it off clears it', async () => {
+    const pin = (await pinsOf()).find((p) => p.destinationFeedId == null)!;
+    const created = await request(ctx.app)
+      .post(`/api/conversions/${draftId}/feeds`)
+      .set('Authorization', builder)
+      .send(
+        feedBody({
+          name: 'Washer pump',
+          loads: [{ pinId: pin.id, name: 'Washer', currentA: 3, continuous: false }],
+        }),
+      )
+      .expect(201);
+    const feed = created.body.feed;
+    let now = (await pinsOf()).find((p) => p.id === pin.id)!;
+    expect(now).toMatchObject({ destinationFeedId: feed.id, destination: '' });
+    expect(now.version).toBeGreaterThan(pin.version);
+
+    await request(ctx.app)
+      .patch(`/api/conversions/${draftId}/feeds/${feed.id}`)
+      .set('Authorization', builder)
+      .send({ loads: [], version: feed.version })
+      .expect(200);
+    now = (await pinsOf()).find((p) => p.id === pin.id)!;
+    expect(now.destinationFeedId).toBeNull();
+  });
+
+  it('setting a pin’s destination to a feed adds it as a load and moves it off the old feed', async () => {
+    const feeds = (
+      await request(ctx.app).get(`/api/conversions/${draftId}/feeds`).set('Authorization', builder)
+    ).body.feeds as Array<{ id: number; name: string }>;
+    const horn = (
+      await request(ctx.app)
+        .post(`/api/conversions/${draftId}/feeds`)
+        .set('Authorization', builder)
+        .send(feedBody({ name: 'Horn relay', loads: [] }))
+        .expect(201)
+    ).body.feed;
+    const other = feeds.find((f) => f.name === 'Fuel pump')!;
+    const pin = (await pinsOf()).find((p) => p.destinationFeedId == null && p.function)!;
+    const hornBefore = await feedOf(horn.id);
+
+    const first = await request(ctx.app)
+      .patch(`/api/pins/${pin.id}`)
+      .set('Authorization', builder)
+      .send({ destinationFeedId: horn.id, version: pin.version })
+      .expect(200);
+    const hornAfter = await feedOf(horn.id);
+    expect(hornAfter.loads).toEqual([
+      expect.objectContaining({ pinId: pin.id, name: pin.function.slice(0, 80) }),
+    ]);
+    expect(hornAfter.version).toBeGreaterThan(hornBefore.version);
+
+    // The same pin to another feed: it leaves the horn's loads.
+    await request(ctx.app)
+      .post(`/api/conversions/${draftId}/pins/batch`)
+      .set('Authorization', builder)
+      .send({
+        changes: [
+          { id: pin.id, version: first.body.pin.version, set: { destinationFeedId: other.id } },
+        ],
+      })
+      .expect(200);
+    expect((await feedOf(horn.id)).loads).toEqual([]);
+    expect((await feedOf(other.id)).loads.map((l) => l.pinId)).toContain(pin.id);
+  });
+});

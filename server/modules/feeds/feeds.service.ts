@@ -11,6 +11,7 @@ import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction, inTransactionOf } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
+import { pinsFollowLoads } from './feed-links.service.ts';
 import { ConversionJsonCache, type JsonBody } from '../../lib/cached-json.ts';
 import {
   conversionChangeCounter,
@@ -247,6 +248,12 @@ export async function createFeed(
       { transaction: t },
     );
     await replaceLoads(feed.id, input.loads, t);
+    await pinsFollowLoads(
+      conversionId,
+      feed.id,
+      input.loads.map((l) => l.pinId),
+      t,
+    );
     const created = toFeedDto((await feedWithLoads(conversionId, feed.id, t))!);
     await recordAudit(t, actor, {
       conversionId,
@@ -294,7 +301,15 @@ export async function updateFeed(
     // Loads live in their own table: the version must move even when only they change.
     feed.changed('updatedAt', true);
     await feed.save({ transaction: t });
-    if (loads) await replaceLoads(feedId, loads, t);
+    if (loads) {
+      await replaceLoads(feedId, loads, t);
+      await pinsFollowLoads(
+        conversionId,
+        feedId,
+        loads.map((l) => l.pinId),
+        t,
+      );
+    }
     const after = toFeedDto((await feedWithLoads(conversionId, feedId, t))!);
     await recordAudit(t, actor, {
       conversionId,

@@ -20,6 +20,7 @@ import {
   ofConversionInWorkshop,
 } from '../conversions/conversions.service.ts';
 import { toPinDto } from './pin-dto.ts';
+import { loadsFollowPins } from '../feeds/feed-links.service.ts';
 
 /** Connector by connector in the order they were added, each in face order. */
 export const PIN_ORDER: Array<[string, string]> = [
@@ -159,8 +160,10 @@ export async function updatePin(
     const changes = changedFields<PinChanges>(pin, set);
     // Saving the same values again is not a change: no new version, nothing in the audit trail.
     if (Object.keys(changes).length === 0) return toPinDto(pin);
+    const feedBefore = new Map([[pin.id, pin.destinationFeedId ?? null]]);
     pin.set(set);
     await pin.save({ transaction: t });
+    await loadsFollowPins([pin], feedBefore, t);
     const connector = await Connector.findByPk(pin.connectorId, { transaction: t });
     await recordAudit(t, actor, {
       conversionId: pin.conversionId,
@@ -212,12 +215,14 @@ export async function bulkUpdatePins(
     );
     await assertDestinationFeeds(conversionId, [input.set.destinationFeedId], t);
     const before: Record<number, Record<string, unknown>> = {};
+    const feedBefore = new Map([...pins.values()].map((p) => [p.id, p.destinationFeedId ?? null]));
     for (const pin of pins.values()) {
       if (Object.keys(changedFields<PinChanges>(pin, input.set)).length === 0) continue;
       before[pin.id] = beforeOf(pin, input.set);
       pin.set(input.set);
       await pin.save({ transaction: t });
     }
+    await loadsFollowPins(pins.values(), feedBefore, t);
     await recordAudit(t, actor, {
       conversionId,
       action: 'bulk_update',
@@ -268,6 +273,7 @@ export async function batchUpdatePins(
     const before: Record<number, Record<string, unknown>> = {};
     const after: Record<number, Record<string, unknown>> = {};
     const saved = new Map<number, Pin>();
+    const feedBefore = new Map([...pins.values()].map((p) => [p.id, p.destinationFeedId ?? null]));
     for (const change of input.changes) {
       const pin = pins.get(change.id)!;
       const changes = beforeAndAfter(changedFields<PinChanges>(pin, change.set));
@@ -278,6 +284,7 @@ export async function batchUpdatePins(
       pin.set(change.set);
       await pin.save({ transaction: t });
     }
+    await loadsFollowPins(saved.values(), feedBefore, t);
     await recordAudit(t, actor, {
       conversionId,
       action: 'batch_update',

@@ -1,4 +1,5 @@
 import { useCallback, useMemo } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
 import { useOutletContext } from 'react-router-dom';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
@@ -12,6 +13,7 @@ import type { ChecksState } from '@/features/feeds/components/feeds-table.tsx';
 import { FeedsScreen } from '@/features/feeds/components/feeds-screen.tsx';
 import { useConnectors } from '@/features/pin-map/api/get-connectors.ts';
 import { usePins } from '@/features/pin-map/api/get-pins.ts';
+import { pinMapKeys } from '@/features/pin-map/api/keys.ts';
 import { useWorkshop } from '@/features/workshop/api/workshop.ts';
 
 const renderLiveResults = (request: CalcRequestInput) => <LiveCalcPanel request={request} />;
@@ -29,7 +31,12 @@ export function ConversionFeedsRoute() {
   const connectors = useConnectors(conversion.id);
   const report = useCheckReport(conversion.id);
   const invalidateChecks = useInvalidateChecks(conversion.id);
-  const onFeedsChanged = useCallback(() => void invalidateChecks(), [invalidateChecks]);
+  const queryClient = useQueryClient();
+  // A feed's loads and its pins' destinations are one fact, kept by the server: read the pins again.
+  const onFeedsChanged = useCallback(() => {
+    void invalidateChecks();
+    void queryClient.invalidateQueries({ queryKey: pinMapKeys.pins(conversion.id) });
+  }, [invalidateChecks, queryClient, conversion.id]);
   const checks = useMemo<ChecksState>(
     () =>
       report.data
