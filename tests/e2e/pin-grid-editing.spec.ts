@@ -95,3 +95,43 @@ test('adding a pin as a feed load joins the pin to the feed, and the unfused pow
   await expect(page.getByText('Power pin joined without a fuse upstream')).toHaveCount(0);
   await page.screenshot({ path: 'test-results/screens/feed-load-checks.png', fullPage: true });
 });
+
+test('typing over a three-cell selection fills the selection, and one undo puts all three back', async ({
+  page,
+}) => {
+  await signIn(page, DEMO.builder);
+  const plan = await createSmallPlan(page.request, 'Pascoe milk float');
+  await page.goto(`/conversions/${plan.conversionId}/pins`);
+  await expect(grid(page)).toBeVisible();
+
+  await cell(page, 'E5-2', 'function').click();
+  await cell(page, 'E5-4', 'function').click({ modifiers: ['Shift'] });
+  await page.keyboard.type('Spare, taped back');
+  await page.screenshot({ path: 'test-results/screens/type-over-selection.png' });
+  await page.keyboard.press('Enter');
+  for (const pin of ['E5-2', 'E5-3', 'E5-4'])
+    await expect(cell(page, pin, 'function')).toHaveText('Spare, taped back');
+  await expect(cell(page, 'E5-1', 'function')).toHaveText('ECU battery supply');
+  await allSaved(page);
+
+  // A choice column too: "cut" over two dispositions.
+  await cell(page, 'E5-2', 'disposition').click();
+  await cell(page, 'E5-3', 'disposition').click({ modifiers: ['Shift'] });
+  await page.keyboard.type('cut');
+  await page.keyboard.press('Enter');
+  for (const pin of ['E5-2', 'E5-3'])
+    await expect(cell(page, pin, 'disposition')).toContainText('Cut and insulate');
+  await allSaved(page);
+
+  // Each fill is one undo step.
+  await page.keyboard.press('ControlOrMeta+Z');
+  for (const pin of ['E5-2', 'E5-3'])
+    await expect(cell(page, pin, 'disposition')).toContainText('Keep as is');
+  await expect(cell(page, 'E5-2', 'function')).toHaveText('Spare, taped back');
+  await page.keyboard.press('ControlOrMeta+Z');
+  await expect(cell(page, 'E5-2', 'function')).toHaveText('Coolant temperature signal');
+  await expect(cell(page, 'E5-3', 'function')).toHaveText('Sensor ground');
+  await expect(cell(page, 'E5-4', 'function')).toHaveText('—');
+  await allSaved(page);
+  await page.screenshot({ path: 'test-results/screens/type-over-selection-undone.png' });
+});

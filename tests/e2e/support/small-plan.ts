@@ -43,7 +43,7 @@ export async function createSmallPlan(
     cavity: string;
     version: number;
   }>;
-  const [supply, signal, ground, empty] = listed;
+  const [first] = listed;
   const { feed } = await ok(
     await request.post(`/api/conversions/${conversionId}/feeds`, {
       data: {
@@ -61,13 +61,20 @@ export async function createSmallPlan(
           returnPath: 'wire',
           colour: 'RD',
         },
-        loads: joined ? [{ pinId: supply!.id, name: 'ECU', currentA: 4, continuous: true }] : [],
+        loads: joined ? [{ pinId: first!.id, name: 'ECU', currentA: 4, continuous: true }] : [],
         dropClass: 'critical',
         dropLimitPct: null,
         notes: '',
       },
     }),
   );
+  // A feed load joins its pin (one fact), which moves the pin's version: read the pins again.
+  const fresh = new Map(
+    (
+      (await ok(await request.get(`/api/conversions/${conversionId}/pins`))).pins as typeof listed
+    ).map((p) => [p.id, p]),
+  );
+  const [supply, signal, ground, empty] = listed.map((p) => fresh.get(p.id)!);
   await ok(
     await request.post(`/api/conversions/${conversionId}/pins/batch`, {
       data: {

@@ -1,7 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import type { CellContext } from '../../../src/features/pin-map/lib/cell-values.ts';
 import { parseClipboardBlock } from '../../../src/features/pin-map/lib/clipboard.ts';
-import { planClear, planFillDown, planPaste } from '../../../src/features/pin-map/lib/pin-edits.ts';
+import {
+  planClear,
+  planFill,
+  planFillDown,
+  planPaste,
+} from '../../../src/features/pin-map/lib/pin-edits.ts';
 import { toPinRows } from '../../../src/features/pin-map/lib/rows.ts';
 import { connector, pin } from './fixtures.ts';
 
@@ -187,5 +192,49 @@ describe('planning Delete over a range', () => {
       ctx,
     );
     expect(edits).toEqual([{ id: 1, set: { function: '', colour: '' } }]);
+  });
+});
+
+describe('typing over a range', () => {
+  const colour = COLUMNS.indexOf('colour');
+  it('puts the one text, read by each column, into every editable cell of the range', () => {
+    const rows = grid(3);
+    const plan = planFill(
+      rows,
+      COLUMNS,
+      { top: 0, bottom: 2, left: FUNCTION, right: colour },
+      'bk',
+      ctx,
+    );
+    expect(plan.ok && plan.edits[0]).toEqual({ id: 1, set: { function: 'bk', colour: 'BK' } });
+    const fn = planFill(
+      rows,
+      COLUMNS,
+      { top: 0, bottom: 2, left: FUNCTION, right: FUNCTION },
+      'Spare',
+      ctx,
+    );
+    expect(fn.ok && fn.edits).toEqual([1, 2, 3].map((id) => ({ id, set: { function: 'Spare' } })));
+    const col = planFill(
+      rows,
+      COLUMNS,
+      { top: 1, bottom: 2, left: colour, right: colour },
+      'bk',
+      ctx,
+    );
+    expect(col.ok && col.edits).toEqual([2, 3].map((id) => ({ id, set: { colour: 'BK' } })));
+  });
+
+  it('refuses the whole range when one cell cannot take the text', () => {
+    const rows = grid(2);
+    const plan = planFill(
+      rows,
+      COLUMNS,
+      { top: 0, bottom: 1, left: colour, right: colour },
+      'bluish',
+      ctx,
+    );
+    expect(plan.ok).toBe(false);
+    expect(!plan.ok && plan.problems.map((p) => p.pinId)).toEqual([1, 2]);
   });
 });

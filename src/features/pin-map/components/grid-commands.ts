@@ -11,6 +11,7 @@ import type { GridPosition } from '../lib/navigation.ts';
 import {
   changedFields,
   planClear,
+  planFill,
   planFillDown,
   planPaste,
   type CellProblem,
@@ -159,7 +160,35 @@ export function gridCommands({ rows, columnIds, ctx, readOnly, editing, errors }
     return null;
   }
 
-  return { saveCell, reportProblems, refuseReadOnly, fillDown, clearCells, paste, copy };
+  /**
+   * Typing over a range: the text goes into every editable cell of it, written as one batch (one
+   * undo step). Returns why it cannot be saved, or null.
+   */
+  function fillCells(target: CellRange, text: string): string | null {
+    if (readOnly) {
+      refuseReadOnly();
+      return null;
+    }
+    const plan = planFill(rows, columnIds, target, text, ctx);
+    if (!plan.ok) {
+      reportProblems('filled', plan.problems);
+      const first = plan.problems[0]!;
+      return plan.problems.length === 1
+        ? `${first.pin}: ${first.message}`
+        : `${plan.problems.length} cells do not take this value (${first.pin}: ${first.message})`;
+    }
+    errors.clearAll();
+    if (plan.edits.length) {
+      editing.write(
+        plan.edits,
+        `typing over ${plural(plan.cellCount, 'cell')} in ${plural(plan.edits.length, 'pin')}`,
+        'batch',
+      );
+    }
+    return null;
+  }
+
+  return { saveCell, fillCells, reportProblems, refuseReadOnly, fillDown, clearCells, paste, copy };
 }
 
 export type GridCommands = ReturnType<typeof gridCommands>;

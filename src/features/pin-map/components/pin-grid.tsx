@@ -18,6 +18,7 @@ import { isEditableColumn, type CellContext, type EditableColumnId } from '../li
 import { cellText, SELECT_COLUMN } from '../lib/columns.ts';
 import { editorKind, editorListWidth, editorOptions } from '../lib/editor-options.ts';
 import { moveFocus, type GridPosition, type Move } from '../lib/navigation.ts';
+import type { CellRange } from '../lib/pin-edits.ts';
 import { CellEditor, type EditorMove } from './cell-editor.tsx';
 import { gridCommands } from './grid-commands.ts';
 import { focusHeading, GridHeader } from './grid-header.tsx';
@@ -34,6 +35,8 @@ interface EditState extends CellKey {
   initialText: string;
   fresh: boolean;
   dropUp: boolean;
+  /** Typing started over a range of cells: the text fills all of them. */
+  fill: CellRange | null;
 }
 
 const EDITOR_MOVES: Record<Exclude<EditorMove, 'stay'>, Move> = {
@@ -122,8 +125,12 @@ export function PinGrid({ ctx, editing, describedBy, ref, ...tableOptions }: Pin
     if (readOnly) return commands.refuseReadOnly();
     const el = scrollRef.current;
     const rowTop = HEADER_HEIGHT + pos.row * ROW_HEIGHT - (el?.scrollTop ?? 0);
+    // Typing over a range of several cells fills the range; Enter or F2 edits one cell.
+    const target = typed !== undefined ? currentRange() : null;
+    const fill =
+      target && (target.top !== target.bottom || target.left !== target.right) ? target : null;
     setActive({ pinId: row.pin.id, columnId });
-    setAnchor(null);
+    if (!fill) setAnchor(null);
     scrollToCell(pos);
     setEdit({
       pinId: row.pin.id,
@@ -131,13 +138,18 @@ export function PinGrid({ ctx, editing, describedBy, ref, ...tableOptions }: Pin
       initialText: typed ?? cellText(row, columnId, unit),
       fresh: typed !== undefined,
       dropUp: !!el && rowTop > el.clientHeight * 0.55,
+      fill,
     });
   }
 
   function commitEdit(text: string, move: EditorMove): string | null {
     if (!edit) return null;
     const row = shownRows[rowIndexOf.get(edit.pinId) ?? -1];
-    if (row) {
+    if (edit.fill) {
+      const problem = commands.fillCells(edit.fill, text);
+      if (problem) return problem;
+      setAnchor(null);
+    } else if (row) {
       const problem = commands.saveCell(row, edit.columnId, text);
       if (problem) return problem;
     }
@@ -160,6 +172,11 @@ export function PinGrid({ ctx, editing, describedBy, ref, ...tableOptions }: Pin
     const current = edit;
     setEdit(null);
     if (text === null || !current) return;
+    if (current.fill) {
+      commands.fillCells(current.fill, text);
+      setAnchor(null);
+      return;
+    }
     const row = shownRows[rowIndexOf.get(current.pinId) ?? -1];
     if (!row) return;
     const problem = commands.saveCell(row, current.columnId, text);

@@ -165,6 +165,43 @@ export function planFillDown(
   return { ok: true, edits: collect(byId, parts), cellCount, clippedRows: 0, clippedColumns: 0 };
 }
 
+/**
+ * Plans typing over a range: the one text goes through each editable cell's parser, as if typed
+ * into every cell of the range. Any cell that refuses it refuses the whole fill.
+ */
+export function planFill(
+  rows: readonly PinRow[],
+  columns: readonly string[],
+  range: CellRange,
+  text: string,
+  ctx: CellContext,
+): EditPlan {
+  const parts: Array<{ id: number; set: PinChanges }> = [];
+  const problems: CellProblem[] = [];
+  let cellCount = 0;
+  for (let c = range.left; c <= range.right; c++) {
+    const id = columns[c];
+    if (!id || !isEditableColumn(id)) continue;
+    for (let r = range.top; r <= range.bottom; r++) {
+      const row = rows[r]!;
+      cellCount++;
+      const parsed = parseCell(id, text, ctx, row.pin.id);
+      if (parsed.ok) parts.push({ id: row.pin.id, set: parsed.set });
+      else
+        problems.push({
+          pinId: row.pin.id,
+          pin: row.name,
+          columnId: id,
+          text,
+          message: parsed.error,
+        });
+    }
+  }
+  if (problems.length) return { ok: false, problems };
+  const byId = new Map(rows.map((r) => [r.pin.id, r]));
+  return { ok: true, edits: collect(byId, parts), cellCount, clippedRows: 0, clippedColumns: 0 };
+}
+
 /** Plans emptying the cells of a range (Delete); choice columns keep their value. */
 export function planClear(
   rows: readonly PinRow[],
