@@ -21,6 +21,7 @@ import { sealOf } from '../server/modules/revisions/revisions.service.ts';
 import { saveTemplate } from '../server/modules/library/library.service.ts';
 import { DEMO_CONVERSIONS, DEMO_USERS, DEMO_WORKSHOP } from './demo-data.ts';
 import { DRAFT_FEEDS, SIGNED_OFF_FEEDS, type DemoFeed } from './feeds-data.ts';
+import { seedHarness } from './harness-data.ts';
 import { DRAFT_CONNECTORS, SIGNED_OFF_CONNECTORS, type DemoConnector } from './pin-map-data.ts';
 
 export interface DemoSeedResult {
@@ -64,9 +65,11 @@ export async function seedDemo(
     );
     const signedOffPins = await seedPinMap(signedOff.id, SIGNED_OFF_CONNECTORS, transaction);
     await seedFeeds(signedOff.id, SIGNED_OFF_FEEDS, signedOffPins, transaction);
+    await seedHarness(sequelize, signedOff.id, { draft: false }, transaction);
     await seedSignedOffRevision(workshop.id, signedOff.id, users, options.sealKeyPem, transaction);
     const draftPins = await seedPinMap(draft.id, DRAFT_CONNECTORS, transaction);
     await seedFeeds(draft.id, DRAFT_FEEDS, draftPins, transaction);
+    await seedHarness(sequelize, draft.id, { draft: true }, transaction);
     await seedHistory(workshop.id, { signedOff: signedOff.id, draft: draft.id }, transaction);
     return {
       workshopId: workshop.id,

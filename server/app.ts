@@ -21,6 +21,7 @@ import { calcRoutes } from './modules/calc/calc.routes.ts';
 import { checksRoutes } from './modules/checks/checks.routes.ts';
 import { conversionsRoutes } from './modules/conversions/conversions.routes.ts';
 import { feedsRoutes } from './modules/feeds/feeds.routes.ts';
+import { conversionHarnessRoutes, wireRoutes } from './modules/harness/harness.routes.ts';
 import {
   connectorImportRoutes,
   conversionImportRoutes,
@@ -98,6 +99,7 @@ export function createApp({ env, clientDir }: AppOptions) {
     benchRoutes,
     conversionImportRoutes,
     conversionLibraryRoutes,
+    conversionHarnessRoutes,
   );
   api.use('/admin', authenticate, mailRoutes);
   api.use('/calc', authenticate, calcRoutes);
@@ -113,6 +115,7 @@ export function createApp({ env, clientDir }: AppOptions) {
   api.use('/library', authenticate, libraryRoutes);
   api.use('/pinouts', authenticate, pinoutRoutes);
   api.use('/pins', authenticate, pinRoutes);
+  api.use('/wires', authenticate, wireRoutes);
   api.use(apiNotFound);
   app.use('/api', api);
 

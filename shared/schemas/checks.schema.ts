@@ -20,6 +20,10 @@ export const CHECK_RULES = [
   'fuse_placement',
   'relay_coil_driver',
   'ecu_output_overload',
+  'ground_pin_removed',
+  'wire_end_unresolved',
+  'cavity_two_wires',
+  'splice_wire_smaller_than_fuse',
 ] as const;
 export type CheckRule = (typeof CHECK_RULES)[number];
 

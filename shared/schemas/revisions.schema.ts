@@ -123,4 +123,10 @@ export interface RevisionChanges {
     changed: Array<{ label: string; fields: FieldChange[] }>;
   };
   conversion: FieldChange[];
+  /** Wires, splices, ground points and box positions, matched by label; absent before the harness. */
+  harness?: {
+    added: string[];
+    removed: string[];
+    changed: Array<{ label: string; fields: FieldChange[] }>;
+  };
 }

@@ -1,4 +1,5 @@
 import type { Feed } from './feeds.schema.ts';
+import type { SnapshotHarness } from './harness.schema.ts';
 import type { Connector, Pin } from './pin-map.schema.ts';
 
 /**
@@ -20,6 +21,8 @@ export interface ConversionSnapshot {
   connectors: SnapshotConnector[];
   pins: SnapshotPin[];
   feeds: SnapshotFeed[];
+  /** Wires, splices, ground points and boxes; absent in revisions frozen before the harness. */
+  harness?: SnapshotHarness;
 }
 
 export type SnapshotConnector = Omit<Connector, 'version'>;

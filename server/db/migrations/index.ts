@@ -10,6 +10,7 @@ import { benchItems } from './0007-bench-items.ts';
 import { seals } from './0008-seals.ts';
 import { changeCounters } from './0009-change-counters.ts';
 import { electricalRules } from './0010-electrical-rules.ts';
+import { harness } from './0011-harness.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -33,6 +34,7 @@ export const MIGRATIONS: Migration[] = [
   seals,
   changeCounters,
   electricalRules,
+  harness,
 ];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {

@@ -1,9 +1,11 @@
 import type { Transaction } from 'sequelize';
 import type { ConversionSnapshot } from '#shared/schemas/snapshot.schema.ts';
+import { withoutVersions } from '#shared/schemas/harness.schema.ts';
 import { Connector, Feed, FeedLoad, Pin, Workshop } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
 import { toFeedDto } from '../feeds/feeds.service.ts';
+import { harnessOf } from '../harness/harness.repository.ts';
 import { toConnectorDto, toPinDto } from '../pin-map/pin-dto.ts';
 import { PIN_ORDER } from '../pin-map/pins.service.ts';
 
@@ -17,7 +19,7 @@ export async function loadConversionSnapshot(
   transaction?: Transaction,
 ): Promise<ConversionSnapshot> {
   const conversion = await findConversionInWorkshop(actor, conversionId, transaction);
-  const [workshop, connectors, pins, feeds] = await Promise.all([
+  const [workshop, connectors, pins, feeds, harness] = await Promise.all([
     Workshop.findByPk(actor.workshopId, { transaction }),
     Connector.findAll({ where: { conversionId }, order: [['id', 'ASC']], transaction }),
     Pin.findAll({ where: { conversionId }, order: PIN_ORDER, raw: true, transaction }),
@@ -27,6 +29,7 @@ export async function loadConversionSnapshot(
       order: [['id', 'ASC']],
       transaction,
     }),
+    harnessOf(conversionId, transaction),
   ]);
   return {
     format: 1,
@@ -51,5 +54,6 @@ export async function loadConversionSnapshot(
       const { version: _v, ...rest } = toFeedDto(f);
       return rest;
     }),
+    harness: withoutVersions(harness),
   };
 }

@@ -7,6 +7,15 @@ import type { ConversionSnapshot } from '../../schemas/snapshot.schema.ts';
 import type { SizeUnit } from '../../schemas/workshop.schema.ts';
 import { CheckContext, type CheckOptions } from './check-context.ts';
 import { checkFeed } from './feed-rules.ts';
+import {
+  cavitiesWithTwoWires,
+  groundPinsKept,
+  harnessGraph,
+  powerPinsByWire,
+  sensorGroundsByWire,
+  spliceWiresProtected,
+  unresolvedEnds,
+} from './harness-rules.ts';
 import { showFinding } from './finding-sizes.ts';
 import {
   checkEcuOutputs,
@@ -24,14 +33,35 @@ const ORDER: Record<Severity, number> = { error: 0, warning: 1, note: 2 };
  */
 export function storedFindings(snapshot: ConversionSnapshot, options: CheckOptions): Finding[] {
   const ctx = new CheckContext(snapshot, options);
-  const findings = [
+  const graph = harnessGraph(ctx);
+  const byWire = graph ? sensorGroundsByWire(ctx, graph) : [];
+  // A sensor ground that is wired is judged by its wires; one that is not, by its destination.
+  const wiredPins = new Set(
+    graph ? snapshot.pins.filter((p) => graph.isWired(p.id)).map((p) => p.id) : [],
+  );
+  const found = [
     ...checkUndecided(ctx),
     ...snapshot.feeds.flatMap((feed) => checkFeed(ctx, feed)),
     ...checkJoinedPins(ctx),
     ...checkEcuOutputs(ctx),
-    ...checkSensorGrounds(ctx),
+    ...checkSensorGrounds(ctx).filter(
+      (f) => !(f.subject.pinIds ?? []).some((id) => wiredPins.has(id)),
+    ),
+    ...byWire,
     ...checkSharedDestinations(ctx),
+    ...groundPinsKept(ctx),
+    ...(graph
+      ? [
+          ...powerPinsByWire(ctx, graph),
+          ...unresolvedEnds(ctx, graph),
+          ...cavitiesWithTwoWires(ctx, graph),
+          ...spliceWiresProtected(ctx, graph),
+        ]
+      : []),
   ];
+  // One finding per rule and subject: a rule read both from the pin map and from the wires says it once.
+  const seen = new Set<string>();
+  const findings = found.filter((f) => (seen.has(f.id) ? false : (seen.add(f.id), true)));
   // Severity first; sort is stable, so within a severity the rules keep the order they ran in.
   return findings.sort((a, b) => ORDER[a.severity] - ORDER[b.severity]);
 }

@@ -4,11 +4,14 @@
  */
 import { PIN_FIELD_NAMES } from '../../schemas/pin-map.schema.ts';
 import type { FieldChange, RevisionChanges } from '../../schemas/revisions.schema.ts';
+import type { SnapshotHarness } from '../../schemas/harness.schema.ts';
 import type {
   ConversionSnapshot,
   SnapshotFeed,
   SnapshotPin,
 } from '../../schemas/snapshot.schema.ts';
+
+type SnapshotWire = SnapshotHarness['wires'][number];
 import { pinNames } from '../pin-names.ts';
 
 /** Every field a person sets on a pin. */
@@ -122,7 +125,82 @@ export function diffSnapshots(
     'systemVoltage',
     'notes',
   ]);
-  return { pins, feeds, connectors, conversion };
+  return { pins, feeds, connectors, conversion, harness: diffHarness(before, after) };
+}
+
+/** Every harness item by what a person calls it ("W-012", "S-03", "G-1", "Fuse and relay box F4"). */
+function harnessItems(s: ConversionSnapshot): Map<string, Record<string, unknown>> {
+  const items = new Map<string, Record<string, unknown>>();
+  const h = s.harness;
+  if (!h) return items;
+  const pinName = pinNames(s);
+  const positionName = new Map(
+    h.boxes.flatMap((b) => b.positions.map((p) => [p.id, `${b.label} ${p.label}`] as const)),
+  );
+  const endName = (e: SnapshotWire['ends'][number]) => {
+    switch (e.kind) {
+      case 'pin':
+        return pinName.get(e.refId) ?? `pin ${e.refId}`;
+      case 'splice':
+        return h.splices.find((x) => x.id === e.refId)?.label ?? 'splice';
+      case 'ground':
+        return h.groundPoints.find((x) => x.id === e.refId)?.label ?? 'ground';
+      case 'relay':
+      case 'fuse':
+        return `${positionName.get(e.refId) ?? e.kind}:${e.terminal}`;
+      case 'source':
+        return e.source;
+      case 'unresolved':
+        return `? ${e.text}`;
+    }
+  };
+  for (const w of h.wires) {
+    items.set(`Wire ${w.label}`, {
+      colour: w.colour,
+      sizeMm2: w.sizeMm2,
+      lengthM: w.lengthM,
+      zone: w.zone,
+      endA: endName(w.ends[0]),
+      endB: endName(w.ends[1]),
+      notes: w.notes,
+    });
+  }
+  for (const x of h.splices)
+    items.set(`Splice ${x.label}`, {
+      sealed: x.sealed,
+      branch: x.branch,
+      distanceMm: x.distanceMm,
+      notes: x.notes,
+    });
+  for (const g of h.groundPoints)
+    items.set(`Ground point ${g.label}`, {
+      location: g.location,
+      strapSizeMm2: g.strapSizeMm2,
+      notes: g.notes,
+    });
+  for (const b of h.boxes) {
+    for (const { id: _id, ...p } of b.positions) items.set(`${b.label} ${p.label}`, { ...p });
+  }
+  return items;
+}
+
+function diffHarness(
+  before: ConversionSnapshot,
+  after: ConversionSnapshot,
+): RevisionChanges['harness'] {
+  const old = harnessItems(before);
+  const now = harnessItems(after);
+  const changes: NonNullable<RevisionChanges['harness']> = { added: [], removed: [], changed: [] };
+  for (const [label, item] of now) {
+    const was = old.get(label);
+    if (!was) changes.added.push(label);
+    else {
+      const fields = fieldChanges(was, item, Object.keys(item));
+      if (fields.length) changes.changed.push({ label, fields });
+    }
+  }
+  for (const label of old.keys()) if (!now.has(label)) changes.removed.push(label);
+  return changes;
 }
 
 export function countChanges(c: RevisionChanges): number {
@@ -136,6 +214,7 @@ export function countChanges(c: RevisionChanges): number {
     c.connectors.added.length +
     c.connectors.removed.length +
     c.connectors.changed.length +
-    c.conversion.length
+    c.conversion.length +
+    (c.harness ? c.harness.added.length + c.harness.removed.length + c.harness.changed.length : 0)
   );
 }

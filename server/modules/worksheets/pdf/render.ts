@@ -4,6 +4,7 @@
  */
 import type { Writable } from 'node:stream';
 import PDFDocument from 'pdfkit';
+import { CIRCUITS_TITLE, drawHarness, WIRES_TITLE } from './sections/harness.ts';
 import { buildCutList } from './cut-list.ts';
 import { registerFonts, warmFonts } from './fonts.ts';
 import type { WorksheetInput, WorksheetMeta, WorksheetRevision } from './meta.ts';
@@ -62,6 +63,7 @@ export async function renderWorksheet(
     ...(hasFindings ? [FINDINGS_TITLE] : []),
     CUT_LIST_TITLE,
     FUSES_TITLE,
+    ...(snapshot.harness ? [WIRES_TITLE, CIRCUITS_TITLE] : []),
     ACTIONS_TITLE,
     ...snapshot.connectors.map(connectorTitle),
     TEST_PLAN_TITLE,
@@ -71,6 +73,7 @@ export async function renderWorksheet(
   if (hasFindings) await drawFindings(sheet, index);
   await drawCutList(sheet, index, cutList);
   await drawFuseSchedule(sheet, index);
+  if (snapshot.harness) await drawHarness(sheet, index);
   await drawActions(sheet, index);
   for (const connector of snapshot.connectors) await drawConnector(sheet, index, connector);
   await drawTestPlan(sheet, index);
