@@ -1,3 +1,4 @@
+import { CONNECTOR_SIDE_LABELS } from '#shared/schemas/pin-map.schema.ts';
 /**
  * The bench worksheet of the demo conversions, printed through the API and read back with pdfjs.
  * Expected values come from the plan as the API lists it, not from the worksheet code.
@@ -111,7 +112,7 @@ describe('GET /api/conversions/:id/worksheet.pdf, the current draft', () => {
     const items = pages.flatMap((p) => p.items);
     for (const connector of data.connectors) {
       const start = items.indexOf(
-        `Connector ${connector.label}, ${connector.side === 'ecu' ? 'ECU side' : 'Vehicle side'}`,
+        `Connector ${connector.label}, ${CONNECTOR_SIDE_LABELS[connector.side]}`,
       );
       expect(start, connector.label).toBeGreaterThan(-1);
       const pins = data.pins
