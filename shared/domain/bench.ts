@@ -8,6 +8,8 @@ import type { BenchTick, BenchTickDef } from '../schemas/bench.schema.ts';
 import type { ConversionSnapshot, SnapshotFeed, SnapshotPin } from '../schemas/snapshot.schema.ts';
 import { BENCH_ORDER, DISPOSITION_INFO, type Disposition } from './dispositions.ts';
 import { conductorResistanceOhm } from './electrical/copper.ts';
+import { FUSE_FAMILIES } from './electrical/fuses.ts';
+import { HarnessGraph } from './harness/circuit-graph.ts';
 import { pinNames } from './pin-names.ts';
 import { sha256Hex } from './revisions/content-hash.ts';
 
@@ -49,7 +51,17 @@ const PIN_TICKS: Record<Exclude<Disposition, 'empty' | 'undecided'>, BenchTickDe
 /** Ticks for an item that was built on an earlier revision and is gone from this one. */
 export const REMOVED_TICKS: BenchTickDef[] = [tick('done', 'Taken out')];
 
-export type BenchItemKind = 'pin' | 'feed';
+export type BenchItemKind = 'pin' | 'feed' | 'wire' | 'splice' | 'ground' | 'box';
+
+/** The words the checklist uses for each kind of item. */
+export const BENCH_KIND_LABELS: Record<BenchItemKind, string> = {
+  pin: 'Pin',
+  feed: 'New feed',
+  wire: 'Wire',
+  splice: 'Splice',
+  ground: 'Ground point',
+  box: 'Box position',
+};
 
 /** One thing to build on the bench, without what was recorded against it. */
 export interface BenchPlanItem {
@@ -174,7 +186,124 @@ function feedItem(
   };
 }
 
-/** Every pin with something to do (empty cavities left out) in bench order, then every new feed. */
+/**
+ * The harness as bench items: each wire (both ends terminated, labelled, tested end to end), each
+ * splice (made, sealed), each ground point (cleaned, torqued) and each box position (fuse or relay
+ * fitted). Named by label, so the same wire in two revisions is the same work.
+ */
+function harnessItems(snapshot: ConversionSnapshot): BenchPlanItem[] {
+  const harness = snapshot.harness;
+  if (!harness) return [];
+  const graph = new HarnessGraph(snapshot, harness);
+  const endName = (wire: (typeof harness.wires)[number], i: number) => {
+    const end = wire.ends[i]!;
+    const node = graph.describe(
+      end.kind === 'unresolved'
+        ? `unresolved:${wire.id}:${i}`
+        : end.kind === 'source'
+          ? `source:${end.source}`
+          : `${end.kind}:${end.refId}`,
+    );
+    const terminal = end.kind === 'relay' || end.kind === 'fuse' ? ` ${end.terminal}` : '';
+    return end.kind === 'unresolved' ? `? ${node.lines[0] ?? ''}` : `${node.title}${terminal}`;
+  };
+  const items: BenchPlanItem[] = [];
+  for (const w of harness.wires) {
+    const [a, b] = [endName(w, 0), endName(w, 1)];
+    const expectedOhm = expectedContinuityOhm({ sizeMm2: w.sizeMm2, runLengthM: w.lengthM });
+    const { id: _id, conversionId: _c, ends: _e, ...fields } = w;
+    items.push({
+      key: `wire:${w.label}`,
+      kind: 'wire',
+      name: w.label,
+      asked: [
+        [w.colour, sizeText(w.sizeMm2)].filter(Boolean).join(' '),
+        w.lengthM != null ? `${w.lengthM} m` : '',
+        `${a} → ${b}`,
+      ]
+        .filter(Boolean)
+        .join(' · '),
+      pin: null,
+      feed: null,
+      destinationLabel: `${a} → ${b}`,
+      ticks: [
+        tick('done', 'Both ends terminated'),
+        tick('labelled', 'Labelled at both ends'),
+        tick('tested', 'Tested'),
+      ],
+      reading: { expectedOhm, limitOhm: continuityLimitOhm(expectedOhm) },
+      content: canonical({ kind: 'wire', ...fields, endA: a, endB: b }),
+    });
+  }
+  for (const s of harness.splices) {
+    const wires = harness.wires
+      .filter((w) => w.ends.some((e) => e.kind === 'splice' && e.refId === s.id))
+      .map((w) => w.label);
+    items.push({
+      key: `splice:${s.label}`,
+      kind: 'splice',
+      name: s.label,
+      asked: [`joins ${wires.join(', ') || 'no wires yet'}`, s.branch, s.notes]
+        .filter(Boolean)
+        .join(' · '),
+      pin: null,
+      feed: null,
+      destinationLabel: '',
+      ticks: [tick('done', 'Made'), ...(s.sealed ? [tick('sealed', 'Sealed')] : [])],
+      reading: null,
+      content: canonical({ kind: 'splice', label: s.label, sealed: s.sealed, wires }),
+    });
+  }
+  for (const g of harness.groundPoints) {
+    const wires = harness.wires
+      .filter((w) => w.ends.some((e) => e.kind === 'ground' && e.refId === g.id))
+      .map((w) => w.label);
+    items.push({
+      key: `ground:${g.label}`,
+      kind: 'ground',
+      name: g.label,
+      asked: [g.location.replace('_', ' '), `takes ${wires.join(', ') || 'no wires yet'}`, g.notes]
+        .filter(Boolean)
+        .join(' · '),
+      pin: null,
+      feed: null,
+      destinationLabel: '',
+      ticks: [tick('done', 'Cleaned to bare metal'), tick('torqued', 'Fastened and torqued')],
+      reading: null,
+      content: canonical({ kind: 'ground', label: g.label, location: g.location, wires }),
+    });
+  }
+  for (const box of harness.boxes) {
+    for (const p of box.positions) {
+      const fitted =
+        p.kind === 'fuse'
+          ? tick('fuse', `Fuse fitted, ${p.ratingA} A`)
+          : tick('relay', `Relay fitted, contacts ${p.contactRatingA} A`);
+      const { id: _id, feedId: _f, ...fields } = p;
+      items.push({
+        key: `box:${box.label}:${p.label}`,
+        kind: 'box',
+        name: `${box.label} ${p.label}`,
+        asked:
+          p.kind === 'fuse'
+            ? `${FUSE_FAMILIES[p.fuseType].label} ${p.ratingA} A`
+            : `Relay, contacts ${p.contactRatingA} A`,
+        pin: null,
+        feed: null,
+        destinationLabel: '',
+        ticks: [fitted],
+        reading: null,
+        content: canonical({ item: 'box', box: box.label, ...fields }),
+      });
+    }
+  }
+  return items;
+}
+
+/**
+ * Every pin with something to do (empty cavities left out) in bench order, then every new feed,
+ * then the harness: wires, splices, ground points and box positions.
+ */
 export function benchPlanItems(snapshot: ConversionSnapshot): BenchPlanItem[] {
   const pinName = pinNames(snapshot);
   const feedName = new Map(snapshot.feeds.map((f) => [f.id, f.name]));
@@ -198,7 +327,11 @@ export function benchPlanItems(snapshot: ConversionSnapshot): BenchPlanItem[] {
       ),
     )
     .filter((i): i is BenchPlanItem => i !== null);
-  return [...pins, ...snapshot.feeds.map((f) => feedItem(f, pinName, feedName))];
+  return [
+    ...pins,
+    ...snapshot.feeds.map((f) => feedItem(f, pinName, feedName)),
+    ...harnessItems(snapshot),
+  ];
 }
 
 /** SHA-256 of an item's canonical content: the "same row" test across revisions. */

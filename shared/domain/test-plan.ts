@@ -94,9 +94,13 @@ export function buildTestPlan(snapshot: ConversionSnapshot): TestPlan {
   );
   const steps: TestStep[] = [];
 
-  // Every wire the conversion adds or changes: extended and joined pins, and each new feed's wire.
+  // Every wire the conversion adds or changes: extended and joined pins, each new feed's wire, and
+  // every wire of the harness end to end.
   const wires = items.filter(
-    (i) => (i.pin && (i.pin.disposition === 'extend' || i.pin.disposition === 'join')) || i.feed,
+    (i) =>
+      (i.pin && (i.pin.disposition === 'extend' || i.pin.disposition === 'join')) ||
+      i.feed ||
+      i.kind === 'wire',
   );
   for (const w of wires) {
     steps.push({

@@ -12,6 +12,8 @@ export const BENCH_TICKS = [
   'insulated',
   'fuse',
   'relay',
+  'labelled',
+  'torqued',
   'tested',
   'passed',
   'failed',

@@ -32,7 +32,17 @@ describe('bench checklist', () => {
     expect(sheet.revision).toMatchObject({ number: 1, reviewedBy: 'Dana Whitlow', current: true });
     expect(sheet.items.every((i) => i.pin?.disposition !== 'empty')).toBe(true);
     expect(sheet.items[0]!.pin!.disposition).toBe('depin');
-    expect(sheet.items.at(-1)!.kind).toBe('feed');
+    // Then the harness: wires, splices, ground points and box positions, each with its own ticks.
+    const kinds = sheet.items.map((i) => i.kind);
+    expect(kinds.lastIndexOf('feed')).toBeLessThan(kinds.indexOf('wire'));
+    expect(kinds).toEqual(expect.arrayContaining(['wire', 'splice', 'ground', 'box']));
+    const wire = sheet.items.find((i) => i.kind === 'wire')!;
+    expect(wire.ticks.map((t) => t.key)).toEqual(['done', 'labelled', 'tested']);
+    expect(sheet.items.find((i) => i.kind === 'ground')!.ticks.map((t) => t.key)).toEqual([
+      'done',
+      'torqued',
+    ]);
+    expect(sheet.items.find((i) => i.kind === 'box')!.ticks).toHaveLength(1);
     expect(sheet.progress).toEqual({ total: sheet.items.length, done: 20, tested: 6, rework: 0 });
     expect(sheet.items.find((i) => i.name === 'E2-15')?.destinationLabel).toBe('DLC-6');
     expect(sheet.items.find((i) => i.name === 'E2-2')?.destinationLabel).toBe('Feed: ECU main');
@@ -102,10 +112,18 @@ describe('bench checklist', () => {
     const body = res.body as TestPlanResponse;
     const sheet = await sheetFor();
     const wires = sheet.items.filter(
-      (i) => i.feed || i.pin?.disposition === 'extend' || i.pin?.disposition === 'join',
+      (i) =>
+        i.feed ||
+        i.kind === 'wire' ||
+        i.pin?.disposition === 'extend' ||
+        i.pin?.disposition === 'join',
     );
     const continuity = body.plan.steps.filter((s) => s.phase === 'unplugged' && s.unit === 'Ω');
     expect(continuity.map((s) => s.key).sort()).toEqual(wires.map((w) => w.key).sort());
+    // Every wire of the harness is tested end to end, with its expected resistance and limit.
+    expect(continuity.filter((s) => s.key.startsWith('wire:W-')).length).toBe(
+      sheet.items.filter((i) => i.kind === 'wire').length,
+    );
     for (const s of continuity) expect(s.limit?.max).toBeGreaterThan(0);
     expect(continuity.filter((s) => s.expected != null).length).toBeGreaterThan(0);
     const battery = await put(1, 'test:battery', { reading: 12.6 });

@@ -1,4 +1,4 @@
-import { isDone } from '#shared/domain/bench.ts';
+import { BENCH_KIND_LABELS, isDone } from '#shared/domain/bench.ts';
 import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import type {
@@ -69,7 +69,7 @@ export function BenchRow({
               </span>
             ) : (
               <span className="rounded border border-rule-strong px-2 py-0.5 font-semibold">
-                New feed
+                {BENCH_KIND_LABELS[item.kind]}
               </span>
             )}
             {r?.carriedFrom ? (
