@@ -8,6 +8,8 @@ export const UserSummary = z.object({
   name: z.string(),
   role: RoleSchema,
   active: z.boolean(),
+  /** Invited and has not set a password yet: cannot sign in. */
+  invited: z.boolean(),
   createdAt: z.string(),
 });
 export type UserSummary = z.infer<typeof UserSummary>;

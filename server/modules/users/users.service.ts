@@ -22,6 +22,7 @@ export function toUserSummary(user: User): UserSummary {
     name: user.name,
     role: user.role,
     active: user.active,
+    invited: user.passwordHash == null,
     createdAt: user.createdAt.toISOString(),
   };
 }
@@ -125,6 +126,8 @@ async function answerForTakenAddress(
     name: input.name,
     role: input.role,
     active: true,
+    // Answered exactly as a new account would be, so the answer tells nothing about the address.
+    invited: !input.password,
     createdAt: new Date().toISOString(),
   };
 }

@@ -9,6 +9,7 @@ import { usePins } from '@/features/pin-map/api/get-pins.ts';
 import { useRevisions } from '@/features/revisions/api/revisions.ts';
 import { RevisionStatusBadge } from '@/features/revisions/components/revision-status.tsx';
 import { formatDate } from '@/lib/format-date.ts';
+import { plural } from '@/lib/plural.ts';
 
 /** The current draft's bench worksheet; the session cookie goes with the new tab's request. */
 const draftWorksheetHref = (conversionId: number) =>
@@ -46,9 +47,9 @@ export function ConversionOverviewRoute() {
         <Glance title="Pin map" to={paths.conversionPins.getHref(c.id)}>
           {connectors.data && pins.data ? (
             <>
-              {cavities - undecided} of {cavities} pins decided
+              {cavities - undecided} of {plural(cavities, 'pin')} decided
               <span className="block text-sm font-normal text-ink-soft">
-                on {connectors.data.length} connectors
+                on {plural(connectors.data.length, 'connector')}
                 {undecided ? ` · ${undecided} still undecided` : ''}
               </span>
             </>
@@ -57,7 +58,7 @@ export function ConversionOverviewRoute() {
           )}
         </Glance>
         <Glance title="New fused feeds" to={paths.conversionFeeds.getHref(c.id)}>
-          {feeds.data ? `${feeds.data.length} feeds` : '…'}
+          {feeds.data ? plural(feeds.data.length, 'feed') : '…'}
           <span className="block text-sm font-normal text-ink-soft">
             fuses, relays, wires, loads
           </span>

@@ -5,9 +5,11 @@ import type { Conversion } from '#shared/schemas/conversions.schema.ts';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { useCan } from '@/features/auth/hooks/use-can.ts';
+import { paths } from '@/config/paths.ts';
 import { useFeeds } from '@/features/feeds/api/get-feeds.ts';
 import { feedKeys } from '@/features/feeds/api/keys.ts';
 import { pinMapKeys } from '@/features/pin-map/api/keys.ts';
+import { FromTemplateForm } from '@/features/library/components/from-template-form.tsx';
 import { PinMapScreen } from '@/features/pin-map/components/pin-map-screen.tsx';
 import { useWorkshop } from '@/features/workshop/api/workshop.ts';
 
@@ -53,6 +55,10 @@ export function ConversionPinMapRoute() {
       readOnly={!canWrite}
       feeds={feedNames}
       focusPinId={focusPinId}
+      renderFromLibrary={(added) => (
+        <FromTemplateForm conversionId={conversion.id} onCreated={(c) => added(c.id)} />
+      )}
+      importHref={paths.conversionFiles.getHref(conversion.id)}
     />
   );
 }

@@ -14,6 +14,7 @@ import { ApiError } from '@/lib/api-client.ts';
 import { blankAsUndefined, errorAt } from '@/lib/form-errors.ts';
 import { useCreateConnectorFromTemplate } from '../api/create-connector-from-template.ts';
 import { useTemplates } from '../api/get-templates.ts';
+import { plural } from '@/lib/plural.ts';
 
 /** Adds a connector to a conversion with a template's cavities, layout and pin details. */
 export function FromTemplateForm({
@@ -53,7 +54,8 @@ export function FromTemplateForm({
       >
         {templates.data.map((t) => (
           <option key={t.id} value={t.id}>
-            {t.name} ({t.cavityCount} cavities{t.builtIn ? ', built-in' : ''})
+            {t.name} ({plural(t.cavityCount, 'cavity', 'cavities')}
+            {t.builtIn ? ', built-in' : ''})
           </option>
         ))}
       </SelectField>
@@ -81,7 +83,8 @@ export function FromTemplateForm({
       </div>
       {create.isSuccess ? (
         <Notice tone="sound" title={`Added connector ${create.data.connector.label}`}>
-          {create.data.connector.cavityCount} cavities from the template, ready on the pin map.
+          {plural(create.data.connector.cavityCount, 'cavity', 'cavities')} from the template, ready
+          on the pin map.
         </Notice>
       ) : null}
       {create.isError && !serverIssues.label ? (

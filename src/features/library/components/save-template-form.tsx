@@ -9,6 +9,7 @@ import { ApiError } from '@/lib/api-client.ts';
 import { blankAsUndefined, errorAt } from '@/lib/form-errors.ts';
 import { useSaveTemplate } from '../api/save-template.ts';
 import type { ConnectorChoice } from '../lib/connector-choice.ts';
+import { plural } from '@/lib/plural.ts';
 
 /**
  * Saves one connector's pinout to the workshop library: cavities, face layout and each pin's
@@ -74,7 +75,8 @@ export function SaveTemplateForm({
       </div>
       {save.isSuccess ? (
         <Notice tone="sound" title={`Saved “${save.data.template.name}” to the library`}>
-          {save.data.template.cavityCount} cavities with their wires and decisions.
+          {plural(save.data.template.cavityCount, 'cavity', 'cavities')} with their wires and
+          decisions.
         </Notice>
       ) : null}
       {save.isError && !serverIssues.name ? (

@@ -9,6 +9,7 @@ import { useTemplate } from '../api/get-template.ts';
 import { useTemplates } from '../api/get-templates.ts';
 import { TemplatePinsTable } from './template-pins-table.tsx';
 import { formatDate } from '@/lib/format-date.ts';
+import { plural } from '@/lib/plural.ts';
 
 function TemplatePins({ template }: { template: PinoutTemplate }) {
   const detail = useTemplate(template.id);
@@ -41,7 +42,8 @@ function TemplateCard({ template, canWrite }: { template: PinoutTemplate; canWri
           <p className="mt-0.5 flex flex-wrap gap-x-3 text-sm text-ink-soft">
             <span>{CONNECTOR_SIDE_LABELS[template.side]}</span>
             <span>
-              {template.cavityCount} cavities, {template.rows} × {template.columns} face
+              {plural(template.cavityCount, 'cavity', 'cavities')}, {template.rows} ×{' '}
+              {template.columns} face
             </span>
             {template.builtIn ? (
               <span className="font-medium text-copper-deep">

@@ -5,6 +5,7 @@ import { Button } from '@/components/ui/button.tsx';
 import type { DispositionCounts } from '../lib/progress.ts';
 import { ConnectorFace } from './connector-face.tsx';
 import { DispositionTally } from './disposition-tally.tsx';
+import { plural } from '@/lib/plural.ts';
 
 /** One connector: its face, its progress, and (for writers) change and delete. */
 export function ConnectorCard({
@@ -42,7 +43,8 @@ export function ConnectorCard({
       <header className="flex flex-wrap items-baseline gap-x-3 gap-y-1">
         <h3 className="font-mono text-lg font-bold">{connector.label}</h3>
         <p className="text-sm text-ink-soft">
-          {CONNECTOR_SIDE_LABELS[connector.side]} · {connector.cavityCount} cavities ·{' '}
+          {CONNECTOR_SIDE_LABELS[connector.side]} ·{' '}
+          {plural(connector.cavityCount, 'cavity', 'cavities')} ·{' '}
           <span className="font-mono">
             {connector.rows} × {connector.columns}
           </span>
@@ -70,7 +72,7 @@ export function ConnectorCard({
           </p>
           <div className="mt-2 flex gap-2">
             <Button size="sm" variant="danger" busy={deleting} onClick={onDelete}>
-              Delete {connector.label} and {pinCount} pins
+              Delete {connector.label} and {plural(pinCount, 'pin')}
             </Button>
             <Button size="sm" variant="quiet" onClick={() => setConfirming(false)}>
               Keep it

@@ -9,6 +9,7 @@ import type { DispositionCounts } from '../lib/progress.ts';
 import { cavityName } from '#shared/domain/pin-names.ts';
 import { DispositionGlyphPath, DispositionLabel } from '@/components/ui/disposition-glyph.tsx';
 import { WireColour } from '@/components/ui/wire-colour.tsx';
+import { plural } from '@/lib/plural.ts';
 
 interface FaceProps {
   connector: Connector;
@@ -118,7 +119,7 @@ function FaceDrawing({ connector, pins, counts, unit, onActivate }: FaceProps) {
           className="block"
         >
           <title id={`${id}-title`}>
-            {`Face of connector ${connector.label}: ${connector.rows} × ${connector.columns}, ${connector.cavityCount} cavities`}
+            {`Face of connector ${connector.label}: ${connector.rows} × ${connector.columns}, ${plural(connector.cavityCount, 'cavity', 'cavities')}`}
           </title>
           <desc
             id={`${id}-desc`}

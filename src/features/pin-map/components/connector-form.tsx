@@ -14,6 +14,7 @@ import { SelectField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { ApiError } from '@/lib/api-client.ts';
 import { errorAt } from '@/lib/form-errors.ts';
+import { plural } from '@/lib/plural.ts';
 
 export interface ConnectorFormValues {
   label: string;
@@ -122,7 +123,7 @@ export function ConnectorForm({
         </Button>
       </div>
       <p className="text-sm text-ink-faint sm:col-span-2 lg:col-span-6">
-        Empty rows and columns take the usual layout for {count || 0} cavities:{' '}
+        Empty rows and columns take the usual layout for {plural(count || 0, 'cavity', 'cavities')}:{' '}
         <span className="font-mono">
           {layout.rows} × {layout.columns}
         </span>

@@ -8,6 +8,7 @@ import {
 import type { Connector } from '#shared/schemas/pin-map.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { isFiltering, NO_FILTER, type PinFilter } from '../lib/filter.ts';
+import { plural } from '@/lib/plural.ts';
 
 const CONTROL = 'rounded-md border border-rule-strong bg-paper-raised px-2 py-1.5 text-sm text-ink';
 
@@ -101,7 +102,7 @@ export function FilterBar({
         </Button>
       ) : null}
       <p role="status" className="pb-1.5 text-sm text-ink-soft">
-        Showing <span className="font-semibold text-ink">{shown}</span> of {total} pins
+        Showing <span className="font-semibold text-ink">{shown}</span> of {plural(total, 'pin')}
       </p>
       <div className="ml-auto">{children}</div>
     </div>

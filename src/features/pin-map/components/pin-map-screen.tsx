@@ -1,6 +1,7 @@
 import { useQueryClient } from '@tanstack/react-query';
 import type { ColumnVisibilityState, RowSelectionState } from '@tanstack/react-table';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { Link } from 'react-router-dom';
 import { flushSync } from 'react-dom';
 import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
 import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
@@ -30,6 +31,7 @@ import { PinGrid, type PinGridHandle } from './pin-grid.tsx';
 import { PinMapMessages } from './pin-map-messages.tsx';
 import { SelectionToolbar } from './selection-toolbar.tsx';
 import { UndecidedList } from './undecided-list.tsx';
+import { plural } from '@/lib/plural.ts';
 
 const EMPTY_COUNTS = countDispositions([]);
 
@@ -37,12 +39,22 @@ const EMPTY_COUNTS = countDispositions([]);
  * The builder's pin map of one conversion: progress, connector faces, the undecided pins and the
  * pin grid. Reviewers and technicians see the same, without the controls that change anything.
  */
+/** Ways in besides a blank connector, which belong to other features: the route hands them in. */
+interface AddingFrom {
+  /** The pinout library's form; it calls `added` with the new connector's id. */
+  renderFromLibrary?: (added: (connectorId: number) => void) => ReactNode;
+  /** Where a pinout CSV is imported. */
+  importHref?: string;
+}
+
 export function PinMapScreen({
   conversionId,
   sizeUnit,
   readOnly,
   feeds,
   focusPinId,
+  renderFromLibrary,
+  importHref,
 }: {
   conversionId: number;
   sizeUnit: SizeUnit;
@@ -51,7 +63,7 @@ export function PinMapScreen({
   feeds: readonly DestinationFeed[];
   /** A pin to bring into view and focus on arrival (a link from a check finding). */
   focusPinId?: number | null;
-}) {
+} & AddingFrom) {
   const connectors = useConnectors(conversionId);
   const pins = usePins(conversionId);
   if (connectors.isPending || pins.isPending) return <Loading what="Loading the pin map" />;
@@ -69,6 +81,8 @@ export function PinMapScreen({
       readOnly={readOnly}
       feeds={feeds}
       focusPinId={focusPinId ?? null}
+      renderFromLibrary={renderFromLibrary}
+      importHref={importHref}
     />
   );
 }
@@ -82,13 +96,15 @@ function PinMap({
   readOnly,
   feeds,
   focusPinId,
+  renderFromLibrary,
+  importHref,
 }: {
   conversionId: number;
   sizeUnit: SizeUnit;
   readOnly: boolean;
   feeds: readonly DestinationFeed[];
   focusPinId: number | null;
-}) {
+} & AddingFrom) {
   // Read here rather than passed down: a render forced with flushSync (to show a pin that just
   // arrived) then sees the freshest cache.
   const connectors = useConnectors(conversionId).data ?? NO_CONNECTORS;
@@ -104,6 +120,7 @@ function PinMap({
   const [rowSelection, setRowSelection] = useState<RowSelectionState>({});
   const [columnVisibility, setColumnVisibility] = useState<ColumnVisibilityState>({});
   const [form, setForm] = useState<{ connectorId: number | null } | null>(null);
+  const [fromLibrary, setFromLibrary] = useState(false);
 
   const rows = useMemo(() => toPinRows(pins, connectors, feeds), [pins, connectors, feeds]);
   const shown = useMemo(() => filterRows(rows, filter), [rows, filter]);
@@ -133,6 +150,31 @@ function PinMap({
     if (focusPinId != null) goToPin(focusPinId);
   }, [focusPinId, goToPin]);
 
+  /** Straight on to mapping a new connector: only its pins, its first cavity focused. */
+  function showNewConnector(connectorId: number) {
+    const fresh = queryClient.getQueryData<Pin[]>(pinMapKeys.pins(conversionId)) ?? [];
+    const first = fresh.find((p) => p.connectorId === connectorId && p.position === 0);
+    flushSync(() => setFilter({ ...NO_FILTER, connectorId }));
+    if (first) gridRef.current?.focusPin(first.id);
+  }
+
+  const connectorAdded = useStableHandler((connectorId: number) => {
+    setFromLibrary(false);
+    // The library wrote the pins: read them, then show the connector.
+    void queryClient
+      .invalidateQueries({ queryKey: pinMapKeys.conversion(conversionId) })
+      .then(() => showNewConnector(connectorId));
+  });
+
+  function openBlank() {
+    setFromLibrary(false);
+    setForm({ connectorId: null });
+  }
+  function openLibrary() {
+    setForm(null);
+    setFromLibrary(true);
+  }
+
   async function saveConnector(values: ConnectorFormValues) {
     if (form?.connectorId) {
       const current = connectors.find((c) => c.id === form.connectorId);
@@ -146,11 +188,7 @@ function PinMap({
     }
     const { connector } = await createConnector.mutateAsync(values);
     setForm(null);
-    // Straight on to mapping the new connector: only its pins, first cavity focused.
-    const fresh = queryClient.getQueryData<Pin[]>(pinMapKeys.pins(conversionId)) ?? [];
-    const first = fresh.find((p) => p.connectorId === connector.id && p.position === 0);
-    flushSync(() => setFilter({ ...NO_FILTER, connectorId: connector.id }));
-    if (first) gridRef.current?.focusPin(first.id);
+    showNewConnector(connector.id);
   }
 
   const editingConnector = form?.connectorId
@@ -196,7 +234,10 @@ function PinMap({
                 <span aria-hidden>↶</span> Undo
                 {editing.nextUndo ? <span className="sr-only"> {editing.nextUndo}</span> : null}
               </Button>
-              <Button variant="primary" onClick={() => setForm({ connectorId: null })}>
+              {renderFromLibrary ? (
+                <Button onClick={openLibrary}>Add from the pinout library</Button>
+              ) : null}
+              <Button variant="primary" onClick={openBlank}>
                 Add connector
               </Button>
             </>
@@ -225,6 +266,61 @@ function PinMap({
         />
       ) : null}
 
+      {fromLibrary && renderFromLibrary && !readOnly ? (
+        <section
+          aria-labelledby="from-library-heading"
+          className="flex flex-col gap-3 rounded-lg border border-rule bg-paper-raised p-5"
+        >
+          <div className="flex items-start justify-between gap-3">
+            <div>
+              <h2 id="from-library-heading" className="text-lg font-semibold">
+                Add a connector from the pinout library
+              </h2>
+              <p className="text-sm text-ink-soft">
+                Its cavities, face and pin details come from the template; change them afterwards as
+                you like.
+              </p>
+            </div>
+            <Button variant="quiet" onClick={() => setFromLibrary(false)}>
+              Cancel
+            </Button>
+          </div>
+          {renderFromLibrary(connectorAdded)}
+        </section>
+      ) : null}
+
+      {connectors.length === 0 && !readOnly && !form && !fromLibrary ? (
+        <section
+          aria-labelledby="first-run-heading"
+          className="flex flex-col gap-3 rounded-lg border-2 border-dashed border-rule-strong bg-paper-raised p-6"
+        >
+          <h2 id="first-run-heading" className="text-lg font-semibold">
+            Add the donor&rsquo;s ECU connectors: from the library, by CSV, or by hand
+          </h2>
+          <p className="max-w-3xl text-ink-soft">
+            Each connector brings its cavities to the grid below, where every pin gets its function,
+            wire and disposition. A connector the workshop has mapped before is in the pinout
+            library; a pinout sheet can be imported as CSV; anything else, add by hand.
+          </p>
+          <div className="flex flex-wrap gap-2">
+            {renderFromLibrary ? (
+              <Button variant="primary" onClick={openLibrary}>
+                From the pinout library
+              </Button>
+            ) : null}
+            {importHref ? (
+              <Link
+                to={importHref}
+                className="rounded-md border border-rule-strong bg-paper px-4 py-2 font-medium hover:bg-paper-sunk"
+              >
+                Import a CSV
+              </Link>
+            ) : null}
+            <Button onClick={openBlank}>By hand</Button>
+          </div>
+        </section>
+      ) : null}
+
       <details open aria-labelledby="faces-heading">
         <summary className="mb-2 cursor-pointer">
           <h2 id="faces-heading" className="inline text-base font-semibold">
@@ -233,10 +329,7 @@ function PinMap({
           <span className="ml-2 text-sm text-ink-faint">faces and progress</span>
         </summary>
         {connectors.length === 0 ? (
-          <p className="text-ink-soft">
-            No connectors yet.{' '}
-            {readOnly ? '' : 'Add the donor ECU’s connectors to start mapping their pins.'}
-          </p>
+          <p className="text-ink-soft">No connectors yet.</p>
         ) : (
           <div className="grid grid-flow-row-dense gap-3 md:grid-cols-2 xl:grid-cols-3">
             {connectors.map((c) => (
@@ -270,60 +363,68 @@ function PinMap({
         )}
       </details>
 
-      <UndecidedList
-        rows={rows}
-        onJump={goToPin}
-        onFilterUndecided={() => setFilter({ ...NO_FILTER, disposition: 'undecided' })}
-      />
+      {connectors.length === 0 ? null : (
+        <>
+          <UndecidedList
+            rows={rows}
+            onJump={goToPin}
+            onFilterUndecided={() => setFilter({ ...NO_FILTER, disposition: 'undecided' })}
+          />
 
-      <section aria-label="Pin grid" className="flex flex-col gap-3">
-        <FilterBar
-          filter={filter}
-          onChange={setFilter}
-          connectors={connectors}
-          shown={shown.length}
-          total={rows.length}
-        >
-          <ColumnMenu
-            visibility={columnVisibility}
-            onChange={setColumnVisibility}
-            unit={sizeUnit}
-          />
-        </FilterBar>
-        <PinMapMessages messages={editing.messages} onDismiss={editing.dismiss} />
-        {!readOnly && selectedIds.length > 0 ? (
-          <SelectionToolbar
-            count={selectedIds.length}
-            hiddenCount={hiddenSelected}
-            destinations={destinations}
-            feeds={feeds}
-            onSetDisposition={(d) =>
-              editing.writeSelection(
-                selectedIds,
-                { disposition: d },
-                `disposition ${DISPOSITION_INFO[d].label.toLowerCase()} on ${selectedIds.length} pins`,
-              )
-            }
-            onSetDestination={(set) =>
-              editing.writeSelection(selectedIds, set, `destination on ${selectedIds.length} pins`)
-            }
-            onClear={() => setRowSelection({})}
-          />
-        ) : null}
-        <PinGrid
-          ref={gridRef}
-          rows={shown}
-          ctx={ctx}
-          readOnly={readOnly}
-          rowSelection={rowSelection}
-          onRowSelectionChange={setRowSelection}
-          columnVisibility={columnVisibility}
-          onColumnVisibilityChange={setColumnVisibility}
-          editing={editing}
-          describedBy="pin-grid-keys"
-        />
-        <KeyHelp readOnly={readOnly} />
-      </section>
+          <section aria-label="Pin grid" className="flex flex-col gap-3">
+            <FilterBar
+              filter={filter}
+              onChange={setFilter}
+              connectors={connectors}
+              shown={shown.length}
+              total={rows.length}
+            >
+              <ColumnMenu
+                visibility={columnVisibility}
+                onChange={setColumnVisibility}
+                unit={sizeUnit}
+              />
+            </FilterBar>
+            <PinMapMessages messages={editing.messages} onDismiss={editing.dismiss} />
+            {!readOnly && selectedIds.length > 0 ? (
+              <SelectionToolbar
+                count={selectedIds.length}
+                hiddenCount={hiddenSelected}
+                destinations={destinations}
+                feeds={feeds}
+                onSetDisposition={(d) =>
+                  editing.writeSelection(
+                    selectedIds,
+                    { disposition: d },
+                    `disposition ${DISPOSITION_INFO[d].label.toLowerCase()} on ${plural(selectedIds.length, 'pin')}`,
+                  )
+                }
+                onSetDestination={(set) =>
+                  editing.writeSelection(
+                    selectedIds,
+                    set,
+                    `destination on ${plural(selectedIds.length, 'pin')}`,
+                  )
+                }
+                onClear={() => setRowSelection({})}
+              />
+            ) : null}
+            <PinGrid
+              ref={gridRef}
+              rows={shown}
+              ctx={ctx}
+              readOnly={readOnly}
+              rowSelection={rowSelection}
+              onRowSelectionChange={setRowSelection}
+              columnVisibility={columnVisibility}
+              onColumnVisibilityChange={setColumnVisibility}
+              editing={editing}
+              describedBy="pin-grid-keys"
+            />
+            <KeyHelp readOnly={readOnly} />
+          </section>
+        </>
+      )}
     </div>
   );
 }

@@ -45,10 +45,14 @@ export function UsersTable({
     },
     {
       id: 'active',
-      accessorFn: (u) => (u.active ? 'Active' : 'Deactivated'),
+      accessorFn: (u) => (!u.active ? 'Deactivated' : u.invited ? 'Invited' : 'Active'),
       header: 'Status',
       cell: ({ row }) =>
-        row.original.active ? (
+        row.original.active && row.original.invited ? (
+          <span className="text-caution" title="Has not set a password from the invitation yet">
+            <span aria-hidden>◌ </span>Invited
+          </span>
+        ) : row.original.active ? (
           <span>
             <span aria-hidden>● </span>Active
           </span>
