@@ -68,6 +68,20 @@ function createRouter(queryClient: QueryClient) {
               ),
             },
             {
+              path: 'wires',
+              lazy: screen(
+                () => import('./routes/conversion/wires.tsx'),
+                (m) => m.ConversionWiresRoute,
+              ),
+            },
+            {
+              path: 'circuits/:kind/:refId',
+              lazy: screen(
+                () => import('./routes/conversion/circuit.tsx'),
+                (m) => m.ConversionCircuitRoute,
+              ),
+            },
+            {
               path: 'checks',
               lazy: screen(
                 () => import('./routes/conversion/checks.tsx'),

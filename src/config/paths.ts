@@ -18,6 +18,20 @@ export const paths = {
     path: '/conversions/:conversionId/feeds',
     getHref: (id: number | string) => `/conversions/${id}/feeds`,
   },
+  conversionWires: {
+    path: '/conversions/:conversionId/wires',
+    getHref: (id: number | string, wireId?: number) =>
+      `/conversions/${id}/wires${wireId ? `?wire=${wireId}` : ''}`,
+  },
+  conversionBox: {
+    path: '/conversions/:conversionId/box',
+    getHref: (id: number | string) => `/conversions/${id}/box`,
+  },
+  conversionCircuit: {
+    path: '/conversions/:conversionId/circuits/:kind/:refId',
+    getHref: (id: number | string, kind: 'feed' | 'pin', refId: number | string) =>
+      `/conversions/${id}/circuits/${kind}/${refId}`,
+  },
   conversionChecks: {
     path: '/conversions/:conversionId/checks',
     getHref: (id: number | string, focus?: string) =>

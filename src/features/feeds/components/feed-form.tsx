@@ -1,7 +1,9 @@
+import { Link } from 'react-router-dom';
 import { useId, useState, type ReactNode } from 'react';
 import { Controller, FormProvider, useFormContext } from 'react-hook-form';
 import type { CalcRequestInput } from '#shared/schemas/calc.schema.ts';
 import { DROP_CLASS_LABELS, DROP_CLASSES, type Feed } from '#shared/schemas/feeds.schema.ts';
+import { paths } from '@/config/paths.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextAreaField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
@@ -154,6 +156,14 @@ export function FeedForm({
             <h2 id={headingId} className="text-lg font-semibold">
               {heading}
             </h2>
+            {feed ? (
+              <Link
+                to={paths.conversionCircuit.getHref(feed.conversionId, 'feed', feed.id)}
+                className="text-sm text-copper-deep underline-offset-2 hover:underline"
+              >
+                Show circuit
+              </Link>
+            ) : null}
             {readOnly ? (
               <span className="text-sm text-ink-faint">
                 Read only: your role cannot change feeds.

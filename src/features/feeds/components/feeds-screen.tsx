@@ -9,6 +9,7 @@ import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { useFeeds } from '../api/get-feeds.ts';
 import { pinChoices } from '../lib/feed-display.ts';
+import { paths } from '@/config/paths.ts';
 import { FeedForm } from './feed-form.tsx';
 import { FeedsTable, type ChecksState } from './feeds-table.tsx';
 
@@ -62,6 +63,10 @@ export function FeedsScreen({
   const pinsById = useMemo(() => new Map(choices.map((p) => [p.id, p])), [choices]);
 
   const hrefOf = useCallback((feedId: number) => `?${FEED_PARAM}=${feedId}`, []);
+  const circuitHrefOf = useCallback(
+    (feedId: number) => paths.conversionCircuit.getHref(conversionId, 'feed', feedId),
+    [conversionId],
+  );
 
   const open = (value: string | null) =>
     setParams(
@@ -125,6 +130,7 @@ export function FeedsScreen({
         checks={checks}
         canEdit={!readOnly}
         hrefOf={hrefOf}
+        circuitHrefOf={circuitHrefOf}
       />
 
       <div ref={formRef} className="grid scroll-mt-4 gap-3">

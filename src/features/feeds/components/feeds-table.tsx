@@ -52,6 +52,7 @@ export function FeedsTable({
   checks,
   canEdit,
   hrefOf,
+  circuitHrefOf,
 }: {
   feeds: Feed[];
   pins: Map<number, PinChoice>;
@@ -59,6 +60,8 @@ export function FeedsTable({
   checks: ChecksState;
   canEdit: boolean;
   hrefOf: (feedId: number) => string;
+  /** Where "Show circuit" leads for a feed. */
+  circuitHrefOf: (feedId: number) => string;
 }) {
   const columns = useMemo<SortableColumn<Feed>[]>(() => {
     const byFeed = checks.status === 'ready' ? findingsByFeed(checks.findings) : new Map();
@@ -74,6 +77,12 @@ export function FeedsTable({
               {row.original.name}
             </Link>
             <div className="mt-0.5 text-sm text-ink-soft">{sourceLabel(row.original, feeds)}</div>
+            <Link
+              to={circuitHrefOf(row.original.id)}
+              className="text-xs text-copper-deep underline-offset-2 hover:underline"
+            >
+              Show circuit<span className="sr-only"> of {row.original.name}</span>
+            </Link>
             <div
               className="text-xs text-ink-faint"
               title={DROP_CLASS_LABELS[row.original.dropClass]}
@@ -210,7 +219,7 @@ export function FeedsTable({
       });
     }
     return cols;
-  }, [feeds, pins, sizeUnit, checks, canEdit, hrefOf]);
+  }, [feeds, pins, sizeUnit, checks, canEdit, hrefOf, circuitHrefOf]);
 
   return (
     <SortableTable

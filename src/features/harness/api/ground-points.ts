@@ -1,0 +1,28 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { CreateGroundPointRequest, GroundPoint } from '#shared/schemas/harness.schema.ts';
+import { api } from '@/lib/api-client.ts';
+import { harnessKeys } from './keys.ts';
+
+export const getGroundPoints = (conversionId: number) =>
+  api.get<{ groundPoints: GroundPoint[] }>(`/api/conversions/${conversionId}/ground-points`);
+
+export const getGroundPointsQueryOptions = (conversionId: number) =>
+  queryOptions({
+    queryKey: harnessKeys.groundPoints(conversionId),
+    queryFn: async () => (await getGroundPoints(conversionId)).groundPoints,
+  });
+
+export const useGroundPoints = (conversionId: number) =>
+  useQuery(getGroundPointsQueryOptions(conversionId));
+
+export const createGroundPoint = (conversionId: number, input: CreateGroundPointRequest) =>
+  api.post<{ groundPoint: GroundPoint }>(`/api/conversions/${conversionId}/ground-points`, input);
+
+export function useCreateGroundPoint(conversionId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CreateGroundPointRequest) => createGroundPoint(conversionId, input),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: harnessKeys.groundPoints(conversionId) }),
+  });
+}

@@ -1,0 +1,127 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
+import {
+  CreateGroundPointRequest,
+  CreateSpliceRequest,
+  GROUND_LOCATIONS,
+  GROUND_LOCATION_LABELS,
+} from '#shared/schemas/harness.schema.ts';
+import { Button } from '@/components/ui/button.tsx';
+import { SelectField, TextField } from '@/components/ui/field.tsx';
+import { ApiError } from '@/lib/api-client.ts';
+import { errorAt } from '@/lib/form-errors.ts';
+
+/** An empty number field means "not recorded". */
+const blankAsNull = (value: unknown) =>
+  value == null || String(value).trim() === '' ? null : Number(String(value).replace(',', '.'));
+
+interface SmallFormProps<T> {
+  busy: boolean;
+  error: Error | null;
+  onSubmit: (values: T) => void;
+  onCancel: () => void;
+}
+
+const FORM = 'grid gap-3 rounded-lg border border-rule bg-paper-raised p-4 sm:grid-cols-4';
+
+function Actions({ busy, what, onCancel }: { busy: boolean; what: string; onCancel: () => void }) {
+  return (
+    <div className="flex items-end gap-2">
+      <Button type="submit" variant="primary" busy={busy}>
+        {what}
+      </Button>
+      <Button variant="quiet" onClick={onCancel}>
+        Cancel
+      </Button>
+    </div>
+  );
+}
+
+/** A new splice: its label is given the next "S-…" when left empty. */
+export function SpliceForm({
+  busy,
+  error,
+  onSubmit,
+  onCancel,
+}: SmallFormProps<CreateSpliceRequest>) {
+  const { register, handleSubmit, formState } = useForm({
+    resolver: zodResolver(CreateSpliceRequest),
+    defaultValues: { label: undefined, sealed: true, branch: '', distanceMm: null },
+  });
+  const server = error instanceof ApiError ? error.fieldIssues() : {};
+  const errorOf = (path: string) => errorAt(formState.errors, path) ?? server[path];
+  const submit = handleSubmit(onSubmit);
+  return (
+    <form aria-label="Add a splice" onSubmit={(e) => void submit(e)} className={FORM}>
+      <h2 className="font-semibold sm:col-span-4">Add a splice</h2>
+      <TextField
+        label="Label"
+        placeholder="next S-…"
+        {...register('label', { setValueAs: (v: string) => (v.trim() ? v : undefined) })}
+        error={errorOf('label')}
+      />
+      <TextField label="Branch" {...register('branch')} error={errorOf('branch')} />
+      <TextField
+        label="From the datum (mm)"
+        inputMode="decimal"
+        {...register('distanceMm', { setValueAs: blankAsNull })}
+        error={errorOf('distanceMm')}
+      />
+      <label className="flex items-center gap-2 self-end pb-2 text-sm">
+        <input type="checkbox" {...register('sealed')} /> Sealed (heat-shrink with glue)
+      </label>
+      {error && !Object.keys(server).length ? (
+        <p role="alert" className="text-sm text-fault sm:col-span-4">
+          {error.message}
+        </p>
+      ) : null}
+      <Actions busy={busy} what="Add splice" onCancel={onCancel} />
+    </form>
+  );
+}
+
+/** A new ground point: where it is and the strap's size; the label defaults to the next "G-…". */
+export function GroundPointForm({
+  busy,
+  error,
+  onSubmit,
+  onCancel,
+}: SmallFormProps<CreateGroundPointRequest>) {
+  const { register, handleSubmit, formState } = useForm({
+    resolver: zodResolver(CreateGroundPointRequest),
+    defaultValues: { label: undefined, location: 'chassis' as const, strapSizeMm2: null },
+  });
+  const server = error instanceof ApiError ? error.fieldIssues() : {};
+  const errorOf = (path: string) => errorAt(formState.errors, path) ?? server[path];
+  const submit = handleSubmit(onSubmit);
+  return (
+    <form aria-label="Add a ground point" onSubmit={(e) => void submit(e)} className={FORM}>
+      <h2 className="font-semibold sm:col-span-4">Add a ground point</h2>
+      <TextField
+        label="Label"
+        placeholder="next G-…"
+        {...register('label', { setValueAs: (v: string) => (v.trim() ? v : undefined) })}
+        error={errorOf('label')}
+      />
+      <SelectField label="Location" {...register('location')} error={errorOf('location')}>
+        {GROUND_LOCATIONS.map((l) => (
+          <option key={l} value={l}>
+            {GROUND_LOCATION_LABELS[l]}
+          </option>
+        ))}
+      </SelectField>
+      <TextField
+        label="Strap size (mm²)"
+        inputMode="decimal"
+        {...register('strapSizeMm2', { setValueAs: blankAsNull })}
+        error={errorOf('strapSizeMm2')}
+      />
+      {error && !Object.keys(server).length ? (
+        <p role="alert" className="text-sm text-fault sm:col-span-4">
+          {error.message}
+        </p>
+      ) : null}
+      <Actions busy={busy} what="Add ground point" onCancel={onCancel} />
+    </form>
+  );
+}

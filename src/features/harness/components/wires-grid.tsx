@@ -1,0 +1,262 @@
+import { createColumnHelper, tableFeatures, useTable } from '@tanstack/react-table';
+import { useEffect, useRef, useState, type KeyboardEvent } from 'react';
+import { Link } from 'react-router-dom';
+import type { Wire, WireEnd } from '#shared/schemas/harness.schema.ts';
+import type { EndOption } from '../lib/end-options.ts';
+import {
+  WIRE_COLUMNS,
+  WIRE_COLUMN_HEADERS,
+  WIRE_COLUMN_WIDTHS,
+  cellText,
+  type WireColumnId,
+} from '../lib/wire-cells.ts';
+import { CellEditor, CellValue, type Leave } from './wire-cell.tsx';
+
+const features = tableFeatures({});
+const helper = createColumnHelper<typeof features, Wire>();
+const columns = helper.columns(
+  WIRE_COLUMNS.map((id) =>
+    helper.accessor((w) => cellText(w, id), { id, header: WIRE_COLUMN_HEADERS[id] }),
+  ),
+);
+const getRowId = (w: Wire) => String(w.id);
+
+interface WiresGridProps {
+  wires: Wire[];
+  options: readonly EndOption[];
+  byKey: ReadonlyMap<string, EndOption>;
+  readOnly: boolean;
+  onText: (wire: Wire, col: WireColumnId, text: string) => void;
+  onEnd: (wire: Wire, col: 'endA' | 'endB', end: WireEnd) => void;
+  onDelete: (wire: Wire) => void;
+  circuitHref: (wire: Wire) => string | null;
+  /** The row to put the cursor on (a wire just added). */
+  focusWireId: number | null;
+}
+
+interface Cursor {
+  row: number;
+  col: number;
+}
+
+/**
+ * The wire list as a grid: arrows move, Enter or typing edits, Enter saves and goes down, Tab
+ * saves and goes right, Escape leaves the cell as it was.
+ */
+export function WiresGrid(props: WiresGridProps) {
+  const { wires, options, byKey, readOnly, onText, onEnd, onDelete, circuitHref } = props;
+  const table = useTable({ features, columns, data: wires, getRowId });
+  const rows = table.getRowModel().rows.map((r) => r.original);
+  const [cursor, setCursor] = useState<Cursor>({ row: 0, col: 0 });
+  const [editing, setEditing] = useState<{ seed: string | null } | null>(null);
+  const gridRef = useRef<HTMLTableElement>(null);
+  const wantFocus = useRef(false);
+
+  // A wire just added: the cursor goes to its end A (adjusted while rendering, not in an effect).
+  const focusWireId = props.focusWireId;
+  const [seenFocus, setSeenFocus] = useState<number | null>(null);
+  if (focusWireId !== seenFocus) {
+    const row = rows.findIndex((w) => w.id === focusWireId);
+    if (row >= 0 || focusWireId === null) {
+      setSeenFocus(focusWireId);
+      if (row >= 0) setCursor({ row, col: WIRE_COLUMNS.indexOf('endA') });
+    }
+  }
+
+  useEffect(() => {
+    if (editing || !wantFocus.current) return;
+    wantFocus.current = false;
+    gridRef.current
+      ?.querySelector<HTMLElement>(`[data-cell="${cursor.row}:${cursor.col}"]`)
+      ?.focus();
+  }, [cursor, editing]);
+
+  // The wire just added is scrolled into view; focus stays where the person is typing.
+  useEffect(() => {
+    if (focusWireId === null) return;
+    gridRef.current
+      ?.querySelector<HTMLElement>(`[data-wire="${focusWireId}"]`)
+      ?.scrollIntoView({ block: 'nearest' });
+  }, [focusWireId]);
+
+  const last = { row: rows.length - 1, col: WIRE_COLUMNS.length - 1 };
+  const move = (row: number, col: number) => {
+    wantFocus.current = true;
+    setCursor({
+      row: Math.max(0, Math.min(last.row, row)),
+      col: Math.max(0, Math.min(last.col, col)),
+    });
+  };
+  const leave = (how: Leave) => {
+    setEditing(null);
+    wantFocus.current = true;
+    if (how === 'down') move(cursor.row + 1, cursor.col);
+    else if (how === 'right') move(cursor.row, cursor.col + 1);
+    else if (how === 'left') move(cursor.row, cursor.col - 1);
+    else move(cursor.row, cursor.col);
+  };
+
+  const onKeyDown = (e: KeyboardEvent<HTMLTableElement>) => {
+    if (editing || e.target instanceof HTMLInputElement || e.target instanceof HTMLSelectElement)
+      return;
+    if (!(e.target as HTMLElement).dataset.cell) return;
+    const { row, col } = cursor;
+    const keys: Record<string, () => void> = {
+      ArrowDown: () => move(row + 1, col),
+      ArrowUp: () => move(row - 1, col),
+      ArrowRight: () => move(row, col + 1),
+      ArrowLeft: () => move(row, col - 1),
+      Home: () => move(e.ctrlKey ? 0 : row, 0),
+      End: () => move(e.ctrlKey ? last.row : row, last.col),
+      PageDown: () => move(row + 10, col),
+      PageUp: () => move(row - 10, col),
+    };
+    const nav = keys[e.key];
+    if (nav) {
+      e.preventDefault();
+      nav();
+      return;
+    }
+    if (readOnly) return;
+    const wire = rows[row];
+    const colId = WIRE_COLUMNS[col];
+    if (!wire || !colId) return;
+    if (e.key === 'Enter' || e.key === 'F2') {
+      e.preventDefault();
+      setEditing({ seed: null });
+    } else if (
+      (e.key === 'Delete' || e.key === 'Backspace') &&
+      !['label', 'zone', 'endA', 'endB'].includes(colId)
+    ) {
+      e.preventDefault();
+      onText(wire, colId, '');
+    } else if (e.key.length === 1 && !e.ctrlKey && !e.metaKey && !e.altKey && colId !== 'zone') {
+      e.preventDefault();
+      setEditing({ seed: e.key });
+    }
+  };
+
+  return (
+    <div className="overflow-x-auto rounded-lg border border-rule bg-paper-raised">
+      <table
+        ref={gridRef}
+        role="grid"
+        aria-label="Wires of this conversion"
+        aria-rowcount={rows.length + 1}
+        onKeyDown={onKeyDown}
+        className="w-full border-collapse text-sm"
+      >
+        <thead className="border-b border-rule bg-paper-sunk/60">
+          <tr>
+            {WIRE_COLUMNS.map((id) => (
+              <th
+                key={id}
+                scope="col"
+                style={{ minWidth: WIRE_COLUMN_WIDTHS[id] }}
+                className={`px-2 py-2 text-left font-semibold ${
+                  id === 'label' ? 'sticky left-0 z-10 bg-paper-sunk' : ''
+                }`}
+              >
+                {WIRE_COLUMN_HEADERS[id]}
+              </th>
+            ))}
+            <th scope="col" className="px-2 py-2 text-left font-semibold">
+              <span className="sr-only">Actions</span>
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map((wire, r) => (
+            <tr key={wire.id} data-wire={wire.id} className="border-b border-rule/70 last:border-0">
+              {WIRE_COLUMNS.map((colId, c) => {
+                const here = cursor.row === r && cursor.col === c;
+                const open = here && editing !== null;
+                return (
+                  <td
+                    key={colId}
+                    data-cell={`${r}:${c}`}
+                    tabIndex={here && !open ? 0 : -1}
+                    aria-selected={here}
+                    onClick={() => setCursor({ row: r, col: c })}
+                    onDoubleClick={() => {
+                      if (readOnly) return;
+                      setCursor({ row: r, col: c });
+                      setEditing({ seed: null });
+                    }}
+                    className={`h-10 px-2 py-1 align-middle ${
+                      colId === 'label' ? 'sticky left-0 z-10 bg-paper-raised' : ''
+                    } ${here ? 'outline outline-2 -outline-offset-2 outline-focus' : ''}`}
+                  >
+                    {open ? (
+                      <CellEditor
+                        wire={wire}
+                        col={colId}
+                        seed={editing.seed}
+                        options={options}
+                        onText={(text, how) => {
+                          if (text !== cellText(wire, colId)) onText(wire, colId, text);
+                          leave(how);
+                        }}
+                        onEnd={(end, how) => {
+                          onEnd(wire, colId as 'endA' | 'endB', end);
+                          leave(how);
+                        }}
+                        onCancel={() => leave('stay')}
+                      />
+                    ) : (
+                      <CellValue wire={wire} col={colId} byKey={byKey} />
+                    )}
+                  </td>
+                );
+              })}
+              <td className="whitespace-nowrap px-2 py-1">
+                <RowActions
+                  wire={wire}
+                  href={circuitHref(wire)}
+                  readOnly={readOnly}
+                  onDelete={onDelete}
+                />
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function RowActions({
+  wire,
+  href,
+  readOnly,
+  onDelete,
+}: {
+  wire: Wire;
+  href: string | null;
+  readOnly: boolean;
+  onDelete: (wire: Wire) => void;
+}) {
+  return (
+    <span className="flex items-center gap-2">
+      {href ? (
+        <Link
+          to={href}
+          aria-label={`Show circuit of ${wire.label}`}
+          className="text-copper-deep underline-offset-2 hover:underline"
+        >
+          Show circuit
+        </Link>
+      ) : null}
+      {readOnly ? null : (
+        <button
+          type="button"
+          aria-label={`Delete ${wire.label}`}
+          onClick={() => onDelete(wire)}
+          className="rounded px-1.5 text-fault hover:bg-fault-wash"
+        >
+          Delete
+        </button>
+      )}
+    </span>
+  );
+}

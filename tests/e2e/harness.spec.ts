@@ -1,0 +1,135 @@
+import { mkdirSync } from 'node:fs';
+import { expect, test, type Locator, type Page } from '@playwright/test';
+import { DEMO, signIn } from './support/session.ts';
+
+const SCREENS = 'test-results/screens';
+
+async function openSection(page: Page, section: 'Wires' | 'Box' | 'Feeds' | 'Pin map') {
+  await page.getByRole('link', { name: 'Conversions', exact: true }).click();
+  await page.getByRole('link', { name: 'Ashby yard truck' }).click();
+  await expect(page.getByRole('heading', { name: 'Ashby yard truck', level: 1 })).toBeVisible();
+  await page
+    .getByRole('navigation', { name: 'Conversion sections' })
+    .getByRole('link', { name: section, exact: true })
+    .click();
+}
+
+const grid = (page: Page) => page.getByRole('grid', { name: 'Wires of this conversion' });
+const wireRow = (page: Page, label: string) =>
+  grid(page)
+    .getByRole('row')
+    .filter({ has: page.getByText(label, { exact: true }) });
+
+/** Picks an end the way a person does: types part of its name and takes the highlighted choice. */
+async function pickEnd(box: Locator, typed: string, expected: RegExp) {
+  await box.click();
+  await box.pressSequentially(typed);
+  const listbox = box.page().getByRole('listbox');
+  await expect(listbox.getByRole('option', { selected: true })).toHaveText(expected);
+  await box.press('Enter');
+}
+
+/** Adds a wire between two places from the "Add a wire" form and answers its new label. */
+async function addWire(page: Page, a: [string, RegExp], b: [string, RegExp], colour: string) {
+  const form = page.getByRole('form', { name: 'Add a wire' });
+  await pickEnd(form.getByRole('combobox', { name: 'End A' }), ...a);
+  await pickEnd(form.getByRole('combobox', { name: 'End B' }), ...b);
+  await form.getByLabel('Colour').fill(colour);
+  return saveWire(page);
+}
+
+/** Saves the wire in the form; the form empties for the next one and the message names it. */
+async function saveWire(page: Page) {
+  const form = page.getByRole('form', { name: 'Add a wire' });
+  await form.getByRole('button', { name: 'Add wire' }).click();
+  await expect(form.getByRole('combobox', { name: 'End A' })).toHaveValue('');
+  const added = page.getByRole('status').filter({ hasText: /Added W-\d+/ });
+  const label = /W-\d+/.exec((await added.textContent()) ?? '')?.[0] ?? '';
+  await expect(wireRow(page, label)).toBeVisible();
+  return label;
+}
+
+test('a builder wires the cooling fan circuit from the type-ahead and reads its drawing', async ({
+  page,
+}) => {
+  mkdirSync(SCREENS, { recursive: true });
+  page.on('dialog', (d) => void d.accept());
+  await signIn(page, DEMO.builder);
+  await openSection(page, 'Wires');
+  await expect(wireRow(page, 'W-012')).toContainText('F4 fuse · out');
+  await page.screenshot({ path: `${SCREENS}/wires-grid.png`, fullPage: true });
+
+  // Take the demo's fan wires out, so the circuit is built fresh from the screen.
+  for (const label of ['W-012', 'W-014', 'W-015', 'W-037']) {
+    await grid(page)
+      .getByRole('button', { name: `Delete ${label}` })
+      .click();
+    await expect(wireRow(page, label)).toHaveCount(0);
+  }
+
+  // A new ground point for the fan, on the chassis beside the radiator.
+  await page.getByRole('button', { name: 'Add a ground point' }).click();
+  const groundForm = page.getByRole('form', { name: 'Add a ground point' });
+  await groundForm.getByLabel('Location').selectOption('chassis');
+  await groundForm.getByLabel('Strap size (mm²)').fill('6');
+  await page.screenshot({ path: `${SCREENS}/wires-ground-form.png`, fullPage: true });
+  await groundForm.getByRole('button', { name: 'Add ground point' }).click();
+  await expect(
+    page.getByRole('status').filter({ hasText: 'Added ground point G-5' }),
+  ).toBeVisible();
+
+  await page.getByRole('button', { name: 'Add a wire' }).click();
+  const w1 = await addWire(page, ['F4 out', /^F4 fuse · out/], ['R4 30', /^R4 relay · 30/], 'RD');
+  const w2 = await addWire(page, ['R4 87', /^R4 relay · 87(?!a)/], ['M1-1', /^M1-1/], 'RD/BU');
+  const w3 = await addWire(page, ['M1-2', /^M1-2/], ['G-5', /^G-5 chassis/], 'BK');
+  const form = page.getByRole('form', { name: 'Add a wire' });
+  await form.getByRole('combobox', { name: 'End A' }).click();
+  await form.getByRole('combobox', { name: 'End A' }).pressSequentially('R4 85');
+  await page.screenshot({ path: `${SCREENS}/wires-type-ahead.png`, fullPage: true });
+  await form.getByRole('combobox', { name: 'End A' }).press('Enter');
+  await pickEnd(form.getByRole('combobox', { name: 'End B' }), 'E2-10', /^E2-10 Cooling fan relay/);
+  const w4 = await saveWire(page);
+
+  await expect(wireRow(page, w1)).toContainText('R4 relay · 30');
+  await expect(wireRow(page, w3)).toContainText('G-5 chassis');
+  await expect(wireRow(page, w4)).toContainText('E2-10 Cooling fan relay coil control');
+
+  // Keyboard: the new wire's length typed into its cell, Enter saves.
+  const lengthCell = wireRow(page, w2).getByRole('gridcell').nth(3);
+  await lengthCell.click();
+  await page.keyboard.type('1.4');
+  await page.keyboard.press('Enter');
+  await expect(page.getByRole('status').filter({ hasText: `Saved ${w2}` })).toBeVisible();
+  await expect(lengthCell).toHaveText('1.4');
+
+  // Someone else changes the wire meanwhile: the grid's next edit is refused and shows their row.
+  const wires = (await (await page.request.get('/api/conversions/2/wires')).json()) as {
+    wires: Array<{ id: number; label: string; version: number }>;
+  };
+  const other = wires.wires.find((w) => w.label === w2)!;
+  const patched = await page.request.patch(`/api/wires/${other.id}`, {
+    data: { notes: 'Routed behind the radiator', version: other.version },
+  });
+  expect(patched.ok()).toBe(true);
+  const notesCell = wireRow(page, w2).getByRole('gridcell').nth(7);
+  await notesCell.click();
+  await page.keyboard.type('Along the top rail');
+  await page.keyboard.press('Enter');
+  await expect(
+    page.getByRole('status').filter({ hasText: `${w2} was changed by someone else` }),
+  ).toBeVisible();
+  await expect(notesCell).toHaveText('Routed behind the radiator');
+  await page.screenshot({ path: `${SCREENS}/wires-conflict.png`, fullPage: true });
+
+  // The fan feed's drawing, opened from the feeds table.
+  await openSection(page, 'Feeds');
+  await page.getByRole('link', { name: 'Show circuit of Cooling fan' }).click();
+  await expect(page.getByRole('heading', { name: 'Feed “Cooling fan”' })).toBeVisible();
+  const named = page.getByRole('list', { name: 'Named in the drawing' });
+  await expect(named).toContainText('30 A');
+  await expect(named).toContainText('30→87');
+  for (const label of [w1, w2, w3, w4]) await expect(named).toContainText(label);
+  await expect(named).toContainText('G-5');
+  await expect(page.getByRole('img', { name: /Feed “Cooling fan”/ })).toBeVisible();
+  await page.screenshot({ path: `${SCREENS}/circuit-fan.png`, fullPage: true });
+});
