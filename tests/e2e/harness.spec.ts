@@ -133,3 +133,42 @@ test('a builder wires the cooling fan circuit from the type-ahead and reads its 
   await expect(page.getByRole('img', { name: /Feed “Cooling fan”/ })).toBeVisible();
   await page.screenshot({ path: `${SCREENS}/circuit-fan.png`, fullPage: true });
 });
+
+test('a wire list CSV is checked first, row by row, and applied only when clean', async ({
+  page,
+}) => {
+  mkdirSync(SCREENS, { recursive: true });
+  await signIn(page, DEMO.builder);
+  await openSection(page, 'Wires');
+  await expect(wireRow(page, 'W-001')).toBeVisible();
+  await page.getByRole('button', { name: 'Import CSV' }).click();
+  const panel = page.getByRole('region', { name: 'Import wires from CSV' });
+  const header = 'label,colour,size_mm2,length_m,zone,end_a,end_b,notes';
+  // Row 2 names a relay terminal the box does not have (R4 has no terminal 99).
+  const bad = `${header}\nW-090,BK,1,0.5,engine_bay,M1-2,G-2,\nW-091,BK,1,0.5,engine_bay,R4:99,G-2,\n`;
+  await panel.getByLabel('CSV file').setInputFiles({
+    name: 'wires.csv',
+    mimeType: 'text/csv',
+    buffer: Buffer.from(bad),
+  });
+  const problems = panel.getByRole('table', { name: 'Problems in the file' });
+  await expect(problems).toBeVisible();
+  await expect(problems.getByRole('row').nth(1)).toContainText('end_a');
+  await expect(panel.getByRole('button', { name: 'Apply the file' })).toBeDisabled();
+  await page.screenshot({ path: `${SCREENS}/wires-import-problems.png`, fullPage: true });
+
+  const good = `${header}\nW-090,BK,1,0.5,engine_bay,M1-2,G-2,Second fan ground\n`;
+  await panel.getByLabel('CSV file').setInputFiles({
+    name: 'wires.csv',
+    mimeType: 'text/csv',
+    buffer: Buffer.from(good),
+  });
+  await expect(panel.getByText('1 row(s) read without a problem')).toBeVisible();
+  await panel.getByRole('button', { name: 'Apply the file' }).click();
+  await expect(panel.getByText('Imported 1 wire(s)')).toBeVisible();
+  await expect(wireRow(page, 'W-090')).toContainText('G-2 chassis');
+  await expect(page.getByRole('link', { name: 'Export CSV' })).toHaveAttribute(
+    'href',
+    '/api/conversions/2/wires.csv',
+  );
+});
