@@ -106,11 +106,20 @@ export interface FieldChange {
   after: unknown;
 }
 
+/** A pin named in the differences: its cavity name, what it does and the connector it is on. */
+export interface ChangedPinRef {
+  name: string;
+  pinId: number;
+  function: string;
+  /** "E1, ECU side" */
+  connector: string;
+}
+
 export interface RevisionChanges {
   pins: {
-    added: Array<{ name: string; pinId: number }>;
-    removed: Array<{ name: string; pinId: number }>;
-    changed: Array<{ name: string; pinId: number; fields: FieldChange[] }>;
+    added: ChangedPinRef[];
+    removed: ChangedPinRef[];
+    changed: Array<ChangedPinRef & { fields: FieldChange[] }>;
   };
   feeds: {
     added: Array<{ name: string; feedId: number }>;

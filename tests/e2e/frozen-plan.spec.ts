@@ -45,3 +45,79 @@ test('a first revision shows the plan as frozen, not the draft edited since', as
   await expect(feed.getByText('E5-1')).toBeVisible();
   await page.screenshot({ path: 'test-results/screens/frozen-plan-feeds.png', fullPage: true });
 });
+
+test('differences name each pin with its function and connector, grouped added, removed and changed', async ({
+  page,
+}) => {
+  await signIn(page, DEMO.builder);
+  const plan = await createSmallPlan(page.request, 'Bolitho cattle truck');
+  expect(
+    (
+      await page.request.post(`/api/conversions/${plan.conversionId}/revisions`, { data: {} })
+    ).status(),
+  ).toBe(201);
+  await signOut(page);
+  await signIn(page, DEMO.reviewer);
+  expect(
+    (
+      await page.request.post(`/api/conversions/${plan.conversionId}/revisions/1/sign-off`, {
+        data: {},
+      })
+    ).status(),
+  ).toBe(200);
+  await signOut(page);
+
+  await signIn(page, DEMO.builder);
+  const pins = (await (await page.request.get(`/api/conversions/${plan.conversionId}/pins`)).json())
+    .pins as Array<{ id: number; cavity: string; version: number }>;
+  const signal = pins.find((p) => p.cavity === '2')!;
+  expect(
+    (
+      await page.request.patch(`/api/pins/${signal.id}`, {
+        data: { function: 'Oil pressure signal', version: signal.version },
+      })
+    ).status(),
+  ).toBe(200);
+  expect(
+    (
+      await page.request.post(`/api/conversions/${plan.conversionId}/connectors`, {
+        data: { label: 'V9', side: 'vehicle', cavityCount: 2 },
+      })
+    ).status(),
+  ).toBe(201);
+  // The new cavities must be decided before the plan can go to review.
+  const fresh = (
+    await (await page.request.get(`/api/conversions/${plan.conversionId}/pins`)).json()
+  ).pins as Array<{ id: number; connectorId: number; cavity: string; version: number }>;
+  const added = fresh.filter((p) => !pins.some((q) => q.id === p.id));
+  expect(
+    (
+      await page.request.post(`/api/conversions/${plan.conversionId}/pins/batch`, {
+        data: {
+          changes: added.map((p) => ({
+            id: p.id,
+            version: p.version,
+            set: { disposition: 'empty', function: p.cavity === '1' ? 'Tachometer input' : '' },
+          })),
+        },
+      })
+    ).status(),
+  ).toBe(200);
+  await page.goto(`/conversions/${plan.conversionId}/revisions`);
+  await page.getByRole('button', { name: 'Submit for review' }).click();
+  await expect(page.getByRole('heading', { name: /Revision 2/ })).toBeVisible();
+
+  const changes = page.getByRole('region', { name: 'Changes since revision 1' });
+  const addedList = changes.getByRole('region', { name: /Added/ });
+  await expect(addedList.getByRole('heading', { name: 'Added (3)' })).toBeVisible();
+  await expect(addedList.getByText('Connector V9', { exact: true })).toBeVisible();
+  await expect(addedList.getByRole('listitem').filter({ hasText: 'V9-1' })).toContainText(
+    'Tachometer input · connector V9, vehicle side',
+  );
+  await expect(changes.getByRole('region', { name: /Removed/ })).toHaveCount(0);
+  const changed = changes.getByRole('region', { name: /Changed/ });
+  const row = changed.getByRole('row', { name: /E5-2/ });
+  await expect(row).toContainText('Oil pressure signal · connector E5, ECU side');
+  await expect(row.getByRole('cell', { name: 'Coolant temperature signal' })).toBeVisible();
+  await page.screenshot({ path: 'test-results/screens/revision-differences.png', fullPage: true });
+});

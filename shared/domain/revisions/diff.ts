@@ -66,6 +66,27 @@ function comparableFeed(f: SnapshotFeed) {
   };
 }
 
+const SIDE_WORDS: Record<string, string> = {
+  ecu: 'ECU side',
+  engine: 'engine side',
+  vehicle: 'vehicle side',
+  other: 'other',
+};
+
+/** A pin as the differences name it: cavity name, function and connector. */
+function pinRef(s: ConversionSnapshot) {
+  const connectors = new Map(s.connectors.map((c) => [c.id, c]));
+  return (name: string, pin: SnapshotPin) => {
+    const c = connectors.get(pin.connectorId);
+    return {
+      name,
+      pinId: pin.id,
+      function: pin.function,
+      connector: c ? `${c.label}, ${SIDE_WORDS[c.side] ?? c.side}` : '?',
+    };
+  };
+}
+
 export function diffSnapshots(
   before: ConversionSnapshot,
   after: ConversionSnapshot,
@@ -74,18 +95,19 @@ export function diffSnapshots(
   const newPins = pinsByName(after);
   const describeOld = describePinLinks(before);
   const describeNew = describePinLinks(after);
+  const oldRef = pinRef(before);
+  const newRef = pinRef(after);
   const pins: RevisionChanges['pins'] = { added: [], removed: [], changed: [] };
   for (const [name, pin] of newPins) {
     const old = oldPins.get(name);
     if (!old) {
-      pins.added.push({ name, pinId: pin.id });
+      pins.added.push(newRef(name, pin));
       continue;
     }
     const fields = fieldChanges(describeOld(old), describeNew(pin), PIN_FIELDS);
-    if (fields.length) pins.changed.push({ name, pinId: pin.id, fields });
+    if (fields.length) pins.changed.push({ ...newRef(name, pin), fields });
   }
-  for (const [name, pin] of oldPins)
-    if (!newPins.has(name)) pins.removed.push({ name, pinId: pin.id });
+  for (const [name, pin] of oldPins) if (!newPins.has(name)) pins.removed.push(oldRef(name, pin));
 
   const oldFeeds = new Map(before.feeds.map((f) => [f.id, f]));
   const newFeeds = new Map(after.feeds.map((f) => [f.id, f]));

@@ -50,11 +50,18 @@ describe('differences between revisions', () => {
       {
         name: 'E1-2',
         pinId: 2,
+        function: 'B',
+        connector: expect.stringMatching(/^E1, /),
         fields: [{ field: 'disposition', before: 'keep', after: 'depin' }],
       },
     ]);
-    expect(d.pins.removed).toEqual([{ name: 'E1-3', pinId: 3 }]);
-    expect(d.pins.added).toEqual([{ name: 'E1-9', pinId: 99 }]);
+    // Each pin is named with what it does and where it is, not by its cavity alone.
+    expect(d.pins.removed).toEqual([
+      { name: 'E1-3', pinId: 3, function: 'C', connector: expect.stringMatching(/^E1, /) },
+    ]);
+    expect(d.pins.added).toEqual([
+      { name: 'E1-9', pinId: 99, function: 'New', connector: expect.stringMatching(/^E1, /) },
+    ]);
     expect(countChanges(d)).toBe(3);
   });
 

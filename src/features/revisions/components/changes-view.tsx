@@ -8,7 +8,11 @@ import {
   type FeedWire,
 } from '#shared/schemas/feeds.schema.ts';
 import type { PinFields } from '#shared/schemas/pin-map.schema.ts';
-import type { FieldChange, RevisionChanges } from '#shared/schemas/revisions.schema.ts';
+import type {
+  ChangedPinRef,
+  FieldChange,
+  RevisionChanges,
+} from '#shared/schemas/revisions.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 
 /** Pin fields by the pin field table; a feed's, a connector's and a conversion's by name. */
@@ -49,12 +53,29 @@ function show(field: string, value: unknown, unit: SizeUnit): string {
   return String(value);
 }
 
+interface Subject {
+  name: string;
+  /** What the thing is, beside its name: a pin's function and connector. */
+  detail?: string;
+}
+
+function SubjectCell({ subject }: { subject: Subject }) {
+  return (
+    <>
+      <span className="font-mono font-semibold">{subject.name}</span>
+      {subject.detail ? (
+        <span className="block text-xs font-normal text-ink-soft">{subject.detail}</span>
+      ) : null}
+    </>
+  );
+}
+
 function ChangeRows({
   subject,
   fields,
   unit,
 }: {
-  subject: string;
+  subject: Subject;
   fields: FieldChange[];
   unit: SizeUnit;
 }) {
@@ -62,8 +83,8 @@ function ChangeRows({
     <>
       {fields.map((f, i) => (
         <tr key={f.field} className="border-b border-rule/60 align-top">
-          <th scope="row" className="px-3 py-2 font-mono text-sm font-semibold">
-            {i === 0 ? subject : ''}
+          <th scope="row" className="px-3 py-2 text-sm">
+            {i === 0 ? <SubjectCell subject={subject} /> : ''}
           </th>
           <td className="px-3 py-2 text-sm text-ink-soft">{FIELD_LABELS[f.field] ?? f.field}</td>
           <td className="px-3 py-2 text-sm">
@@ -80,16 +101,37 @@ function ChangeRows({
   );
 }
 
-function NameList({ label, glyph, names }: { label: string; glyph: string; names: string[] }) {
-  if (!names.length) return null;
+const pinSubject = (p: ChangedPinRef): Subject => ({
+  name: p.name,
+  detail: `${p.function || 'no function'} · connector ${p.connector}`,
+});
+
+function SubjectList({
+  id,
+  title,
+  glyph,
+  items,
+}: {
+  id: string;
+  title: string;
+  glyph: string;
+  items: Subject[];
+}) {
+  if (!items.length) return null;
   return (
-    <p className="text-sm">
-      <span className="font-semibold">
+    <section aria-labelledby={id} className="flex flex-col gap-1">
+      <h3 id={id} className="font-semibold">
         <span aria-hidden>{glyph} </span>
-        {label}:
-      </span>{' '}
-      <span className="font-mono">{names.join(', ')}</span>
-    </p>
+        {title} ({items.length})
+      </h3>
+      <ul className="flex flex-col gap-1 pl-5">
+        {items.map((item, i) => (
+          <li key={`${item.name}-${i}`} className="text-sm">
+            <SubjectCell subject={item} />
+          </li>
+        ))}
+      </ul>
+    </section>
   );
 }
 
@@ -103,53 +145,67 @@ export function ChangesView({
   comparedWith: number;
   unit: SizeUnit;
 }) {
-  const rows = [
-    ...changes.conversion.map((f) => ({ subject: 'Conversion', fields: [f] })),
+  const rows: Array<{ subject: Subject; fields: FieldChange[] }> = [
+    ...changes.conversion.map((f) => ({ subject: { name: 'Conversion' }, fields: [f] })),
     ...changes.connectors.changed.map((c) => ({
-      subject: `Connector ${c.label}`,
+      subject: { name: `Connector ${c.label}` },
       fields: c.fields,
     })),
-    ...changes.pins.changed.map((p) => ({ subject: p.name, fields: p.fields })),
-    ...changes.feeds.changed.map((f) => ({ subject: `Feed: ${f.name}`, fields: f.fields })),
+    ...changes.pins.changed.map((p) => ({ subject: pinSubject(p), fields: p.fields })),
+    ...changes.feeds.changed.map((f) => ({
+      subject: { name: `Feed: ${f.name}` },
+      fields: f.fields,
+    })),
+    ...(changes.harness?.changed ?? []).map((h) => ({
+      subject: { name: h.label },
+      fields: h.fields,
+    })),
+  ];
+  const added: Subject[] = [
+    ...changes.connectors.added.map((label) => ({ name: `Connector ${label}` })),
+    ...changes.pins.added.map(pinSubject),
+    ...changes.feeds.added.map((f) => ({ name: `Feed: ${f.name}` })),
+    ...(changes.harness?.added ?? []).map((label) => ({ name: label })),
+  ];
+  const removed: Subject[] = [
+    ...changes.connectors.removed.map((label) => ({ name: `Connector ${label}` })),
+    ...changes.pins.removed.map(pinSubject),
+    ...changes.feeds.removed.map((f) => ({ name: `Feed: ${f.name}` })),
+    ...(changes.harness?.removed ?? []).map((label) => ({ name: label })),
   ];
   return (
     <section
       aria-labelledby="changes-heading"
-      className="rounded-lg border border-rule bg-paper-raised p-5"
+      className="flex flex-col gap-4 rounded-lg border border-rule bg-paper-raised p-5"
     >
       <h2 id="changes-heading" className="text-lg font-semibold">
         Changes since revision {comparedWith}
       </h2>
-      {countChanges(changes) === 0 ? <p className="mt-2 text-ink-soft">Nothing changed.</p> : null}
-      <div className="mt-2 flex flex-col gap-1">
-        <NameList label="Connectors added" glyph="+" names={changes.connectors.added} />
-        <NameList label="Connectors removed" glyph="−" names={changes.connectors.removed} />
-        <NameList label="Pins added" glyph="+" names={changes.pins.added.map((p) => p.name)} />
-        <NameList label="Pins removed" glyph="−" names={changes.pins.removed.map((p) => p.name)} />
-        <NameList label="Feeds added" glyph="+" names={changes.feeds.added.map((f) => f.name)} />
-        <NameList
-          label="Feeds removed"
-          glyph="−"
-          names={changes.feeds.removed.map((f) => f.name)}
-        />
-      </div>
+      {countChanges(changes) === 0 ? <p className="text-ink-soft">Nothing changed.</p> : null}
+      <SubjectList id="changes-added" title="Added" glyph="+" items={added} />
+      <SubjectList id="changes-removed" title="Removed" glyph="−" items={removed} />
       {rows.length ? (
-        <table className="lw-table mt-3 w-full border-collapse">
-          <caption className="sr-only">Changed fields</caption>
-          <thead className="border-b border-rule">
-            <tr>
-              <th className="px-3 py-2">What</th>
-              <th className="px-3 py-2">Field</th>
-              <th className="px-3 py-2">Was</th>
-              <th className="px-3 py-2">Now</th>
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map((r, i) => (
-              <ChangeRows key={i} subject={r.subject} fields={r.fields} unit={unit} />
-            ))}
-          </tbody>
-        </table>
+        <section aria-labelledby="changes-changed" className="flex flex-col gap-1">
+          <h3 id="changes-changed" className="font-semibold">
+            <span aria-hidden>~ </span>Changed ({rows.length})
+          </h3>
+          <table className="lw-table w-full border-collapse">
+            <caption className="sr-only">Changed fields</caption>
+            <thead className="border-b border-rule">
+              <tr>
+                <th className="px-3 py-2">What</th>
+                <th className="px-3 py-2">Field</th>
+                <th className="px-3 py-2">Was</th>
+                <th className="px-3 py-2">Now</th>
+              </tr>
+            </thead>
+            <tbody>
+              {rows.map((r, i) => (
+                <ChangeRows key={i} subject={r.subject} fields={r.fields} unit={unit} />
+              ))}
+            </tbody>
+          </table>
+        </section>
       ) : null}
     </section>
   );
