@@ -75,6 +75,13 @@ function createRouter(queryClient: QueryClient) {
               ),
             },
             {
+              path: 'box',
+              lazy: screen(
+                () => import('./routes/conversion/box.tsx'),
+                (m) => m.ConversionBoxRoute,
+              ),
+            },
+            {
               path: 'circuits/:kind/:refId',
               lazy: screen(
                 () => import('./routes/conversion/circuit.tsx'),

@@ -172,3 +172,37 @@ test('a wire list CSV is checked first, row by row, and applied only when clean'
     '/api/conversions/2/wires.csv',
   );
 });
+
+test('the box screen draws each position with what its terminals are wired to, and takes a new fuse', async ({
+  page,
+}) => {
+  mkdirSync(SCREENS, { recursive: true });
+  await signIn(page, DEMO.builder);
+  await openSection(page, 'Box');
+  const box = page.getByRole('region', { name: 'Box Fuse and relay box' });
+  const r1 = box.getByRole('listitem', { name: 'Relay R1' });
+  await expect(r1).toContainText('contacts 30 A');
+  // W-002 runs from F1's output to R1's terminal 30 in the demo.
+  const r1Supply = r1.getByRole('group', { name: 'R1 terminal 30' });
+  await expect(r1Supply).toContainText('W-002');
+  await expect(r1Supply).toContainText('F1 fuse · out');
+  await expect(box.getByRole('listitem', { name: 'Fuse F1' })).toContainText('15 A');
+  await page.screenshot({ path: `${SCREENS}/box.png`, fullPage: true });
+
+  await page.getByRole('button', { name: 'Edit positions of Fuse and relay box' }).click();
+  const form = page.getByRole('form', { name: 'Positions of Fuse and relay box' });
+  await form.getByRole('button', { name: 'Add a fuse' }).click();
+  await expect(form.getByLabel('Fuse rating of F6')).toBeVisible();
+  await form.getByLabel('Fuse rating of F6').fill('7.5');
+  await form.getByLabel('Fuse family of F6').selectOption('mini_blade');
+  await page.screenshot({ path: `${SCREENS}/box-edit.png`, fullPage: true });
+  await form.getByRole('button', { name: 'Save positions' }).click();
+  await expect(
+    page.getByRole('status').filter({ hasText: 'Saved the positions of Fuse and relay box' }),
+  ).toBeVisible();
+  const f6 = box.getByRole('listitem', { name: 'Fuse F6' });
+  await expect(f6).toContainText('7.5 A');
+  await expect(f6).toContainText('Mini blade fuse');
+  // The positions kept their ids: R1 is still wired.
+  await expect(r1Supply).toContainText('W-002');
+});

@@ -74,6 +74,7 @@ export function ConversionLayout() {
         <SectionLink to={paths.conversionPins.getHref(id)}>Pin map</SectionLink>
         <SectionLink to={paths.conversionFeeds.getHref(id)}>Feeds</SectionLink>
         <SectionLink to={paths.conversionWires.getHref(id)}>Wires</SectionLink>
+        <SectionLink to={paths.conversionBox.getHref(id)}>Box</SectionLink>
         <SectionLink to={paths.conversionChecks.getHref(id)}>Checks</SectionLink>
         <SectionLink to={paths.conversionRevisions.getHref(id)}>Revisions</SectionLink>
         <SectionLink to={paths.conversionBench.getHref(id)}>Bench</SectionLink>
