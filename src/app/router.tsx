@@ -141,6 +141,13 @@ function createRouter(queryClient: QueryClient) {
           ),
         },
         {
+          path: paths.help.path,
+          lazy: screen(
+            () => import('./routes/help.tsx'),
+            (m) => m.HelpRoute,
+          ),
+        },
+        {
           path: paths.calculator.path,
           lazy: screen(
             () => import('./routes/calculator.tsx'),

@@ -65,4 +65,5 @@ export const paths = {
   users: { path: '/admin/users', getHref: () => '/admin/users' },
   settings: { path: '/admin/settings', getHref: () => '/admin/settings' },
   account: { path: '/account', getHref: () => '/account' },
+  help: { path: '/help', getHref: (section?: string) => (section ? `/help#${section}` : '/help') },
 } as const;

@@ -51,6 +51,7 @@ export function AppShell({ user, children }: { user: SessionUser; children: Reac
             ) : null}
           </nav>
           <div className="ml-auto flex items-center gap-3">
+            <NavItem to={paths.help.getHref()}>Help</NavItem>
             <NavLink
               to={paths.account.getHref()}
               className="text-right leading-tight hover:underline"

@@ -1,0 +1,41 @@
+import { expect, test } from '@playwright/test';
+import { DEMO, signIn } from './support/session.ts';
+
+test('Help is one click from every screen and holds the tour, the keys, the words and every rule with its source', async ({
+  page,
+}) => {
+  await signIn(page, DEMO.technician);
+  await page.getByRole('link', { name: 'Pellow farm flatbed' }).click();
+  await page.getByRole('link', { name: 'Pin map', exact: true }).click();
+  await page
+    .getByRole('navigation')
+    .getByRole('link', { name: 'Help' })
+    .or(page.getByRole('link', { name: 'Help', exact: true }))
+    .first()
+    .click();
+  await expect(page.getByRole('heading', { name: 'Help', level: 1 })).toBeVisible();
+
+  const tour = page.getByRole('region', { name: 'A tour' });
+  await expect(tour.getByRole('listitem').first()).toContainText('Pin map');
+  await expect(tour.getByRole('listitem')).toHaveCount(6);
+
+  const keys = page.getByRole('region', { name: 'Keyboard shortcuts in the pin grid' });
+  await expect(keys.getByRole('row', { name: /Ctrl\+D/ })).toContainText('Fill down');
+  await expect(keys.getByRole('row', { name: /Type a letter/ })).toContainText('one undo step');
+
+  const dispositions = page.getByRole('region', { name: /Dispositions/ });
+  await expect(dispositions.getByText('Cut and insulate')).toBeVisible();
+  await expect(
+    page.getByRole('region', { name: /Signal classes/ }).getByText('Sensor ground'),
+  ).toBeVisible();
+
+  const rules = page.getByRole('region', { name: 'What the checks check, and on what authority' });
+  await expect(rules.getByRole('row')).toHaveCount(11);
+  await expect(
+    rules.getByRole('row', { name: /No extra ground on a sensor ground/ }),
+  ).toContainText('common practice, no source');
+  await expect(rules.getByRole('row', { name: /The fuse protects the wire/ })).toContainText(
+    '33 CFR 183.425',
+  );
+  await page.screenshot({ path: 'test-results/screens/help.png', fullPage: true });
+});
