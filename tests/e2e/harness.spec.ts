@@ -206,3 +206,17 @@ test('the box screen draws each position with what its terminals are wired to, a
   // The positions kept their ids: R1 is still wired.
   await expect(r1Supply).toContainText('W-002');
 });
+
+test('a pin of the pin map opens its circuit', async ({ page }) => {
+  mkdirSync(SCREENS, { recursive: true });
+  await signIn(page, DEMO.builder);
+  await openSection(page, 'Pin map');
+  // The fuel pump relay's coil control pin, reached from its connector's face.
+  await page.getByRole('button', { name: /^Cavity E2-9;/ }).click();
+  await page.getByRole('link', { name: /^Show circuit of E2-9/ }).click();
+  await expect(page.getByRole('heading', { name: /E2-9/ })).toBeVisible();
+  const named = page.getByRole('list', { name: 'Named in the drawing' });
+  await expect(named).toContainText('R3 relay');
+  await expect(named).toContainText('W-009');
+  await page.screenshot({ path: `${SCREENS}/circuit-pin.png`, fullPage: true });
+});

@@ -1,4 +1,5 @@
 import {
+  useEffect,
   useId,
   useImperativeHandle,
   useRef,
@@ -52,13 +53,22 @@ interface PinGridProps extends Omit<PinTableOptions, 'unit'> {
   /** Id of the text that explains the grid's keys. */
   describedBy?: string;
   ref?: Ref<PinGridHandle>;
+  /** Told which pin the cursor is on, for actions on that pin outside the grid. */
+  onActivePinChange?: (pinId: number | null) => void;
 }
 
 /**
  * The pin grid: a spreadsheet-like table of pins, moved through by keyboard, edited cell by cell,
  * pasted into and filled down. Only the rows in view are drawn, so a thousand pins scroll freely.
  */
-export function PinGrid({ ctx, editing, describedBy, ref, ...tableOptions }: PinGridProps) {
+export function PinGrid({
+  ctx,
+  editing,
+  describedBy,
+  ref,
+  onActivePinChange,
+  ...tableOptions
+}: PinGridProps) {
   const gridId = `pin-grid-${useId().replace(/[^a-zA-Z0-9]/g, '')}`;
   const unit = ctx.sizeUnit;
   const { readOnly, rowSelection } = tableOptions;
@@ -68,6 +78,8 @@ export function PinGrid({ ctx, editing, describedBy, ref, ...tableOptions }: Pin
   const { active, setActive, anchor, setAnchor, activePos, range, keyAt, ...cursor } =
     useGridCursor({ rows: shownRows, columnIds, rowIndexOf });
   const { defaultPosition, currentRange } = cursor;
+  const activePinId = active?.pinId ?? null;
+  useEffect(() => onActivePinChange?.(activePinId), [activePinId, onActivePinChange]);
   const [editState, setEdit] = useState<EditState | null>(null);
   const errors = useCellErrors();
   // An edit whose row went away (filtered out, connector deleted) no longer counts.

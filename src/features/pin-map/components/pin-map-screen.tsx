@@ -9,6 +9,7 @@ import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
+import { paths } from '@/config/paths.ts';
 import { SafetyNotes } from './safety-notes.tsx';
 import { useCreateConnector } from '../api/create-connector.ts';
 import { useDeleteConnector } from '../api/delete-connector.ts';
@@ -121,9 +122,11 @@ function PinMap({
   const [columnVisibility, setColumnVisibility] = useState<ColumnVisibilityState>({});
   const [form, setForm] = useState<{ connectorId: number | null } | null>(null);
   const [fromLibrary, setFromLibrary] = useState(false);
+  const [activePinId, setActivePinId] = useState<number | null>(null);
 
   const rows = useMemo(() => toPinRows(pins, connectors, feeds), [pins, connectors, feeds]);
   const shown = useMemo(() => filterRows(rows, filter), [rows, filter]);
+  const activeRow = rows.find((r) => r.pin.id === activePinId);
   const destinations = useMemo(() => destinationCavities(pins, connectors), [pins, connectors]);
   const ctx = useMemo<CellContext>(
     () => ({ sizeUnit, destinations, feeds }),
@@ -420,7 +423,16 @@ function PinMap({
               onColumnVisibilityChange={setColumnVisibility}
               editing={editing}
               describedBy="pin-grid-keys"
+              onActivePinChange={setActivePinId}
             />
+            {activeRow ? (
+              <Link
+                to={paths.conversionCircuit.getHref(conversionId, 'pin', activeRow.pin.id)}
+                className="self-start text-sm text-copper-deep underline-offset-2 hover:underline"
+              >
+                Show circuit of {activeRow.name}
+              </Link>
+            ) : null}
             <KeyHelp readOnly={readOnly} />
           </section>
         </>
