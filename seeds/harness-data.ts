@@ -184,6 +184,39 @@ export async function seedHarness(
     );
   }
 
+  // The signals the rules read: the tach output and its gauge, the CAN terminations, a shield.
+  const setPin = (connector: string, cavity: string, values: Record<string, unknown>) =>
+    exec(
+      `UPDATE pins SET ${Object.keys(values)
+        .map((k) => `${k} = :${k}`)
+        .join(', ')}
+        WHERE conversion_id = :conversionId AND cavity = :cavity
+          AND connector_id = (SELECT id FROM connectors WHERE conversion_id = :conversionId AND label = :connector)`,
+      { connector, cavity, ...values },
+    );
+  await setPin('E2', '12', { pulse_signal: 'open_collector', pulses_per_rev: 2 });
+  // The signed-off plan's gauge has its own pull-up; the draft's expects a driven 12 V wave.
+  await setPin('V1', '3', {
+    pulse_signal: options.draft ? 'square_12v' : 'open_collector',
+    pulses_per_rev: 2,
+  });
+  if (options.draft) {
+    // The ECU holds one CAN terminator; the donor's dropped gateway held the other.
+    await setPin('E2', '15', { termination_ohm: 120 });
+    // The crank sensor's shield drain also run to the block stud at the sensor end.
+    const [shield] = await q<{ id: number }>(
+      `SELECT p.id FROM pins p JOIN connectors c ON c.id = p.connector_id
+        WHERE p.conversion_id = :conversionId AND c.label = 'E1' AND p.cavity = '11'`,
+    );
+    if (shield) {
+      await addWire(
+        { kind: 'pin', pinId: shield.id },
+        { kind: 'ground', groundId: grounds['G-1']! },
+        { colour: 'BK', sizeMm2: 0.5, lengthM: 0.8, zone: 'engine_bay' },
+      );
+    }
+  }
+
   // The draft's planted problem: sensor ground E1-19 spliced at S-03 onto the inner-wing stud.
   if (options.draft) {
     const [sensor] = await q<{ end_id: number }>(

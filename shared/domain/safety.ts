@@ -3,6 +3,7 @@
  * on the pin map beside the pins they concern. Common practice, no single source; local codes and
  * licensed practice prevail over every one of them.
  */
+import { regulatedCategory } from './regulated-circuits.ts';
 import type { SignalClass } from './signal-classes.ts';
 
 export const ECU_PROBING_CAUTION =
@@ -40,9 +41,10 @@ export function cautionsForPins(
   if (pins.some((p) => /fuel\s*pump/i.test(p.function))) cautions.push(FUEL_PUMP_CUTOFF_CAUTION);
   if (pins.some((p) => /air\s*bag|srs/i.test(p.function))) cautions.push(AIRBAG_CAUTION);
   if (
-    pins.some((p) =>
-      /immobili[sz]er|anti-?theft|\bEGR\b|purge|o2|oxygen|lambda|catalyst/i.test(p.function),
-    )
+    pins.some((p) => {
+      const k = regulatedCategory(p.function)?.key;
+      return k === 'emissions' || k === 'anti_theft';
+    })
   )
     cautions.push(REGULATED_CIRCUITS_CAUTION);
   return cautions;

@@ -24,6 +24,17 @@ export const CHECK_RULES = [
   'wire_end_unresolved',
   'cavity_two_wires',
   'splice_wire_smaller_than_fuse',
+  'pulse_no_pull_up',
+  'pulse_wave_mismatch',
+  'pulse_ratio',
+  'can_termination',
+  'shield_grounded_far_end',
+  'reference_feeds_vehicle',
+  'regulated_circuit_removed',
+  'fuel_pump_control',
+  'fuel_pump_cutoff',
+  'coil_without_supply',
+  'lamp_output_led',
 ] as const;
 export type CheckRule = (typeof CHECK_RULES)[number];
 

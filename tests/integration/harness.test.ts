@@ -359,3 +359,31 @@ describe('migration 0011-harness', () => {
     }
   });
 });
+
+describe('signal rules on the demo', () => {
+  it('find the tach with no pull-up, the CAN bus with one termination, the shield grounded twice and the cut purge valve, each with values, sources and a fix', async () => {
+    const res = await request(ctx.app)
+      .post(`/api/conversions/${draft}/checks`)
+      .set('Authorization', builder);
+    const findings = res.body.findings as Finding[];
+    const rule = (r: string) => findings.find((f) => f.rule === r);
+    for (const [r, fix] of [
+      ['pulse_no_pull_up', /Fit a pull-up resistor/],
+      ['can_termination', /fit a 120 Ω terminator/],
+      ['shield_grounded_far_end', /leave the far end of the drain unconnected/],
+      ['regulated_circuit_removed', /check the local rules/],
+    ] as const) {
+      const f = rule(r);
+      expect(f, r).toBeDefined();
+      expect(Object.keys(f!.values).length, r).toBeGreaterThan(0);
+      expect(f!.sources.length, r).toBeGreaterThan(0);
+      expect(f!.message, r).toMatch(fix);
+    }
+    const signedOff = await request(ctx.app)
+      .post(`/api/conversions/${ctx.demo.conversions.signedOff}/checks`)
+      .set('Authorization', builder);
+    expect((signedOff.body.findings as Finding[]).filter((f) => f.severity === 'error')).toEqual(
+      [],
+    );
+  });
+});

@@ -11,6 +11,7 @@ import { seals } from './0008-seals.ts';
 import { changeCounters } from './0009-change-counters.ts';
 import { electricalRules } from './0010-electrical-rules.ts';
 import { harness } from './0011-harness.ts';
+import { signals } from './0012-signals.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -35,6 +36,7 @@ export const MIGRATIONS: Migration[] = [
   changeCounters,
   electricalRules,
   harness,
+  signals,
 ];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {

@@ -8,6 +8,7 @@ import {
   type Sequelize,
 } from 'sequelize';
 import type { DriverType } from '#shared/domain/electrical/relays.ts';
+import type { PulseSignal } from '#shared/domain/fields/text-parsers.ts';
 import type { Disposition } from '#shared/domain/dispositions.ts';
 import type { SignalClass } from '#shared/domain/signal-classes.ts';
 import type { Connector } from './connector.model.ts';
@@ -33,6 +34,9 @@ export class Pin extends Model<InferAttributes<Pin>, InferCreationAttributes<Pin
   declare loadCurrentA: CreationOptional<number | null>;
   declare driverType: CreationOptional<DriverType | null>;
   declare driverRatedA: CreationOptional<number | null>;
+  declare pulseSignal: CreationOptional<PulseSignal | null>;
+  declare pulsesPerRev: CreationOptional<number | null>;
+  declare terminationOhm: CreationOptional<number | null>;
   declare notes: CreationOptional<string>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -57,6 +61,9 @@ export class Pin extends Model<InferAttributes<Pin>, InferCreationAttributes<Pin
         loadCurrentA: { type: DataTypes.REAL, allowNull: true },
         driverType: { type: DataTypes.TEXT, allowNull: true },
         driverRatedA: { type: DataTypes.REAL, allowNull: true },
+        pulseSignal: { type: DataTypes.TEXT, allowNull: true },
+        pulsesPerRev: { type: DataTypes.REAL, allowNull: true },
+        terminationOhm: { type: DataTypes.REAL, allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,

@@ -8,6 +8,7 @@ import {
   type Sequelize,
 } from 'sequelize';
 import type { DriverType } from '#shared/domain/electrical/relays.ts';
+import type { PulseSignal } from '#shared/domain/fields/text-parsers.ts';
 import type { Disposition } from '#shared/domain/dispositions.ts';
 import type { SignalClass } from '#shared/domain/signal-classes.ts';
 import type { ConnectorSide } from '#shared/schemas/pin-map.schema.ts';
@@ -70,6 +71,9 @@ export class PinoutTemplatePin extends Model<
   declare disposition: CreationOptional<Disposition>;
   declare driverType: CreationOptional<DriverType | null>;
   declare driverRatedA: CreationOptional<number | null>;
+  declare pulseSignal: CreationOptional<PulseSignal | null>;
+  declare pulsesPerRev: CreationOptional<number | null>;
+  declare terminationOhm: CreationOptional<number | null>;
   declare notes: CreationOptional<string>;
 
   static initModel(sequelize: Sequelize) {
@@ -87,6 +91,9 @@ export class PinoutTemplatePin extends Model<
         disposition: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'undecided' },
         driverType: { type: DataTypes.TEXT, allowNull: true },
         driverRatedA: { type: DataTypes.REAL, allowNull: true },
+        pulseSignal: { type: DataTypes.TEXT, allowNull: true },
+        pulsesPerRev: { type: DataTypes.REAL, allowNull: true },
+        terminationOhm: { type: DataTypes.REAL, allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       },
       { sequelize, tableName: 'pinout_template_pins', timestamps: false },

@@ -8,6 +8,16 @@ import type { SizeUnit } from '../../schemas/workshop.schema.ts';
 import { CheckContext, type CheckOptions } from './check-context.ts';
 import { checkFeed } from './feed-rules.ts';
 import {
+  checkCanTerminations,
+  checkCoilSupplies,
+  checkFuelPump,
+  checkLampOutputs,
+  checkPulseSignals,
+  checkRegulatedCircuits,
+  checkSensorReferences,
+  checkShields,
+} from './signal-rules.ts';
+import {
   cavitiesWithTwoWires,
   groundPinsKept,
   harnessGraph,
@@ -50,6 +60,14 @@ export function storedFindings(snapshot: ConversionSnapshot, options: CheckOptio
     ...byWire,
     ...checkSharedDestinations(ctx),
     ...groundPinsKept(ctx),
+    ...checkPulseSignals(ctx, graph),
+    ...checkCanTerminations(ctx, graph),
+    ...checkShields(ctx, graph),
+    ...checkSensorReferences(ctx, graph),
+    ...checkRegulatedCircuits(ctx),
+    ...checkFuelPump(ctx, graph),
+    ...checkCoilSupplies(ctx, graph),
+    ...checkLampOutputs(ctx, graph),
     ...(graph
       ? [
           ...powerPinsByWire(ctx, graph),

@@ -69,6 +69,11 @@ export const SOURCES = {
     citation:
       "ISO 8820-3 blade-fuse ratings; colours from industry charts (the standard's own table not read)",
   },
+  'iso-11898-2': {
+    title: 'CAN bus termination',
+    citation:
+      'ISO 11898-2 (high-speed CAN): a 120 Ω termination at each end of the bus, so about 60 Ω across CAN-H and CAN-L with the power off',
+  },
   'from-memory': {
     title: 'From memory',
     citation: 'From memory: not verified at a published source',

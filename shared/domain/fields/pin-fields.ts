@@ -38,6 +38,12 @@ import {
 } from './field-table.ts';
 import { DRIVER_TYPES, type DriverType } from '../electrical/relays.ts';
 import {
+  parsePulseSignal,
+  PULSE_SIGNAL_LABELS,
+  PULSE_SIGNALS,
+  PULSES_PER_REV,
+  TERMINATION_OHM,
+  type PulseSignal,
   DRIVER_CURRENT,
   DRIVER_TYPE_SHORT,
   parseDriverType,
@@ -69,6 +75,12 @@ export interface PinValues {
   driverType: DriverType | null;
   /** For an ECU output: the current its stage is rated to switch, A (the ECU maker's figure). */
   driverRatedA: number | null;
+  /** For a speed or engine-speed pin: the signal it sends (output) or expects (input). */
+  pulseSignal: PulseSignal | null;
+  /** Pulses per revolution (engine speed) or per km (road speed) it sends or expects. */
+  pulsesPerRev: number | null;
+  /** A bus termination at this node, Ω, recorded on the bus's high pin (120 Ω for CAN). */
+  terminationOhm: number | null;
   notes: string;
 }
 
@@ -259,6 +271,37 @@ export const PIN_FIELDS = {
     show: withUnit('A'),
     csv: [{ header: 'driver_rated_a', label: 'ECU output rating, A', write: (v) => v }],
     column: { id: 'driverRated', heading: 'Out. A' },
+  }),
+  pulseSignal: field({
+    inTemplate: true,
+    label: 'Pulse signal',
+    schema: z.enum(PULSE_SIGNALS).nullable(),
+    blank: null as PulseSignal | null,
+    parse: parsePulseSignal,
+    format: (v) => (v == null ? '' : PULSE_SIGNAL_LABELS[v]),
+    csv: [{ header: 'pulse_signal', label: 'Pulse signal', write: (v) => v }],
+    column: { id: 'pulseSignal', heading: 'Pulse' },
+  }),
+  pulsesPerRev: field({
+    inTemplate: true,
+    label: 'Pulses per rev or km',
+    schema: z.number().min(0.1).max(100_000).nullable(),
+    blank: null,
+    parse: (text) => parseMeasure(text, PULSES_PER_REV),
+    format: numberText,
+    csv: [{ header: 'pulses_per_rev', label: 'Pulses per rev or km', write: (v) => v }],
+    column: { id: 'pulsesPerRev', heading: 'Pulses' },
+  }),
+  terminationOhm: field({
+    inTemplate: true,
+    label: 'Bus termination',
+    schema: z.number().min(1).max(100_000).nullable(),
+    blank: null,
+    parse: (text) => parseMeasure(text, TERMINATION_OHM),
+    format: numberText,
+    show: withUnit('Ω'),
+    csv: [{ header: 'termination_ohm', label: 'Bus termination, Ω', write: (v) => v }],
+    column: { id: 'termination', heading: 'Term. Ω' },
   }),
   notes: field({
     inTemplate: true,

@@ -129,6 +129,52 @@ export function parseDriverType(text: string): FieldParse<DriverType | null> {
   return refused(`"${text.trim()}" is not an output stage: use one of ${words}`);
 }
 
+/** How a speed or engine-speed signal is carried: what an output sends, what an input expects. */
+export const PULSE_SIGNALS = ['open_collector', 'square_5v', 'square_12v', 'ac_sine'] as const;
+export type PulseSignal = (typeof PULSE_SIGNALS)[number];
+export const PULSE_SIGNAL_LABELS: Record<PulseSignal, string> = {
+  open_collector: 'Open collector',
+  square_5v: '5 V square',
+  square_12v: '12 V square',
+  ac_sine: 'AC sine',
+};
+const PULSE_ALIASES = aliasTable<PulseSignal>(
+  PULSE_SIGNALS.map((p) => [p, [p, PULSE_SIGNAL_LABELS[p]]]),
+);
+for (const [alias, p] of [
+  ['oc', 'open_collector'],
+  ['opendrain', 'open_collector'],
+  ['5v', 'square_5v'],
+  ['12v', 'square_12v'],
+  ['ac', 'ac_sine'],
+  ['sine', 'ac_sine'],
+  ['vr', 'ac_sine'],
+] as const)
+  PULSE_ALIASES.set(alias, p);
+
+/** "Open collector", "OC", "12 V square", "AC"; empty is "not a pulse signal" (null). */
+export function parsePulseSignal(text: string): FieldParse<PulseSignal | null> {
+  if (text.trim() === '') return parsed(null);
+  const found = PULSE_ALIASES.get(squash(text));
+  if (found) return parsed(found);
+  const words = PULSE_SIGNALS.map((p) => `${p} (${PULSE_SIGNAL_LABELS[p]})`).join(', ');
+  return refused(`"${text.trim()}" is not a pulse signal: use one of ${words}`);
+}
+
+export const PULSES_PER_REV: Measure = {
+  suffixes: /\s*(\/\s*rev|per\s+rev(olution)?|pulses?|\/\s*km|per\s+km)$/i,
+  name: 'pulses',
+  min: 0.1,
+  max: 100_000,
+};
+
+export const TERMINATION_OHM: Measure = {
+  suffixes: /\s*(Ω|ohms?)$/i,
+  name: 'ohms',
+  min: 1,
+  max: 100_000,
+};
+
 /** "105", "105 °C", "105C": one of the insulation ratings wire is sold in. */
 export function parseInsulationRating(text: string): FieldParse<number | null> {
   const bare = text

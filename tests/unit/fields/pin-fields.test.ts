@@ -1,5 +1,6 @@
 import fc from 'fast-check';
 import { DRIVER_TYPES } from '#shared/domain/electrical/relays.ts';
+import { PULSE_SIGNALS } from '#shared/domain/fields/text-parsers.ts';
 import { describe, expect, it } from 'vitest';
 import {
   blankRecord,
@@ -55,6 +56,9 @@ const INPUTS: { [K in keyof PinValues]: fc.Arbitrary<unknown> } = {
   loadCurrentA: orNull(fc.double({ min: -1, max: 250, noNaN: true })),
   driverType: orNull(fc.constantFrom(...DRIVER_TYPES)),
   driverRatedA: orNull(fc.double({ min: -1, max: 60, noNaN: true })),
+  pulseSignal: orNull(fc.constantFrom(...PULSE_SIGNALS)),
+  pulsesPerRev: orNull(fc.double({ min: 0, max: 200_000, noNaN: true })),
+  terminationOhm: orNull(fc.double({ min: 0, max: 200_000, noNaN: true })),
   notes: fc.string({ maxLength: 2100, unit: 'binary' }),
 };
 

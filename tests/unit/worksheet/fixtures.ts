@@ -77,6 +77,9 @@ export function bigSnapshot(pinCount: number): ConversionSnapshot {
         loadCurrentA: null,
         driverType: null,
         driverRatedA: null,
+        pulseSignal: null,
+        pulsesPerRev: null,
+        terminationOhm: null,
         notes: i % 25 === 0 ? 'Check the routing against the loom drawing.' : '',
       });
     }

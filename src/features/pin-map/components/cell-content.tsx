@@ -1,4 +1,5 @@
-import { DRIVER_TYPE_SHORT } from '#shared/domain/fields/text-parsers.ts';
+import { DRIVER_TYPE_SHORT, PULSE_SIGNAL_LABELS } from '#shared/domain/fields/text-parsers.ts';
+import { regulatedCategory } from '#shared/domain/regulated-circuits.ts';
 import { SIGNAL_CLASS_LABELS } from '#shared/domain/signal-classes.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
@@ -28,8 +29,23 @@ export function CellContent({
       return <span className="font-mono text-[0.8125rem] text-ink-soft">{row.connectorLabel}</span>;
     case 'cavity':
       return <span className="font-mono text-[0.875rem] font-semibold">{pin.cavity}</span>;
-    case 'function':
-      return pin.function ? <span className="truncate">{pin.function}</span> : <Empty />;
+    case 'function': {
+      if (!pin.function) return <Empty />;
+      const regulated = regulatedCategory(pin.function);
+      return (
+        <span className="flex min-w-0 items-center gap-1.5">
+          <span className="truncate">{pin.function}</span>
+          {regulated ? (
+            <span
+              className="shrink-0 rounded border border-caution/50 px-1 text-[0.6875rem] font-semibold text-caution"
+              title={`${regulated.caution} Changing it may be unlawful where the vehicle is used; check local rules.`}
+            >
+              {regulated.label}
+            </span>
+          ) : null}
+        </span>
+      );
+    }
     case 'signalClass':
       return pin.signalClass === 'none' ? (
         <Empty />
@@ -75,6 +91,12 @@ export function CellContent({
       return pin.driverType ? <span>{DRIVER_TYPE_SHORT[pin.driverType]}</span> : <Empty />;
     case 'driverRated':
       return numberCell(pin.driverRatedA);
+    case 'pulseSignal':
+      return pin.pulseSignal ? <span>{PULSE_SIGNAL_LABELS[pin.pulseSignal]}</span> : <Empty />;
+    case 'pulsesPerRev':
+      return numberCell(pin.pulsesPerRev);
+    case 'termination':
+      return numberCell(pin.terminationOhm);
     case 'notes':
       return pin.notes ? <span className="truncate text-ink-soft">{pin.notes}</span> : <Empty />;
   }

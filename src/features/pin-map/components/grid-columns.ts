@@ -49,6 +49,9 @@ const COLUMN_WIDTHS: Record<GridColumnId, number> = {
   load: 80,
   driverType: 116,
   driverRated: 80,
+  pulseSignal: 112,
+  pulsesPerRev: 76,
+  termination: 80,
   notes: 220,
 };
 
@@ -69,6 +72,9 @@ const SORT_FN: Record<PinColumnId, 'alphanumeric' | 'text' | 'basic'> = {
   load: 'basic',
   driverType: 'text',
   driverRated: 'basic',
+  pulseSignal: 'text',
+  pulsesPerRev: 'basic',
+  termination: 'basic',
   notes: 'text',
 };
 

@@ -92,6 +92,10 @@ export function sortValue(row: PinRow, id: PinColumnId): string | number | undef
       return pin.loadCurrentA ?? undefined;
     case 'driverRated':
       return pin.driverRatedA ?? undefined;
+    case 'pulsesPerRev':
+      return pin.pulsesPerRev ?? undefined;
+    case 'termination':
+      return pin.terminationOhm ?? undefined;
     default:
       return cellText(row, id, 'mm2');
   }
