@@ -532,7 +532,7 @@ describe('export', () => {
     expect([...body.subarray(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
     const text = body.toString('utf8').slice(1);
     expect(text.split('\r\n')[0]).toBe(
-      'connector,cavity,function,signal_class,colour,size_mm2,awg,insulation_c,disposition,destination,feed,run_length_m,load_current_a,driver_type,driver_rated_a,notes',
+      'connector,cavity,function,signal_class,colour,size_mm2,awg,insulation_c,disposition,destination,feed,run_length_m,load_current_a,driver_type,driver_rated_a,pulse_signal,pulses_per_rev,termination_ohm,notes',
     );
     expect(text).toContain(`X1,1,"'=HYPERLINK(""x"")",`);
     expect(text).toContain(`,'@SUM(A1)\r\n`);
@@ -547,7 +547,7 @@ describe('export', () => {
     const text = res.text.replace(/^\uFEFF/, '');
     const [header, example] = text.split('\r\n');
     expect(header).toBe(
-      'cavity,function,signal_class,colour,size_mm2,awg,insulation_c,disposition,destination,feed,run_length_m,load_current_a,driver_type,driver_rated_a,notes',
+      'cavity,function,signal_class,colour,size_mm2,awg,insulation_c,disposition,destination,feed,run_length_m,load_current_a,driver_type,driver_rated_a,pulse_signal,pulses_per_rev,termination_ohm,notes',
     );
     expect(example).toContain('ECU main feed 1');
     const connector = await createConnector(ctx.demo.conversions.draft, 'T1', 'ecu', 1);

@@ -166,6 +166,9 @@ describe('workshop templates', () => {
         disposition: p.disposition,
         driverType: p.driverType,
         driverRatedA: p.driverRatedA,
+        pulseSignal: p.pulseSignal,
+        pulsesPerRev: p.pulsesPerRev,
+        terminationOhm: p.terminationOhm,
         notes: p.notes,
       })),
     );
