@@ -27,7 +27,7 @@ export function AppShell({ user, children }: { user: SessionUser; children: Reac
   const navigate = useNavigate();
   return (
     <div className="min-h-screen">
-      <header className="border-b border-rule bg-paper-raised">
+      <header className="border-b border-rule bg-paper-raised print:hidden">
         <div className="mx-auto flex max-w-[1400px] flex-wrap items-center gap-x-6 gap-y-2 px-5 py-3">
           <a href={paths.home.getHref()} className="flex items-center gap-2.5">
             <img src={mark} alt="" className="size-8" />

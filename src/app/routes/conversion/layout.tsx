@@ -66,7 +66,7 @@ export function ConversionLayout() {
       </header>
       <nav
         aria-label="Conversion sections"
-        className="mb-6 flex flex-wrap gap-1 border-b border-rule"
+        className="mb-6 flex flex-wrap gap-1 border-b border-rule print:hidden"
       >
         <SectionLink to={paths.conversion.getHref(id)} end>
           Overview

@@ -1,5 +1,7 @@
+import { Link } from 'react-router-dom';
 import { FUSE_FAMILIES, fuseColour } from '#shared/domain/electrical/fuses.ts';
 import type { Box, BoxPosition } from '#shared/schemas/harness.schema.ts';
+import { paths } from '@/config/paths.ts';
 import { endText, type EndOption } from '../lib/end-options.ts';
 import {
   RELAY_TERMINAL_ROLES,
@@ -63,7 +65,14 @@ export function BoxCard({ box, terminals, byKey, feedName }: BoxCardProps) {
             >
               <div className="flex flex-col">
                 <PositionHead p={p} />
-                {feed ? <span className="text-xs text-copper-deep">Feed: {feed}</span> : null}
+                {feed && p.feedId ? (
+                  <Link
+                    to={paths.conversionCircuit.getHref(box.conversionId, 'feed', p.feedId)}
+                    className="text-xs text-copper-deep underline-offset-2 hover:underline"
+                  >
+                    Feed: {feed} · show circuit
+                  </Link>
+                ) : null}
               </div>
               <dl className="grid gap-1 text-sm">
                 {terminalsOf(p).map((t) => {

@@ -214,9 +214,9 @@ export function WiresScreen({ conversionId, readOnly, pins, connectors }: WiresS
         </Notice>
       ) : null}
       <p className="text-xs text-ink-faint">
-        Arrows move; Enter or typing edits a cell; Enter saves and goes down, Tab saves and goes
-        right, Escape leaves it as it was. An end is picked from the list: type part of a cavity,
-        splice, ground point, relay or fuse.
+        {readOnly
+          ? 'Read only: your role cannot change wires. Arrows move through the list.'
+          : 'Arrows move; Enter or typing edits a cell; Enter saves and goes down, Tab saves and goes right, Escape leaves it as it was. An end is picked from the list: type part of a cavity, splice, ground point, relay or fuse.'}
       </p>
       <WiresGrid
         wires={wires.data}

@@ -26,14 +26,14 @@ export const WIRE_COLUMN_HEADERS: Record<WireColumnId, string> = {
 };
 
 export const WIRE_COLUMN_WIDTHS: Record<WireColumnId, number> = {
-  label: 84,
-  colour: 104,
-  size: 92,
-  length: 92,
-  zone: 150,
-  endA: 240,
-  endB: 240,
-  notes: 180,
+  label: 76,
+  colour: 96,
+  size: 80,
+  length: 80,
+  zone: 140,
+  endA: 220,
+  endB: 220,
+  notes: 140,
 };
 
 export type EditorKind = 'text' | 'zone' | 'end';
