@@ -14,6 +14,9 @@ export const REVISION_STATUS_LABELS: Record<RevisionStatus, string> = {
 export const RevisionParams = z.strictObject({ id: IdParam, number: IdParam });
 export type RevisionParams = z.output<typeof RevisionParams>;
 
+export const CommentParams = z.strictObject({ id: IdParam, number: IdParam, commentId: IdParam });
+export type CommentParams = z.output<typeof CommentParams>;
+
 export const SubmitRevisionRequest = z.strictObject({
   /** A line for the reviewer about what changed. */
   note: noteText(2000).optional(),
@@ -66,12 +69,21 @@ export interface ReviewComment {
   subjectLabel: string;
   body: string;
   createdAt: string;
+  /** Marked answered by the builder, or null. */
+  answered: { by: string; at: string } | null;
+}
+
+/** A comment of an earlier revision on a pin or feed, shown on the later revisions. */
+export interface EarlierComment extends ReviewComment {
+  revisionNumber: number;
 }
 
 export interface RevisionDetail extends RevisionSummary {
   snapshot: ConversionSnapshot;
   findings: Finding[];
   comments: ReviewComment[];
+  /** Comments of earlier revisions on the pins and feeds, oldest first, each with its revision. */
+  earlierComments: EarlierComment[];
   /** Differences from the last signed-off revision before this one; null for the first. */
   changes: RevisionChanges | null;
   comparedWith: number | null;

@@ -121,3 +121,72 @@ test('differences name each pin with its function and connector, grouped added, 
   await expect(row.getByRole('cell', { name: 'Coolant temperature signal' })).toBeVisible();
   await page.screenshot({ path: 'test-results/screens/revision-differences.png', fullPage: true });
 });
+
+test('a comment on revision 1 stays on its pin in revision 2, marked with its revision, until the builder marks it answered', async ({
+  page,
+}) => {
+  await signIn(page, DEMO.builder);
+  const plan = await createSmallPlan(page.request, 'Trewin seed drill');
+  expect(
+    (
+      await page.request.post(`/api/conversions/${plan.conversionId}/revisions`, { data: {} })
+    ).status(),
+  ).toBe(201);
+  await signOut(page);
+
+  await signIn(page, DEMO.reviewer);
+  const signal = plan.pins.find((p) => p.cavity === '2')!;
+  expect(
+    (
+      await page.request.post(`/api/conversions/${plan.conversionId}/revisions/1/comments`, {
+        data: { body: 'Run this in a shielded pair.', pinId: signal.id },
+      })
+    ).status(),
+  ).toBe(201);
+  expect(
+    (
+      await page.request.post(`/api/conversions/${plan.conversionId}/revisions/1/send-back`, {
+        data: { comment: 'See the pin comment.' },
+      })
+    ).status(),
+  ).toBe(200);
+  await signOut(page);
+
+  await signIn(page, DEMO.builder);
+  const now = (await (await page.request.get(`/api/conversions/${plan.conversionId}/pins`)).json())
+    .pins as Array<{ id: number; version: number }>;
+  const pin = now.find((p) => p.id === signal.id)!;
+  expect(
+    (
+      await page.request.patch(`/api/pins/${pin.id}`, {
+        data: { notes: 'Shielded pair, drain at the ECU end', version: pin.version },
+      })
+    ).status(),
+  ).toBe(200);
+  await page.goto(`/conversions/${plan.conversionId}/revisions`);
+  await page.getByRole('button', { name: 'Submit for review' }).click();
+  await expect(page.getByRole('heading', { name: /Revision 2/ })).toBeVisible();
+
+  const earlier = page.getByRole('region', { name: 'Earlier comments on pins and feeds' });
+  await expect(
+    earlier.getByText('1 comment from earlier revisions not yet marked answered.'),
+  ).toBeVisible();
+  const onPin = earlier.getByRole('listitem', { name: 'E5-2' });
+  await expect(onPin).toContainText('Coolant temperature signal');
+  await expect(onPin).toContainText('Revision 1');
+  await expect(onPin).toContainText('Run this in a shielded pair.');
+  await page.screenshot({ path: 'test-results/screens/earlier-comments.png', fullPage: true });
+  await onPin.getByRole('button', { name: 'Mark answered' }).click();
+  await expect(onPin.getByText(/Answered by Ivo Brandt/)).toBeVisible();
+  await expect(
+    earlier.getByText('Every comment from earlier revisions is marked answered.'),
+  ).toBeVisible();
+  await signOut(page);
+
+  // The reviewer sees it answered, and cannot mark anything.
+  await signIn(page, DEMO.reviewer);
+  await page.goto(`/conversions/${plan.conversionId}/revisions/2`);
+  const seen = page.getByRole('region', { name: 'Earlier comments on pins and feeds' });
+  await expect(seen.getByText(/Answered by Ivo Brandt/)).toBeVisible();
+  await expect(seen.getByRole('button', { name: 'Mark answered' })).toHaveCount(0);
+});

@@ -87,6 +87,7 @@ const ACCESS: Record<string, Role[] | typeof PUBLIC> = {
   'POST /api/conversions/:id/revisions/:number/sign-off': ['reviewer'],
   'POST /api/conversions/:id/revisions/:number/send-back': ['reviewer'],
   'POST /api/conversions/:id/revisions/:number/comments': ['reviewer', 'builder', 'admin'],
+  'POST /api/conversions/:id/revisions/:number/comments/:commentId/answered': WRITERS,
   'GET /api/conversions/:id/audit': ['admin', 'reviewer', 'builder'],
   'GET /api/admin/outbox': ['admin'],
   'GET /api/conversions/:id/bench': ALL,

@@ -282,6 +282,60 @@ describe('the whole workflow', () => {
       reviewedBy: 'Dana Whitlow',
     });
   });
+  it('shows revision 1’s pin comment on revision 2, and the builder marks it answered', async () => {
+    const detail = await request(ctx.app)
+      .get(`/api/conversions/${draftId}/revisions/2`)
+      .set('Authorization', await as('builder'))
+      .expect(200);
+    const earlier = detail.body.revision.earlierComments as Array<{
+      id: number;
+      revisionNumber: number;
+      subjectLabel: string;
+      body: string;
+      answered: unknown;
+    }>;
+    expect(earlier).toEqual([
+      expect.objectContaining({
+        revisionNumber: 1,
+        subjectLabel: 'E1-1',
+        body: 'Check this crimp.',
+        answered: null,
+      }),
+    ]);
+    const url = `/api/conversions/${draftId}/revisions/2/comments/${earlier[0]!.id}/answered`;
+    expect(
+      (
+        await request(ctx.app)
+          .post(url)
+          .set('Authorization', await as('technician'))
+      ).status,
+    ).toBe(403);
+    const marked = await request(ctx.app)
+      .post(url)
+      .set('Authorization', await as('builder'))
+      .expect(200);
+    expect(marked.body.comment.answered).toMatchObject({ by: 'Ivo Brandt' });
+    // Once is enough: marking again keeps the first answer.
+    const again = await request(ctx.app)
+      .post(url)
+      .set('Authorization', await as('admin'))
+      .expect(200);
+    expect(again.body.comment.answered.by).toBe('Ivo Brandt');
+    const reread = await request(ctx.app)
+      .get(`/api/conversions/${draftId}/revisions/2`)
+      .set('Authorization', await as('reviewer'));
+    expect(reread.body.revision.earlierComments[0].answered.by).toBe('Ivo Brandt');
+    // A comment of another conversion is not found through this one.
+    expect(
+      (
+        await request(ctx.app)
+          .post(
+            `/api/conversions/${ctx.demo.conversions.signedOff}/revisions/1/comments/${earlier[0]!.id}/answered`,
+          )
+          .set('Authorization', await as('builder'))
+      ).status,
+    ).toBe(404);
+  });
 });
 
 describe('separation of duties and races', () => {

@@ -12,6 +12,7 @@ import { changeCounters } from './0009-change-counters.ts';
 import { electricalRules } from './0010-electrical-rules.ts';
 import { harness } from './0011-harness.ts';
 import { signals } from './0012-signals.ts';
+import { commentAnswers } from './0013-comment-answers.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -37,6 +38,7 @@ export const MIGRATIONS: Migration[] = [
   electricalRules,
   harness,
   signals,
+  commentAnswers,
 ];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {

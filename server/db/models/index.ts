@@ -7,7 +7,7 @@ import { Conversion } from './conversion.model.ts';
 import { Feed, FeedLoad } from './feed.model.ts';
 import { ImportMapping, PinImport } from './import.model.ts';
 import { Invitation, MailOutbox } from './mail.model.ts';
-import { ReviewComment, Revision } from './revision.model.ts';
+import { ReviewComment, ReviewCommentAnswer, Revision } from './revision.model.ts';
 import { Pin } from './pin.model.ts';
 import { PinoutTemplate, PinoutTemplatePin } from './pinout-template.model.ts';
 import { User } from './user.model.ts';
@@ -30,6 +30,7 @@ export {
   PinoutTemplate,
   PinoutTemplatePin,
   ReviewComment,
+  ReviewCommentAnswer,
   Revision,
   User,
   Workshop,
@@ -50,6 +51,7 @@ export function initModels(sequelize: Sequelize) {
   FeedLoad.initModel(sequelize);
   Revision.initModel(sequelize);
   ReviewComment.initModel(sequelize);
+  ReviewCommentAnswer.initModel(sequelize);
   MailOutbox.initModel(sequelize);
   Invitation.initModel(sequelize);
   BenchRecord.initModel(sequelize);

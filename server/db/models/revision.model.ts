@@ -94,3 +94,26 @@ export class ReviewComment extends Model<
     );
   }
 }
+
+/** A builder's mark that a comment has been answered (migration 0013); at most one per comment. */
+export class ReviewCommentAnswer extends Model<
+  InferAttributes<ReviewCommentAnswer>,
+  InferCreationAttributes<ReviewCommentAnswer>
+> {
+  declare commentId: number;
+  declare answeredById: number | null;
+  declare answeredByName: string;
+  declare answeredAt: Date;
+
+  static initModel(sequelize: Sequelize) {
+    ReviewCommentAnswer.init(
+      {
+        commentId: { type: DataTypes.INTEGER, primaryKey: true },
+        answeredById: { type: DataTypes.INTEGER, allowNull: true },
+        answeredByName: { type: DataTypes.TEXT, allowNull: false },
+        answeredAt: { type: DataTypes.DATE, allowNull: false },
+      },
+      { sequelize, tableName: 'review_comment_answers', timestamps: false },
+    );
+  }
+}

@@ -2,6 +2,7 @@ import { Router, type Request, type Response } from 'express';
 import { IdParams } from '#shared/schemas/common.schema.ts';
 import {
   ReviewCommentRequest,
+  CommentParams,
   RevisionParams,
   SendBackRequest,
   SignOffRequest,
@@ -62,6 +63,13 @@ async function comment(req: Request, res: Response) {
     req.body as ReviewCommentRequest,
   );
   res.status(201).json({ comment: created });
+}
+
+async function answered(req: Request, res: Response) {
+  const { id, number, commentId } = parsedParams<CommentParams>(req);
+  res.json({
+    comment: await revisions.markCommentAnswered(actorOf(req), id, number, commentId),
+  });
 }
 
 /** No route changes a revision's content: any attempt is answered 409, after the usual 404 check. */
@@ -136,4 +144,11 @@ revisionsRoutes.post(
   authorize('revision:comment'),
   validate({ params: RevisionParams, body: ReviewCommentRequest }),
   comment,
+);
+// The builder answers the review: the same right as submitting the next revision.
+revisionsRoutes.post(
+  '/:id/revisions/:number/comments/:commentId/answered',
+  authorize('revision:submit'),
+  validate({ params: CommentParams }),
+  answered,
 );

@@ -11,6 +11,7 @@ import { diffSnapshots } from '#shared/domain/revisions/diff.ts';
 import type { Finding } from '#shared/schemas/checks.schema.ts';
 import {
   REVISION_STATUS_LABELS,
+  type EarlierComment,
   type ReviewComment as ReviewCommentDto,
   type ReviewCommentRequest,
   type RevisionDetail,
@@ -21,7 +22,13 @@ import {
 } from '#shared/schemas/revisions.schema.ts';
 import type { ConversionSnapshot } from '#shared/schemas/snapshot.schema.ts';
 import { db } from '../../db/index.ts';
-import { Conversion, ReviewComment, Revision, User } from '../../db/models/index.ts';
+import {
+  Conversion,
+  ReviewComment,
+  ReviewCommentAnswer,
+  Revision,
+  User,
+} from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, forbidden, notFound, unprocessable } from '../../lib/errors.ts';
 import { sealDecision, sealKeyFrom, sealMatches, type SealedDecision } from '../../lib/seal.ts';
@@ -410,7 +417,7 @@ function subjectLabel(snapshot: ConversionSnapshot, input: ReviewCommentRequest)
   return '';
 }
 
-function toCommentDto(c: ReviewComment): ReviewCommentDto {
+function toCommentDto(c: ReviewComment, answer?: ReviewCommentAnswer | null): ReviewCommentDto {
   return {
     id: c.id,
     authorName: c.authorName,
@@ -419,7 +426,82 @@ function toCommentDto(c: ReviewComment): ReviewCommentDto {
     subjectLabel: c.subjectLabel,
     body: c.body,
     createdAt: iso(c.createdAt)!,
+    answered: answer ? { by: answer.answeredByName, at: iso(answer.answeredAt)! } : null,
   };
+}
+
+async function answersOf(comments: ReviewComment[]): Promise<Map<number, ReviewCommentAnswer>> {
+  if (!comments.length) return new Map();
+  const answers = await ReviewCommentAnswer.findAll({
+    where: { commentId: comments.map((c) => c.id) },
+  });
+  return new Map(answers.map((a) => [a.commentId, a]));
+}
+
+/**
+ * Comments of the revisions before `number` on a pin or a feed: a remark on revision 2 stays in
+ * sight on revision 3, with its revision, until the builder marks it answered and after.
+ */
+async function earlierCommentsOf(conversionId: number, number: number): Promise<EarlierComment[]> {
+  const earlier = await Revision.findAll({
+    where: { conversionId, number: { [Op.lt]: number } },
+    attributes: ['id', 'number'],
+  });
+  if (!earlier.length) return [];
+  const numberOf = new Map(earlier.map((r) => [r.id, r.number]));
+  const comments = await ReviewComment.findAll({
+    where: {
+      revisionId: [...numberOf.keys()],
+      [Op.or]: [{ pinId: { [Op.ne]: null } }, { feedId: { [Op.ne]: null } }],
+    },
+    order: [['id', 'ASC']],
+  });
+  const answers = await answersOf(comments);
+  return comments.map((c) => ({
+    ...toCommentDto(c, answers.get(c.id)),
+    revisionNumber: numberOf.get(c.revisionId)!,
+  }));
+}
+
+/** The builder marks a comment of one of the conversion's revisions answered; once is enough. */
+export async function markCommentAnswered(
+  actor: Actor,
+  conversionId: number,
+  number: number,
+  commentId: number,
+): Promise<ReviewCommentDto> {
+  return inTransaction(db(), async (t) => {
+    await findRevision(actor, conversionId, number, t);
+    const comment = await ReviewComment.findByPk(commentId, { transaction: t });
+    const of = comment
+      ? await Revision.findOne({
+          where: { id: comment.revisionId, conversionId },
+          attributes: ['id', 'number'],
+          transaction: t,
+        })
+      : null;
+    if (!comment || !of) throw notFound('That comment');
+    const existing = await ReviewCommentAnswer.findByPk(commentId, { transaction: t });
+    if (existing) return toCommentDto(comment, existing);
+    const answer = await ReviewCommentAnswer.create(
+      {
+        commentId,
+        answeredById: actor.id,
+        answeredByName: actor.name,
+        answeredAt: new Date(),
+      },
+      { transaction: t },
+    );
+    await recordAudit(t, actor, {
+      conversionId,
+      action: 'answer_comment',
+      entityType: 'revision',
+      entityId: of.id,
+      summary: `Marked answered ${comment.authorName}'s comment on revision ${of.number}${comment.subjectLabel ? ` (${comment.subjectLabel})` : ''}`,
+      after: { commentId },
+    });
+    return toCommentDto(comment, answer);
+  });
 }
 
 export async function addComment(
@@ -472,11 +554,13 @@ export async function getRevision(
     where: { conversionId, status: 'signed_off', number: { [Op.lt]: number } },
     order: [['number', 'DESC']],
   });
+  const answers = await answersOf(comments);
   return {
     ...toSummary(revision),
     snapshot,
     findings: await findingsOf(revision, actor),
-    comments: comments.map(toCommentDto),
+    comments: comments.map((c) => toCommentDto(c, answers.get(c.id))),
+    earlierComments: await earlierCommentsOf(conversionId, number),
     changes: previous ? diffSnapshots(snapshotOf(previous), snapshot) : null,
     comparedWith: previous?.number ?? null,
     seal: revision.seal ? { ...sealPublicKey(), signature: revision.seal } : null,

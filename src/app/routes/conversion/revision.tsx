@@ -16,6 +16,7 @@ import {
 } from '@/features/revisions/api/revisions.ts';
 import { ChangesView } from '@/features/revisions/components/changes-view.tsx';
 import { CommentsPanel } from '@/features/revisions/components/comments-panel.tsx';
+import { EarlierComments } from '@/features/revisions/components/earlier-comments.tsx';
 import { FrozenFindings } from '@/features/revisions/components/frozen-findings.tsx';
 import { FrozenPlan } from '@/features/revisions/components/frozen-plan.tsx';
 import { ReviewActions } from '@/features/revisions/components/review-actions.tsx';
@@ -32,6 +33,7 @@ export function ConversionRevisionRoute() {
   const workshop = useWorkshop();
   const mayReview = useCan('revision:review');
   const mayComment = useCan('revision:comment');
+  const mayAnswer = useCan('revision:submit');
   const bench = useRevisionBenchSheet(
     conversion.id,
     number,
@@ -145,6 +147,7 @@ export function ConversionRevisionRoute() {
       {r.changes ? null : frozenPlan}
       {bench.data ? <BenchPhotosPanel sheet={bench.data} /> : null}
       <FrozenFindings findings={r.findings} />
+      <EarlierComments conversionId={conversion.id} revision={r} canAnswer={mayAnswer} />
       <CommentsPanel conversionId={conversion.id} revision={r} canComment={mayComment} />
       {r.changes ? frozenPlan : null}
     </div>

@@ -113,3 +113,19 @@ export function useAddComment(conversionId: number, number: number) {
 
 export const revisionWorksheetHref = (conversionId: number, number: number) =>
   `${base(conversionId)}/${number}/worksheet.pdf`;
+
+/** The builder marks a comment answered (of this revision or an earlier one). */
+export function useMarkAnswered(conversionId: number, number: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (commentId: number) =>
+      api
+        .post<{ comment: ReviewComment }>(
+          `${base(conversionId)}/${number}/comments/${commentId}/answered`,
+          {},
+        )
+        .then((r) => r.comment),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: revisionKeys.detail(conversionId, number) }),
+  });
+}
