@@ -132,11 +132,11 @@ test('a technician sees the feeds read-only', async ({ page }) => {
   await signIn(page, DEMO.technician);
   await openSection(page, 'Ashby yard truck', 'Feeds');
   const table = page.getByRole('table', { name: 'Feeds of this conversion' });
-  await expect(table.getByRole('link', { name: 'Cooling fan' })).toBeVisible();
+  await expect(table.getByRole('link', { name: 'Cooling fan', exact: true })).toBeVisible();
   await expect(page.getByRole('button', { name: 'Add a feed' })).toHaveCount(0);
   await expect(table.getByRole('link', { name: /^Edit/ })).toHaveCount(0);
 
-  await table.getByRole('link', { name: 'Fuel pump' }).click();
+  await table.getByRole('link', { name: 'Fuel pump', exact: true }).click();
   await expect(page.getByRole('heading', { name: 'Feed “Fuel pump”' })).toBeVisible();
   await expect(page.getByText('Read only: your role cannot change feeds.')).toBeVisible();
   await expect(page.getByLabel('Name')).toBeDisabled();

@@ -95,15 +95,7 @@ function MarkdownTable({ table, caption }: { table: Table; caption: string }) {
   );
 }
 
-function Section({
-  id,
-  title,
-  children,
-}: {
-  id: string;
-  title: string;
-  children: ReactNode;
-}) {
+function Section({ id, title, children }: { id: string; title: string; children: ReactNode }) {
   return (
     <section id={id} aria-labelledby={`${id}-heading`} className="flex scroll-mt-6 flex-col gap-3">
       <h2 id={`${id}-heading`} className="text-xl font-semibold">
