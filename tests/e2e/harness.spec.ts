@@ -101,6 +101,27 @@ test('a builder wires the cooling fan circuit from the type-ahead and reads its 
   await page.keyboard.press('Enter');
   await expect(page.getByRole('status').filter({ hasText: `Saved ${w2}` })).toBeVisible();
   await expect(lengthCell).toHaveText('1.4');
+  // The cursor went down a row: Ctrl+D fills the length down, Ctrl+Z takes it back.
+  const belowLength = wireRow(page, w3).getByRole('gridcell').nth(3);
+  await expect(belowLength).toBeFocused();
+  await page.keyboard.press('Control+d');
+  await expect(belowLength).toHaveText('1.4');
+  await expect(page.getByRole('status').filter({ hasText: `Saved ${w3}` })).toBeVisible();
+  await page.keyboard.press('Control+z');
+  await expect(
+    page.getByRole('status').filter({ hasText: `Undid the last change to ${w3}` }),
+  ).toBeVisible();
+  await expect(belowLength).toHaveText('—');
+  // Two lines pasted into the notes go down the column, one wire each.
+  const w3Notes = wireRow(page, w3).getByRole('gridcell').nth(7);
+  await w3Notes.click();
+  await w3Notes.evaluate((cell) => {
+    const data = new DataTransfer();
+    data.setData('text/plain', 'Fan ground, short run\nCoil wire in the loom\n');
+    cell.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true }));
+  });
+  await expect(w3Notes).toHaveText('Fan ground, short run');
+  await expect(wireRow(page, w4).getByRole('gridcell').nth(7)).toHaveText('Coil wire in the loom');
 
   // Someone else changes the wire meanwhile: the grid's next edit is refused and shows their row.
   const wires = (await (await page.request.get('/api/conversions/2/wires')).json()) as {

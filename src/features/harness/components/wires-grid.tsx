@@ -1,15 +1,18 @@
 import { createColumnHelper, tableFeatures, useTable } from '@tanstack/react-table';
-import { useEffect, useRef, useState, type KeyboardEvent } from 'react';
+import { useEffect, useRef, useState, type ClipboardEvent, type KeyboardEvent } from 'react';
 import { Link } from 'react-router-dom';
 import type { Wire, WireEnd } from '#shared/schemas/harness.schema.ts';
-import type { EndOption } from '../lib/end-options.ts';
+import { endText, type EndOption } from '../lib/end-options.ts';
 import {
   WIRE_COLUMNS,
   WIRE_COLUMN_HEADERS,
   WIRE_COLUMN_WIDTHS,
+  cellChange,
   cellText,
+  withEnd,
   type WireColumnId,
 } from '../lib/wire-cells.ts';
+import { pastePatches, type WirePatch } from '../lib/wire-paste.ts';
 import { CellEditor, CellValue, type Leave } from './wire-cell.tsx';
 
 const features = tableFeatures({});
@@ -29,6 +32,9 @@ interface WiresGridProps {
   onText: (wire: Wire, col: WireColumnId, text: string) => void;
   onEnd: (wire: Wire, col: 'endA' | 'endB', end: WireEnd) => void;
   onDelete: (wire: Wire) => void;
+  /** Several cells at once (paste, fill down): one patch per wire, and what could not be read. */
+  onPatches: (patches: Array<{ wire: Wire; patch: WirePatch }>, problems: string[]) => void;
+  onUndo: () => void;
   circuitHref: (wire: Wire) => string | null;
   /** The row to put the cursor on (a wire just added). */
   focusWireId: number | null;
@@ -45,6 +51,7 @@ interface Cursor {
  */
 export function WiresGrid(props: WiresGridProps) {
   const { wires, options, byKey, readOnly, onText, onEnd, onDelete, circuitHref } = props;
+  const { onPatches, onUndo } = props;
   const table = useTable({ features, columns, data: wires, getRowId });
   const rows = table.getRowModel().rows.map((r) => r.original);
   const [cursor, setCursor] = useState<Cursor>({ row: 0, col: 0 });
@@ -121,7 +128,15 @@ export function WiresGrid(props: WiresGridProps) {
     const wire = rows[row];
     const colId = WIRE_COLUMNS[col];
     if (!wire || !colId) return;
-    if (e.key === 'Enter' || e.key === 'F2') {
+    const ctrl = e.ctrlKey || e.metaKey;
+    if (ctrl && e.key.toLowerCase() === 'z') {
+      e.preventDefault();
+      onUndo();
+    } else if (ctrl && e.key.toLowerCase() === 'd') {
+      e.preventDefault();
+      const above = rows[row - 1];
+      if (above) onPatches([{ wire, patch: fillFrom(above, wire, colId) }], []);
+    } else if (e.key === 'Enter' || e.key === 'F2') {
       e.preventDefault();
       setEditing({ seed: null });
     } else if (
@@ -144,6 +159,24 @@ export function WiresGrid(props: WiresGridProps) {
         aria-label="Wires of this conversion"
         aria-rowcount={rows.length + 1}
         onKeyDown={onKeyDown}
+        onCopy={(e: ClipboardEvent) => {
+          const wire = rows[cursor.row];
+          const colId = WIRE_COLUMNS[cursor.col];
+          if (editing || !wire || !colId) return;
+          e.preventDefault();
+          e.clipboardData.setData('text/plain', copyText(wire, colId, byKey));
+        }}
+        onPaste={(e: ClipboardEvent) => {
+          if (editing || readOnly) return;
+          e.preventDefault();
+          const { patches, problems } = pastePatches(
+            rows,
+            cursor,
+            e.clipboardData.getData('text/plain'),
+            options,
+          );
+          onPatches(patches, problems);
+        }}
         className="w-full border-collapse text-sm"
       >
         <thead className="border-b border-rule bg-paper-sunk/60">
@@ -259,4 +292,19 @@ function RowActions({
       )}
     </span>
   );
+}
+
+/** A cell's text as copied: what the grid shows, so it pastes back into the same kind of cell. */
+function copyText(wire: Wire, col: WireColumnId, byKey: ReadonlyMap<string, EndOption>) {
+  if (col === 'endA' || col === 'endB') return endText(wire.ends[col === 'endA' ? 0 : 1], byKey);
+  return cellText(wire, col);
+}
+
+/** Fill down: the cell above's value for this wire. */
+function fillFrom(above: Wire, wire: Wire, col: WireColumnId): WirePatch {
+  if (col === 'endA' || col === 'endB') {
+    return { ends: withEnd(wire, col, above.ends[col === 'endA' ? 0 : 1]) };
+  }
+  const change = cellChange(col, cellText(above, col));
+  return change.ok ? change.patch : {};
 }

@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useMemo, useRef, useState } from 'react';
 import type { CreateWireRequest, Wire, WireEnd } from '#shared/schemas/harness.schema.ts';
 import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
@@ -14,6 +14,7 @@ import { conflictWire, useUpdateWire } from '../api/update-wire.ts';
 import { useWires, wiresCsvHref } from '../api/get-wires.ts';
 import { endOptions } from '../lib/end-options.ts';
 import { cellChange, withEnd, type WireColumnId } from '../lib/wire-cells.ts';
+import { inversePatch, type WirePatch } from '../lib/wire-paste.ts';
 import { AddWireForm } from './add-wire-form.tsx';
 import { GroundPointForm, SpliceForm } from './small-forms.tsx';
 import { WireImport } from './wire-import.tsx';
@@ -46,6 +47,8 @@ export function WiresScreen({ conversionId, readOnly, pins, connectors }: WiresS
   const [focusWireId, setFocusWireId] = useState<number | null>(null);
   // A new key empties the add-wire form for the next wire.
   const [addRound, setAddRound] = useState(0);
+  // What each saved change overwrote, newest last: Ctrl+Z puts it back.
+  const undoStack = useRef<Array<{ wireId: number; label: string; patch: WirePatch }>>([]);
 
   const options = useMemo(
     () =>
@@ -73,12 +76,24 @@ export function WiresScreen({ conversionId, readOnly, pins, connectors }: WiresS
     );
   }
 
-  const save = (wire: Wire, patch: Parameters<typeof updateWire.mutate>[0]['input']) =>
+  const save = (wire: Wire, patch: WirePatch, undoing = false) =>
     updateWire.mutate(
-      { wireId: wire.id, input: patch },
+      { wireId: wire.id, input: { ...patch, version: wire.version } },
       {
-        onSuccess: ({ wire: saved }) =>
-          setMessage({ tone: 'sound', title: `Saved ${saved.label}` }),
+        onSuccess: ({ wire: saved }) => {
+          if (!undoing) {
+            undoStack.current.push({
+              wireId: wire.id,
+              label: saved.label,
+              patch: inversePatch(wire, patch),
+            });
+          }
+          setMessage({
+            tone: 'sound',
+            title: undoing ? `Undid the last change to ${saved.label}` : `Saved ${saved.label}`,
+            body: undoing ? undefined : 'Ctrl+Z in the list puts it back.',
+          });
+        },
         onError: (error) => {
           const current = conflictWire(error);
           setMessage(
@@ -93,13 +108,32 @@ export function WiresScreen({ conversionId, readOnly, pins, connectors }: WiresS
         },
       },
     );
+  const onUndo = () => {
+    const last = undoStack.current.pop();
+    const current = last && wires.data?.find((w) => w.id === last.wireId);
+    if (!last || !current) {
+      setMessage({ tone: 'caution', title: 'Nothing to undo' });
+      return;
+    }
+    save(current, last.patch, true);
+  };
+  const onPatches = (patches: Array<{ wire: Wire; patch: WirePatch }>, problems: string[]) => {
+    for (const { wire, patch } of patches) save(wire, patch);
+    if (problems.length) {
+      setMessage({
+        tone: 'fault',
+        title: 'Some pasted cells were not saved',
+        body: problems.join('; '),
+      });
+    }
+  };
   const onText = (wire: Wire, col: WireColumnId, text: string) => {
     const change = cellChange(col, text);
     if (!change.ok) setMessage({ tone: 'fault', title: change.message });
-    else save(wire, { ...change.patch, version: wire.version });
+    else save(wire, change.patch);
   };
   const onEnd = (wire: Wire, col: 'endA' | 'endB', end: WireEnd) =>
-    save(wire, { ends: withEnd(wire, col, end), version: wire.version });
+    save(wire, { ends: withEnd(wire, col, end) });
   const onDelete = (wire: Wire) => {
     if (!window.confirm(`Delete wire ${wire.label}? Both its ends are let go.`)) return;
     deleteWire.mutate(wire.id, {
@@ -216,7 +250,7 @@ export function WiresScreen({ conversionId, readOnly, pins, connectors }: WiresS
       <p className="text-xs text-ink-faint">
         {readOnly
           ? 'Read only: your role cannot change wires. Arrows move through the list.'
-          : 'Arrows move; Enter or typing edits a cell; Enter saves and goes down, Tab saves and goes right, Escape leaves it as it was. An end is picked from the list: type part of a cavity, splice, ground point, relay or fuse.'}
+          : 'Arrows move; Enter or typing edits a cell; Enter saves and goes down, Tab saves and goes right, Escape leaves it as it was; Ctrl+C, Ctrl+V, Ctrl+D fills down, Ctrl+Z undoes. An end is picked from the list: type part of a cavity, splice, ground point, relay or fuse.'}
       </p>
       <WiresGrid
         wires={wires.data}
@@ -226,6 +260,8 @@ export function WiresScreen({ conversionId, readOnly, pins, connectors }: WiresS
         onText={onText}
         onEnd={onEnd}
         onDelete={onDelete}
+        onPatches={onPatches}
+        onUndo={onUndo}
         circuitHref={circuitHref}
         focusWireId={focusWireId}
       />
