@@ -6,6 +6,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Finding } from '#shared/schemas/checks.schema.ts';
+import { feedBody, HORN_WIRE } from '../factories/feed.factory.ts';
 import { createTestContext, type TestContext } from '../helpers/test-app.ts';
 
 let ctx: TestContext;
@@ -19,27 +20,16 @@ beforeAll(async () => {
 });
 afterAll(() => ctx.close());
 
-const feedBody = (over: Record<string, unknown> = {}) => ({
-  name: 'Work lamp',
-  source: 'battery',
-  sourceFeedId: null,
-  fuseA: 10,
-  relay: null,
-  wire: {
-    sizeMm2: 1.5,
-    insulationRatingC: 105,
-    lengthM: 1,
-    zone: 'cabin',
-    bundled: 1,
-    returnPath: 'wire',
-    colour: 'RD',
-  },
-  loads: [{ pinId: null, name: 'Lamp', currentA: 4, continuous: true }],
-  dropClass: 'general',
-  dropLimitPct: null,
-  notes: '',
-  ...over,
-});
+/** A work lamp on a 10 A fuse, no relay, 1.5 mm² over 1 m with its own return. */
+const lampBody = (over: Record<string, unknown> = {}) =>
+  feedBody({
+    name: 'Work lamp',
+    fuseA: 10,
+    relay: null,
+    wire: { ...HORN_WIRE, lengthM: 1, returnPath: 'wire', colour: 'RD' },
+    loads: [{ pinId: null, name: 'Lamp', currentA: 4, continuous: true }],
+    ...over,
+  });
 
 async function findings(): Promise<Finding[]> {
   const res = await request(ctx.app)
@@ -53,7 +43,7 @@ async function createFeed(over: Record<string, unknown>) {
   const res = await request(ctx.app)
     .post(`/api/conversions/${conversionId}/feeds`)
     .set('Authorization', builder)
-    .send(feedBody(over));
+    .send(lampBody(over));
   expect(res.status).toBe(201);
   return res.body.feed as { id: number; version: number; unfusedLengthMm: number | null };
 }
@@ -101,7 +91,7 @@ describe('fuse placement through the API', () => {
       fuseType: 'bolt_down',
       unfusedLengthMm: 600,
       fuseSheathed: true,
-      wire: { ...feedBody().wire, sizeMm2: 35 },
+      wire: { ...lampBody().wire, sizeMm2: 35 },
     });
     const got = await request(ctx.app)
       .get(`/api/conversions/${conversionId}/feeds/${feed.id}`)
@@ -133,7 +123,7 @@ describe('ECU outputs through the API', () => {
       name: 'Fan by relay',
       fuseA: 30,
       relay: { contactRatingA: 40, coilCurrentA: 0, coilPinId: output.id, coilResistanceOhm: 60 },
-      wire: { ...feedBody().wire, sizeMm2: 6 },
+      wire: { ...lampBody().wire, sizeMm2: 6 },
       loads: [{ pinId: null, name: 'Fan', currentA: 8, continuous: true, kind: 'motor' }],
     });
     const coil = (await findings()).filter(

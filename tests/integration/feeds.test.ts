@@ -1,34 +1,13 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditEvent, Feed, Pin } from '#server/db/models/index.ts';
+import { feedBody } from '../factories/feed.factory.ts';
 import { createOtherWorkshop } from '../factories/workshop.factory.ts';
 import { createTestContext, type TestContext } from '../helpers/test-app.ts';
 
 let ctx: TestContext;
 let builder: string;
 let draftId: number;
-
-const feedBody = (over: Record<string, unknown> = {}) => ({
-  name: 'Horn',
-  source: 'battery',
-  sourceFeedId: null,
-  fuseA: 15,
-  relay: { contactRatingA: 30, coilCurrentA: 0.15, coilPinId: null },
-  wire: {
-    sizeMm2: 1.5,
-    insulationRatingC: 105,
-    lengthM: 2,
-    zone: 'cabin',
-    bundled: 1,
-    returnPath: 'chassis',
-    colour: 'bu/wh',
-  },
-  loads: [{ pinId: null, name: 'Twin horns', currentA: 8, continuous: false }],
-  dropClass: 'general',
-  dropLimitPct: null,
-  notes: '',
-  ...over,
-});
 
 beforeAll(async () => {
   ctx = await createTestContext();

@@ -130,7 +130,8 @@ async function assertLabelFree(
   }
 }
 
-async function writeEnds(wireId: number, ends: readonly WireEnd[], t: Transaction) {
+/** Replaces a wire's two ends (the wire's own row is the caller's). */
+export async function writeEnds(wireId: number, ends: readonly WireEnd[], t: Transaction) {
   await run('DELETE FROM wire_ends WHERE wire_id = :wireId', { wireId }, t);
   for (const [index, end] of ends.entries()) {
     await run(

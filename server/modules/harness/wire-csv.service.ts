@@ -25,6 +25,7 @@ import { recordAudit } from '../audit/audit.service.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
 import { decodeUtf8, readCsv } from '../imports/csv-text.ts';
 import { boxesOf, groundPointsOf, splicesOf, wiresOf } from './harness.repository.ts';
+import { writeEnds } from './harness.service.ts';
 
 export const WIRE_CSV_HEADERS = [
   'label',
@@ -282,33 +283,7 @@ export async function importWires(
         );
         wireId = id as unknown as number;
       }
-      await db().query('DELETE FROM wire_ends WHERE wire_id = :wireId', {
-        replacements: { wireId },
-        transaction: t,
-      });
-      for (const [index, end] of row.ends.entries()) {
-        await db().query(
-          `INSERT INTO wire_ends (wire_id, end_index, kind, pin_id, splice_id, ground_point_id,
-             box_position_id, terminal, source, text)
-           VALUES (:wireId, :index, :kind, :pinId, :spliceId, :groundId, :positionId, :terminal,
-             :source, :text)`,
-          {
-            transaction: t,
-            replacements: {
-              wireId,
-              index,
-              kind: end.kind,
-              pinId: end.kind === 'pin' ? end.refId : null,
-              spliceId: end.kind === 'splice' ? end.refId : null,
-              groundId: end.kind === 'ground' ? end.refId : null,
-              positionId: end.kind === 'relay' || end.kind === 'fuse' ? end.refId : null,
-              terminal: end.kind === 'relay' || end.kind === 'fuse' ? end.terminal : null,
-              source: end.kind === 'source' ? end.source : null,
-              text: end.kind === 'unresolved' ? end.text : '',
-            },
-          },
-        );
-      }
+      await writeEnds(wireId, row.ends, t);
     }
     await recordAudit(t, actor, {
       conversionId,
