@@ -116,9 +116,14 @@ test('a builder wires the cooling fan circuit from the type-ahead and reads its 
   const w3Notes = wireRow(page, w3).getByRole('gridcell').nth(7);
   await w3Notes.click();
   await w3Notes.evaluate((cell) => {
-    const data = new DataTransfer();
+    // The browser's own classes; the node typecheck of this file has no DOM library.
+    const page = globalThis as unknown as {
+      DataTransfer: new () => { setData: (type: string, value: string) => void };
+      ClipboardEvent: new (type: string, init: object) => Event;
+    };
+    const data = new page.DataTransfer();
     data.setData('text/plain', 'Fan ground, short run\nCoil wire in the loom\n');
-    cell.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true }));
+    cell.dispatchEvent(new page.ClipboardEvent('paste', { clipboardData: data, bubbles: true }));
   });
   await expect(w3Notes).toHaveText('Fan ground, short run');
   await expect(wireRow(page, w4).getByRole('gridcell').nth(7)).toHaveText('Coil wire in the loom');
