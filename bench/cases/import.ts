@@ -53,7 +53,8 @@ export async function importCsv(rounds: number): Promise<BenchRow[]> {
     const file = Buffer.from(csv, 'utf8');
     const post = (dryRun: boolean) =>
       request(ctx.app)
-        .post(`/api/conversions/${conversionId}/import${dryRun ? '?dryRun=1' : ''}`)
+        // The generated connectors start with one cavity: applying confirms that they grow.
+        .post(`/api/conversions/${conversionId}/import${dryRun ? '?dryRun=1' : '?grow=1'}`)
         .set(ctx.auth)
         .attach('file', file, { filename: 'bench.csv', contentType: 'text/csv' });
     const papa = async () => {

@@ -52,6 +52,11 @@ export const ImportQuery = z.strictObject({
     .regex(/^[1-9][0-9]{0,5}$/, 'must be a page number from 1')
     .optional()
     .transform((v) => (v === undefined ? 1 : Number(v))),
+  /** The person confirmed the cavities the file adds to connectors that lack them. */
+  grow: z
+    .enum(['0', '1', 'true', 'false'])
+    .optional()
+    .transform((v) => v === '1' || v === 'true'),
 });
 export type ImportQuery = z.output<typeof ImportQuery>;
 
@@ -90,6 +95,23 @@ export interface ImportSummary {
   removed: number;
 }
 
+/** Cavities a file adds to a connector that lacks them: the connector grows. */
+export interface ConnectorGrowth {
+  connector: string;
+  /** Its cavities before the import. */
+  cavityCount: number;
+  /** The cavities the file adds, as written. */
+  cavities: string[];
+}
+
+/** "adds cavity 14 to a 12-cavity connector" */
+export function describeGrowth(g: ConnectorGrowth): string {
+  const list =
+    g.cavities.slice(0, 12).join(', ') +
+    (g.cavities.length > 12 ? ` and ${g.cavities.length - 12} more` : '');
+  return `${g.connector}: adds ${g.cavities.length === 1 ? 'cavity' : 'cavities'} ${list} to a ${g.cavityCount}-cavity connector`;
+}
+
 export interface ColumnMapping {
   header: string;
   target: ColumnTarget;
@@ -108,6 +130,8 @@ export interface ImportResult {
    * its summary alone (this is empty): the wizard has the preview's list already. */
   changes: ImportChange[];
   summary: ImportSummary;
+  /** Connectors the file would give cavities they lack; applying needs `grow=1` then. */
+  growth: ConnectorGrowth[];
   /** False when the file could not be read far enough to say what it would change. */
   planned: boolean;
   notes: string[];

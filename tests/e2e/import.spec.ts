@@ -110,7 +110,15 @@ test('the builder imports a messy pinout, fixes it, exports it and gets the same
   await expect(page.getByText('No problems found')).toBeVisible();
   await expect(page.getByText('What the import would change in connector E9')).toBeVisible();
   await expect(page.getByText('4 cavities added')).toBeVisible();
-  await page.getByRole('button', { name: 'Import 5 rows into connector E9' }).click();
+  // E9 was made with one cavity: the four the file adds are asked about, not slipped in.
+  await expect(
+    page.getByText('E9: adds cavities 2, 3, 4, 5 to a 1-cavity connector'),
+  ).toBeVisible();
+  const importButton = page.getByRole('button', { name: 'Import 5 rows into connector E9' });
+  await expect(importButton).toBeDisabled();
+  await page.screenshot({ path: 'test-results/screens/import-growth.png', fullPage: true });
+  await page.getByLabel('Add these cavities').check();
+  await importButton.click();
   await expect(page.getByText('Imported 5 rows into connector E9')).toBeVisible();
   await expect(page.getByLabel('Connector', { exact: true }).locator('option:checked')).toHaveText(
     /^E9 — ECU side, 5 cavities/,

@@ -44,10 +44,16 @@ async function createConnector(
 function upload(
   path: string,
   content: string | Buffer,
-  options: { dryRun?: boolean; mapping?: object; auth?: string; filename?: string } = {},
+  options: {
+    dryRun?: boolean;
+    mapping?: object;
+    auth?: string;
+    filename?: string;
+    grow?: boolean;
+  } = {},
 ) {
   const req = request(ctx.app)
-    .post(options.dryRun ? `${path}?dryRun=1` : path)
+    .post(options.dryRun ? `${path}?dryRun=1` : options.grow ? `${path}?grow=1` : path)
     .set('Authorization', options.auth ?? builder)
     .attach('file', Buffer.isBuffer(content) ? content : Buffer.from(content, 'utf8'), {
       filename: options.filename ?? 'pinout.csv',
@@ -158,7 +164,17 @@ describe('a messy pinout file', () => {
     const preview = await upload(intoConnector(x1), FIXED, { dryRun: true });
     expect(preview.body.errors).toEqual([]);
     expect(preview.body.summary).toEqual({ added: 2, changed: 3, unchanged: 0, removed: 0 });
-    const res = await upload(intoConnector(x1), FIXED);
+    // Cavities 4 and 5 are not on the 3-cavity X1: the preview says so, and applying waits for a yes.
+    expect(preview.body.growth).toEqual([
+      { connector: 'X1', cavityCount: 3, cavities: ['4', '5'] },
+    ]);
+    const unconfirmed = await writeState();
+    const refused = await upload(intoConnector(x1), FIXED);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.code).toBe('confirm_growth');
+    expect(refused.body.error.message).toContain('X1: adds cavities 4, 5 to a 3-cavity connector');
+    expect(await writeState()).toEqual(unconfirmed);
+    const res = await upload(intoConnector(x1), FIXED, { grow: true });
     expect(res.status).toBe(200);
     expect(res.body.imported).toBe(5);
     const pins = (await pinsOf(conversionId)).filter((p) => p.connectorId === x1);
@@ -269,7 +285,7 @@ describe('large files', () => {
     for (let c = 1; c <= 5; c++) {
       for (let i = 1; i <= 400; i++) csv += `G${c},${i},Circuit ${c}.${i},BU/WH,0.5,keep\n`;
     }
-    const res = await upload(intoConversion(conversion), csv);
+    const res = await upload(intoConversion(conversion), csv, { grow: true });
     expect(res.status).toBe(200);
     expect(res.body.imported).toBe(2000);
     expect(res.body.summary).toEqual({ added: 1995, changed: 5, unchanged: 0, removed: 0 });

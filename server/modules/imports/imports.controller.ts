@@ -13,7 +13,7 @@ function mappingField(req: Request): unknown {
 }
 
 async function runImport(req: Request, res: Response, target: ImportTarget) {
-  const { dryRun, page } = parsedQuery<ImportQuery>(req);
+  const { dryRun, page, grow } = parsedQuery<ImportQuery>(req);
   const result = await importPinout(
     actorOf(req),
     target,
@@ -21,6 +21,7 @@ async function runImport(req: Request, res: Response, target: ImportTarget) {
     mappingField(req),
     dryRun,
     page,
+    grow,
   );
   res.json(result);
 }

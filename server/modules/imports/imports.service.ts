@@ -1,10 +1,12 @@
 import { createHash } from 'node:crypto';
 import { QueryTypes, type Transaction } from 'sequelize';
 import {
+  describeGrowth,
   MAX_IMPORT_ERRORS_LISTED,
   MAX_IMPORT_ROWS,
   PREVIEW_PAGE_ROWS,
   type ColumnTarget,
+  type ConnectorGrowth,
   type ImportField,
   type ImportIssue,
   type ImportResult,
@@ -259,6 +261,24 @@ function byRow(a: ImportIssue, b: ImportIssue): number {
   return (a.row ?? 0) - (b.row ?? 0);
 }
 
+function growthOf(plan: Plan | null): ConnectorGrowth[] {
+  return (plan?.connectors ?? []).flatMap((c) =>
+    c.grows ? [{ connector: c.label, cavityCount: c.grows.from, cavities: c.grows.cavities }] : [],
+  );
+}
+
+/** Applying a file that grows a connector needs the person's say-so from the preview. */
+function assertGrowthConfirmed(plan: Plan, allowGrowth: boolean) {
+  const growth = growthOf(plan);
+  if (!growth.length || allowGrowth) return;
+  throw new AppError(
+    409,
+    'confirm_growth',
+    `${growth.map(describeGrowth).join('; ')}. Nothing was imported: confirm the new cavities in the preview, or correct the cavity numbers.`,
+    { growth },
+  );
+}
+
 function buildResult(
   where: Where,
   checked: Checked,
@@ -276,6 +296,7 @@ function buildResult(
     errorCount: errors.length,
     changes: plan?.changes ?? [],
     summary: plan?.summary ?? { added: 0, changed: 0, unchanged: 0, removed: 0 },
+    growth: growthOf(plan),
     planned: plan !== null,
     notes: checked.notes,
     mapping: checked.mapping,
@@ -457,6 +478,7 @@ export async function importPinout(
   mappingField: unknown,
   dryRun: boolean,
   page = 1,
+  allowGrowth = false,
 ): Promise<ImportResult> {
   const given = parseMappingField(mappingField);
   const where = await locate(actor, target);
@@ -482,6 +504,7 @@ export async function importPinout(
   const preview = buildResult(where, checked, plan, dryRun, previous, page);
   if (dryRun) return preview;
   if (preview.errorCount > 0 || !plan) throw refused(preview);
+  assertGrowthConfirmed(plan, allowGrowth);
 
   const applied = await inTransaction(db(), async (t) => {
     const unchanged = (await changeCounterIn(where.conversionId, t)) === counter;
@@ -497,6 +520,7 @@ export async function importPinout(
     if (fresh.errors.length) {
       throw refused(buildResult(where, checked, fresh, false, previous));
     }
+    assertGrowthConfirmed(fresh, allowGrowth);
     await writePlan(fresh, where.conversionId, t);
     await PinImport.create(
       {

@@ -6,7 +6,8 @@
  * Semantics for a connector the file names (docs/decisions/0005-pinout-import-and-file-storage.md):
  * - a row whose cavity the connector has updates that pin, field by field, in the columns the file
  *   has (a column the file lacks leaves that field alone);
- * - a row for a cavity the connector lacks adds the cavity (the connector grows, its face too);
+ * - a row for a cavity the connector lacks adds the cavity (the connector grows, its face too),
+ *   which applying does only when the person confirmed it (`grow=1`) after the preview named it;
  * - a cavity of the connector that the file does not name is removed if it is blank; if it holds
  *   anything, or other pins or feeds point at it, the import is refused naming those cavities.
  */
@@ -73,6 +74,8 @@ export interface ConnectorPlan {
   cavityCount: number;
   rows: number;
   columns: number;
+  /** Cavities added to a connector that already had some (it grows): to be confirmed. */
+  grows: { from: number; cavities: string[] } | null;
 }
 
 export interface Plan {
@@ -337,6 +340,7 @@ function* planInSteps(
       cavityCount: connector.cavityCount,
       rows: connector.rows,
       columns: connector.columns,
+      grows: null,
     };
     const kept = new Map<number, PinData>();
     const newVersions = new Map<number, PinData>();
@@ -408,6 +412,10 @@ function* planInSteps(
       else if (pin.position !== position) plan.updates.push({ ...pin, position });
     });
     addsInOrder.forEach((add, i) => plan.adds.push({ ...add, position: staying.length + i }));
+    // A connector that had cavities and gets new ones from the file grows: the person confirms it.
+    if (existing.length > 0 && addsInOrder.length > 0) {
+      plan.grows = { from: connector.cavityCount, cavities: addsInOrder.map((a) => a.cavity) };
+    }
     plan.cavityCount = staying.length + plan.adds.length;
     if (plan.cavityCount > MAX_CAVITIES) {
       errors.push({

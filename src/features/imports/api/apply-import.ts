@@ -7,7 +7,10 @@ import { importKeys } from './keys.ts';
 
 /** POST …/import: all of the file in one transaction, or nothing (422 with the problems). */
 export const applyImport = (target: ImportTarget, input: ImportInput) =>
-  api.post<ImportResult>(importUrl(target, false), importForm(input));
+  api.post<ImportResult>(
+    `${importUrl(target, false)}${input.grow ? '?grow=1' : ''}`,
+    importForm(input),
+  );
 
 /** The problems of a refused import (422), in the same shape as a preview. */
 export function refusedResult(error: unknown): Omit<ImportResult, 'table'> | null {

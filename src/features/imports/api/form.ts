@@ -6,6 +6,8 @@ export interface ImportInput {
   mapping?: ColumnMapping[];
   /** Preview only: which page of the file's lines to show, from 1. */
   page?: number;
+  /** Applying only: the person confirmed the cavities the file adds to a connector. */
+  grow?: boolean;
 }
 
 /** The multipart body: the file in `file`, the choices as JSON {header: field} in `mapping`. */

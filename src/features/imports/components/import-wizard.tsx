@@ -1,6 +1,11 @@
 import { useId, useMemo, useState, type ChangeEvent } from 'react';
 import { Link } from 'react-router-dom';
-import type { ColumnMapping, ColumnTarget, ImportResult } from '#shared/schemas/imports.schema.ts';
+import {
+  describeGrowth,
+  type ColumnMapping,
+  type ColumnTarget,
+  type ImportResult,
+} from '#shared/schemas/imports.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
@@ -39,6 +44,8 @@ export function ImportWizard({
   const [file, setFile] = useState<File | null>(null);
   const [result, setResult] = useState<ImportResult | null>(null);
   const [mapping, setMapping] = useState<ColumnMapping[]>([]);
+  // The cavities a file adds to a connector that lacks them are confirmed, never slipped in.
+  const [growthConfirmed, setGrowthConfirmed] = useState(false);
   // Cleared by apply.reset() whenever a file is checked.
   const applied = apply.data;
 
@@ -52,6 +59,7 @@ export function ImportWizard({
 
   function check(next: File, choices?: ColumnMapping[], page = 1) {
     apply.reset();
+    if (page === 1) setGrowthConfirmed(false);
     preview.mutate(
       { file: next, mapping: choices, page },
       {
@@ -79,11 +87,20 @@ export function ImportWizard({
 
   function applyFile() {
     if (!file || !result) return;
-    apply.mutate({ file, mapping: result.mapping }, { onSuccess: () => setResult(null) });
+    apply.mutate(
+      { file, mapping: result.mapping, grow: growthConfirmed },
+      { onSuccess: () => setResult(null) },
+    );
   }
 
   const errorCount = shown?.errorCount ?? 0;
-  const canApply = !!shown && errorCount === 0 && !mappingChanged && shown.rows > 0;
+  const growth = shown?.growth ?? [];
+  const canApply =
+    !!shown &&
+    errorCount === 0 &&
+    !mappingChanged &&
+    shown.rows > 0 &&
+    (growth.length === 0 || growthConfirmed);
   const into = targetName(target);
 
   return (
@@ -224,6 +241,30 @@ export function ImportWizard({
               partial={index.problemRows.size > 0}
             />
           ) : null}
+          {growth.length && errorCount === 0 ? (
+            <Notice tone="caution" title="The file adds cavities a connector does not have">
+              <ul className="list-disc pl-5">
+                {growth.map((g) => (
+                  <li key={g.connector}>{describeGrowth(g)}</li>
+                ))}
+              </ul>
+              <p className="mt-1">
+                Often a typing slip in the cavity column. If the connector really has them, confirm
+                and it grows, face and all.
+              </p>
+              <label className="mt-2 flex items-center gap-2 font-medium text-ink">
+                <input
+                  type="checkbox"
+                  checked={growthConfirmed}
+                  onChange={(e) => setGrowthConfirmed(e.target.checked)}
+                />
+                Add{' '}
+                {growth.length === 1 && growth[0]!.cavities.length === 1
+                  ? 'this cavity'
+                  : 'these cavities'}
+              </label>
+            </Notice>
+          ) : null}
           <div className="flex flex-wrap items-center gap-3 border-t border-rule pt-4">
             <Button
               variant="primary"
@@ -238,7 +279,9 @@ export function ImportWizard({
                 ? 'Importing is possible once the file has no problems: all rows go in together, or none.'
                 : mappingChanged
                   ? 'Check the file again with your column choices first.'
-                  : 'All rows go in together in one step; your column choices are remembered.'}
+                  : growth.length && !growthConfirmed
+                    ? 'Confirm the new cavities above first, or correct the file.'
+                    : 'All rows go in together in one step; your column choices are remembered.'}
             </span>
           </div>
         </div>
