@@ -6,7 +6,6 @@ import { flushSync } from 'react-dom';
 import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
 import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
-import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
@@ -26,12 +25,13 @@ import { destinationCavities, toPinRows, type DestinationFeed } from '../lib/row
 import { ColumnMenu } from './column-menu.tsx';
 import { ConnectorCard } from './connector-card.tsx';
 import { ConnectorForm, type ConnectorFormValues } from './connector-form.tsx';
-import { DispositionTally } from './disposition-tally.tsx';
 import { FilterBar } from './filter-bar.tsx';
 import { PinGrid, type PinGridHandle } from './pin-grid.tsx';
 import { PinMapMessages } from './pin-map-messages.tsx';
 import { SelectionToolbar } from './selection-toolbar.tsx';
 import { UndecidedList } from './undecided-list.tsx';
+import { KeyHelp } from './key-help.tsx';
+import { FirstRunPanel, FromLibraryPanel, PinMapHeader } from './pin-map-header.tsx';
 import { plural } from '@/lib/plural.ts';
 
 const EMPTY_COUNTS = countDispositions([]);
@@ -201,52 +201,16 @@ function PinMap({
 
   return (
     <div className="flex flex-col gap-5">
-      <section
-        aria-label="Progress of the whole conversion"
-        className="flex flex-wrap items-start gap-x-8 gap-y-3"
-      >
-        <div className="min-w-72 flex-1">
-          <h2 className="mb-1.5 text-lg font-semibold">Pin map</h2>
-          <DispositionTally counts={counts} />
-        </div>
-        <div className="flex flex-wrap items-center gap-2">
-          <p role="status" className={`text-sm text-ink-soft ${readOnly ? 'hidden' : ''}`}>
-            {editing.saving ? (
-              <span className="inline-flex items-center gap-1.5">
-                <span
-                  aria-hidden
-                  className="size-3 animate-spin rounded-full border-2 border-copper border-t-transparent"
-                />
-                Saving…
-              </span>
-            ) : (
-              <span>
-                <span aria-hidden>✓ </span>All changes saved
-              </span>
-            )}
-          </p>
-          {readOnly ? null : (
-            <>
-              <Button
-                onClick={editing.undo}
-                disabled={!editing.canUndo}
-                title={
-                  editing.nextUndo ? `Undo ${editing.nextUndo} (Ctrl+Z in the grid)` : undefined
-                }
-              >
-                <span aria-hidden>↶</span> Undo
-                {editing.nextUndo ? <span className="sr-only"> {editing.nextUndo}</span> : null}
-              </Button>
-              {renderFromLibrary ? (
-                <Button onClick={openLibrary}>Add from the pinout library</Button>
-              ) : null}
-              <Button variant="primary" onClick={openBlank}>
-                Add connector
-              </Button>
-            </>
-          )}
-        </div>
-      </section>
+      <PinMapHeader
+        counts={counts}
+        readOnly={readOnly}
+        saving={editing.saving}
+        canUndo={editing.canUndo}
+        nextUndo={editing.nextUndo}
+        onUndo={editing.undo}
+        onFromLibrary={renderFromLibrary ? openLibrary : null}
+        onAddConnector={openBlank}
+      />
 
       {readOnly ? (
         <Notice tone="info" title="Read only">
@@ -270,58 +234,17 @@ function PinMap({
       ) : null}
 
       {fromLibrary && renderFromLibrary && !readOnly ? (
-        <section
-          aria-labelledby="from-library-heading"
-          className="flex flex-col gap-3 rounded-lg border border-rule bg-paper-raised p-5"
-        >
-          <div className="flex items-start justify-between gap-3">
-            <div>
-              <h2 id="from-library-heading" className="text-lg font-semibold">
-                Add a connector from the pinout library
-              </h2>
-              <p className="text-sm text-ink-soft">
-                Its cavities, face and pin details come from the template; change them afterwards as
-                you like.
-              </p>
-            </div>
-            <Button variant="quiet" onClick={() => setFromLibrary(false)}>
-              Cancel
-            </Button>
-          </div>
+        <FromLibraryPanel onCancel={() => setFromLibrary(false)}>
           {renderFromLibrary(connectorAdded)}
-        </section>
+        </FromLibraryPanel>
       ) : null}
 
       {connectors.length === 0 && !readOnly && !form && !fromLibrary ? (
-        <section
-          aria-labelledby="first-run-heading"
-          className="flex flex-col gap-3 rounded-lg border-2 border-dashed border-rule-strong bg-paper-raised p-6"
-        >
-          <h2 id="first-run-heading" className="text-lg font-semibold">
-            Add the donor&rsquo;s ECU connectors: from the library, by CSV, or by hand
-          </h2>
-          <p className="max-w-3xl text-ink-soft">
-            Each connector brings its cavities to the grid below, where every pin gets its function,
-            wire and disposition. A connector the workshop has mapped before is in the pinout
-            library; a pinout sheet can be imported as CSV; anything else, add by hand.
-          </p>
-          <div className="flex flex-wrap gap-2">
-            {renderFromLibrary ? (
-              <Button variant="primary" onClick={openLibrary}>
-                From the pinout library
-              </Button>
-            ) : null}
-            {importHref ? (
-              <Link
-                to={importHref}
-                className="rounded-md border border-rule-strong bg-paper px-4 py-2 font-medium hover:bg-paper-sunk"
-              >
-                Import a CSV
-              </Link>
-            ) : null}
-            <Button onClick={openBlank}>By hand</Button>
-          </div>
-        </section>
+        <FirstRunPanel
+          onFromLibrary={renderFromLibrary ? openLibrary : null}
+          importHref={importHref}
+          onByHand={openBlank}
+        />
       ) : null}
 
       <details open aria-labelledby="faces-heading">
@@ -438,32 +361,5 @@ function PinMap({
         </>
       )}
     </div>
-  );
-}
-
-function Key({ children }: { children: string }) {
-  return (
-    <kbd className="rounded border border-rule-strong bg-paper-raised px-1 font-mono text-[0.75rem]">
-      {children}
-    </kbd>
-  );
-}
-
-function KeyHelp({ readOnly }: { readOnly: boolean }) {
-  return (
-    <p id="pin-grid-keys" className="text-xs leading-relaxed text-ink-faint">
-      <Key>↑</Key> <Key>↓</Key> <Key>←</Key> <Key>→</Key> and <Key>Tab</Key> move · <Key>Shift</Key>
-      +arrows or Shift+click mark cells · <Key>↑</Key> from the first row reaches the headings,
-      where <Key>Enter</Key> sorts · <Key>Ctrl</Key>+<Key>C</Key> copies
-      {readOnly ? null : (
-        <>
-          {' '}
-          · <Key>Enter</Key> or <Key>F2</Key> edits, or just type · <Key>Esc</Key> cancels ·{' '}
-          <Key>Delete</Key> empties · <Key>Ctrl</Key>+<Key>V</Key> pastes a block from a spreadsheet
-          · <Key>Ctrl</Key>+<Key>D</Key> fills down · <Key>Ctrl</Key>+<Key>Z</Key> undoes ·{' '}
-          <Key>Space</Key> on the first column selects the row
-        </>
-      )}
-    </p>
   );
 }
