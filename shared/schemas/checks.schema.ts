@@ -35,6 +35,10 @@ export const CHECK_RULES = [
   'fuel_pump_cutoff',
   'coil_without_supply',
   'lamp_output_led',
+  'main_relay_plain_ignition',
+  'power_ground_unreached',
+  'ground_strap_small',
+  'sensor_ground_to_power_ground',
 ] as const;
 export type CheckRule = (typeof CHECK_RULES)[number];
 

@@ -10,6 +10,7 @@ import { checkFeed } from './feed-rules.ts';
 import {
   checkCanTerminations,
   checkCoilSupplies,
+  checkEcuPowerAndGrounds,
   checkFuelPump,
   checkLampOutputs,
   checkPulseSignals,
@@ -68,6 +69,7 @@ export function storedFindings(snapshot: ConversionSnapshot, options: CheckOptio
     ...checkFuelPump(ctx, graph),
     ...checkCoilSupplies(ctx, graph),
     ...checkLampOutputs(ctx, graph),
+    ...checkEcuPowerAndGrounds(ctx, graph),
     ...(graph
       ? [
           ...powerPinsByWire(ctx, graph),

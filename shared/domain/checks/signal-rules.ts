@@ -4,6 +4,7 @@
  * dangerous. Each says what to do; each names its source or says it is common practice.
  */
 import type { Finding } from '../../schemas/checks.schema.ts';
+import { wireAmpacity } from '../electrical/ampacity.ts';
 import type { SnapshotPin } from '../../schemas/snapshot.schema.ts';
 import { PULSE_SIGNAL_LABELS } from '../fields/text-parsers.ts';
 import type { HarnessGraph } from '../harness/circuit-graph.ts';
@@ -354,6 +355,135 @@ export function checkLampOutputs(ctx: CheckContext, graph: HarnessGraph | null):
         subject: { pinIds: [out.id, far.id] },
         title: 'Lamp output driving an LED',
         message: `${ctx.pinName(out)} (${out.function}) drives an LED through ${ctx.pinName(far)}. Some ECUs test the lamp circuit and set a fault when they see no filament: if yours does, fit a resistor across the LED so the ECU sees a load.`,
+        values: {},
+        working: [],
+        sourceIds: ['common-practice'],
+      }),
+    );
+  }
+  return findings;
+}
+
+/**
+ * ECU power and grounds: the relay feeding the ECU's power pins is switched by the ECU's own
+ * relay-control output, every power ground reaches a ground point, the ground point's strap
+ * carries what the ECU's feeds draw, and no sensor ground is joined to a power ground.
+ */
+export function checkEcuPowerAndGrounds(ctx: CheckContext, graph: HarnessGraph | null): Finding[] {
+  if (!graph) return [];
+  const findings: Finding[] = [];
+  const onEcu = (p: SnapshotPin) => ctx.connectors.get(p.connectorId)?.side === 'ecu';
+  const ecuPower = ctx.snapshot.pins.filter(
+    (p) =>
+      onEcu(p) &&
+      p.signalClass === 'power_feed' &&
+      p.disposition !== 'depin' &&
+      p.disposition !== 'cut',
+  );
+
+  // The main relay: a relay whose 87 is wired to an ECU power pin.
+  for (const box of graph.harness.boxes) {
+    for (const position of box.positions) {
+      if (position.kind !== 'relay') continue;
+      const node = `relay:${position.id}`;
+      const edges = graph.adjacency.get(node) ?? [];
+      const at = (e: (typeof edges)[number]) => (e.from === node ? e.fromTerminal : e.toTerminal);
+      const far = (e: (typeof edges)[number]) => (e.from === node ? e.to : e.from);
+      const feedsEcu = edges.some(
+        (e) => at(e) === '87' && ecuPower.some((p) => far(e) === `pin:${p.id}`),
+      );
+      if (!feedsEcu) continue;
+      const coil = edges.filter((e) => at(e) === '85' || at(e) === '86');
+      const byEcu = coil.some((e) => {
+        const n = far(e);
+        const pin = n.startsWith('pin:') ? ctx.pins.get(Number(n.split(':')[1])) : undefined;
+        return pin != null && onEcu(pin);
+      });
+      if (byEcu || coil.length === 0) continue;
+      findings.push(
+        finding({
+          rule: 'main_relay_plain_ignition',
+          severity: 'warning',
+          subject: { pinIds: ecuPower.map((p) => p.id) },
+          title: 'ECU main relay switched by plain ignition',
+          message: `Relay ${position.label} feeds the ECU's power pins but its coil is not driven by the ECU. Where the donor ECU has a main-relay control output, wire the coil to it: the ECU keeps itself powered after key-off to save its learned values and park its actuators.`,
+          values: { relay: value('Relay', `${box.label} ${position.label}`) },
+          working: [],
+          sourceIds: ['common-practice'],
+        }),
+      );
+    }
+  }
+
+  const ecuGrounds = ctx.snapshot.pins.filter(
+    (p) => onEcu(p) && p.signalClass === 'power_ground' && graph.isWired(p.id),
+  );
+  // What the ECU's own feeds carry returns through its power grounds.
+  const ecuFeeds = ctx.snapshot.feeds.filter((f) =>
+    f.loads.some((l) => l.pinId != null && ecuPower.some((p) => p.id === l.pinId)),
+  );
+  const returnA = ecuFeeds.reduce((sum, f) => sum + ctx.current(f).totalA, 0);
+  const straps = new Map<number, string[]>();
+  for (const pin of ecuGrounds) {
+    const reached = graph.groundsReached(pin.id);
+    if (reached.length === 0) {
+      findings.push(
+        finding({
+          rule: 'power_ground_unreached',
+          severity: 'error',
+          subject: { pinIds: [pin.id] },
+          title: 'ECU power ground reaches no ground point',
+          message: `${ctx.pinName(pin)} (${pin.function || 'power ground'}) is wired but its wires end at no ground point. Run it to the engine block or chassis ground it is meant for.`,
+          values: {},
+          working: [],
+          sourceIds: ['common-practice'],
+        }),
+      );
+      continue;
+    }
+    for (const r of reached)
+      straps.set(r.groundId, [...(straps.get(r.groundId) ?? []), ctx.pinName(pin)]);
+  }
+  for (const [groundId, pins] of straps) {
+    const g = graph.harness.groundPoints.find((x) => x.id === groundId);
+    if (!g?.strapSizeMm2 || returnA <= 0) continue;
+    const rating = wireAmpacity({
+      areaMm2: g.strapSizeMm2,
+      insulationRatingC: 105,
+      zone: g.location === 'engine_block' ? 'engine_bay' : 'cabin',
+    });
+    if (rating.ampacityA >= returnA) continue;
+    findings.push(
+      finding({
+        rule: 'ground_strap_small',
+        severity: 'warning',
+        subject: {
+          pinIds: ecuGrounds.filter((p) => pins.includes(ctx.pinName(p))).map((p) => p.id),
+        },
+        title: `Ground strap at ${g.label} smaller than the ECU's return current`,
+        message: `${g.label}'s strap (${ctx.size(g.strapSizeMm2)}, ${fmt(rating.ampacityA, 1)} A) takes the ECU's power grounds ${pins.join(', ')}, which return ${fmt(returnA)} A. Fit a heavier strap.`,
+        values: {
+          strapA: value('Strap ampacity', rating.ampacityA, 'A', 1),
+          returnA: value('Return current', returnA, 'A'),
+        },
+        working: rating.notes,
+        sourceIds: rating.sources,
+      }),
+    );
+  }
+
+  // A sensor ground joined straight to a power ground.
+  for (const [a, b] of pinPairs(ctx, graph)) {
+    const [sensor, power] =
+      a.signalClass === 'sensor_ground' ? [a, b] : b.signalClass === 'sensor_ground' ? [b, a] : [];
+    if (!sensor || !power || power.signalClass !== 'power_ground') continue;
+    findings.push(
+      finding({
+        rule: 'sensor_ground_to_power_ground',
+        severity: 'warning',
+        subject: { pinIds: [sensor.id, power.id] },
+        title: 'Sensor ground joined to a power ground',
+        message: `${ctx.pinName(sensor)} (sensor ground) is wired to ${ctx.pinName(power)} (power ground). Power-ground current shifts every sensor reading that returns on it: keep sensor grounds on the ECU's own sensor-ground pins.`,
         values: {},
         working: [],
         sourceIds: ['common-practice'],

@@ -230,3 +230,120 @@ describe('shields, references, regulated circuits, the fuel pump, coils and lamp
     expect(rulesOf(s, 'lamp_output_led')[0]?.severity).toBe('note');
   });
 });
+
+describe('ECU power and grounds (common practice, no source)', () => {
+  const wire = (id: number, a: object, b: object) => ({
+    id,
+    conversionId: 1,
+    label: `W-${String(id).padStart(3, '0')}`,
+    colour: '',
+    sizeMm2: 1.5,
+    insulationRatingC: 105,
+    lengthM: 1,
+    zone: 'engine_bay' as const,
+    branch: '',
+    notes: '',
+    ends: [a, b] as SnapshotHarness['wires'][number]['ends'],
+  });
+
+  it('asks for the main relay to be driven by the ECU, not plain ignition', () => {
+    const s = snapshot({
+      pins: [
+        { function: 'ECU main feed', signalClass: 'power_feed', disposition: 'join' },
+        { function: 'Main relay control', signalClass: 'output_signal' },
+      ],
+    });
+    s.harness = harness({
+      boxes: [
+        {
+          id: 1,
+          conversionId: 1,
+          label: 'Box',
+          notes: '',
+          positions: [
+            {
+              id: 5,
+              kind: 'relay',
+              label: 'R1',
+              contactRatingA: 30,
+              coilResistanceOhm: null,
+              feedId: null,
+            },
+          ],
+        },
+      ],
+      wires: [
+        wire(1, { kind: 'relay', refId: 5, terminal: '87' }, { kind: 'pin', refId: 1 }),
+        wire(
+          2,
+          { kind: 'source', source: 'ignition' },
+          { kind: 'relay', refId: 5, terminal: '86' },
+        ),
+        wire(3, { kind: 'relay', refId: 5, terminal: '85' }, { kind: 'source', source: 'battery' }),
+      ],
+    });
+    expect(rulesOf(s, 'main_relay_plain_ignition')).toHaveLength(1);
+    s.harness.wires[2] = wire(
+      3,
+      { kind: 'relay', refId: 5, terminal: '85' },
+      { kind: 'pin', refId: 2 },
+    );
+    expect(rulesOf(s, 'main_relay_plain_ignition')).toHaveLength(0);
+  });
+
+  it('finds a power ground that ends nowhere, a strap too small for the ECU, and a sensor ground on a power ground', () => {
+    const s = snapshot({
+      pins: [
+        { function: 'ECU main feed', signalClass: 'power_feed', disposition: 'join' },
+        { function: 'Power ground 1', signalClass: 'power_ground', disposition: 'join' },
+        { function: 'Sensor ground', signalClass: 'sensor_ground', disposition: 'join' },
+      ],
+      feeds: [
+        {
+          loads: [{ id: 1, pinId: 1, name: 'ECU', currentA: 30, continuous: true }],
+          fuseA: 40,
+          wire: {
+            sizeMm2: 6,
+            insulationRatingC: 105,
+            lengthM: 1,
+            zone: 'cabin',
+            bundled: 1,
+            returnPath: 'wire',
+            colour: '',
+          },
+        },
+      ],
+    });
+    s.harness = harness({
+      splices: [
+        {
+          id: 1,
+          conversionId: 1,
+          label: 'S-01',
+          sealed: true,
+          branch: '',
+          distanceMm: null,
+          notes: '',
+        },
+      ],
+      wires: [wire(1, { kind: 'pin', refId: 2 }, { kind: 'splice', refId: 1 })],
+    });
+    expect(rulesOf(s, 'power_ground_unreached')[0]?.severity).toBe('error');
+    // [C] a 1 mm² strap on the block rates as 18 AWG, 20 × 0.85 = 17 A < the ECU feed's 30 A.
+    s.harness.groundPoints.push({
+      id: 1,
+      conversionId: 1,
+      label: 'G-1',
+      location: 'engine_block',
+      strapSizeMm2: 1,
+      notes: '',
+    });
+    s.harness.wires.push(wire(2, { kind: 'splice', refId: 1 }, { kind: 'ground', refId: 1 }));
+    expect(rulesOf(s, 'power_ground_unreached')).toHaveLength(0);
+    const [strap] = rulesOf(s, 'ground_strap_small');
+    expect(strap?.values.strapA?.value).toBeCloseTo(17, 1);
+    expect(strap?.values.returnA?.value).toBe(30);
+    s.harness.wires.push(wire(3, { kind: 'pin', refId: 3 }, { kind: 'pin', refId: 2 }));
+    expect(rulesOf(s, 'sensor_ground_to_power_ground')).toHaveLength(1);
+  });
+});
