@@ -231,6 +231,20 @@ test('the box screen draws each position with what its terminals are wired to, a
   await expect(f6).toContainText('Mini blade fuse');
   // The positions kept their ids: R1 is still wired.
   await expect(r1Supply).toContainText('W-002');
+
+  // A second box, by the cab, with one relay.
+  await page.getByRole('button', { name: 'Add a box' }).click();
+  const boxForm = page.getByRole('form', { name: 'Add a box' });
+  await boxForm.getByLabel('Name').fill('Cab box');
+  await boxForm.getByLabel('Where it sits').fill('Behind the passenger kick panel');
+  await boxForm.getByRole('button', { name: 'Add box' }).click();
+  const cabForm = page.getByRole('form', { name: 'Positions of Cab box' });
+  await cabForm.getByRole('button', { name: 'Add a relay' }).click();
+  await cabForm.getByLabel('Contact rating of R1').fill('20');
+  await cabForm.getByRole('button', { name: 'Save positions' }).click();
+  const cab = page.getByRole('region', { name: 'Box Cab box' });
+  await expect(cab.getByRole('listitem', { name: 'Relay R1' })).toContainText('contacts 20 A');
+  await page.screenshot({ path: `${SCREENS}/box-second.png`, fullPage: true });
 });
 
 test('a pin of the pin map opens its circuit', async ({ page }) => {

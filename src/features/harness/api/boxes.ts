@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { Box, UpdateBoxRequest } from '#shared/schemas/harness.schema.ts';
+import type { Box, CreateBoxRequest, UpdateBoxRequest } from '#shared/schemas/harness.schema.ts';
 import { api, ApiError } from '@/lib/api-client.ts';
 import { harnessKeys } from './keys.ts';
 
@@ -36,5 +36,16 @@ export function useUpdateBox(conversionId: number) {
       const current = conflictBox(error);
       if (current) replace(current);
     },
+  });
+}
+
+export const createBox = (conversionId: number, input: CreateBoxRequest) =>
+  api.post<{ box: Box }>(`/api/conversions/${conversionId}/boxes`, input);
+
+export function useCreateBox(conversionId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CreateBoxRequest) => createBox(conversionId, input),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: harnessKeys.boxes(conversionId) }),
   });
 }

@@ -52,6 +52,9 @@ export function BoxCard({ box, terminals, byKey, feedName }: BoxCardProps) {
     <section aria-label={`Box ${box.label}`} className="grid gap-3">
       <h2 className="text-lg font-semibold">{box.label}</h2>
       {box.notes ? <p className="text-sm text-ink-soft">{box.notes}</p> : null}
+      {box.positions.length === 0 ? (
+        <p className="text-sm text-ink-faint">No fuses or relays in this box yet.</p>
+      ) : null}
       <ul className="grid gap-3 rounded-lg border-2 border-ink/70 bg-paper-sunk/50 p-3 sm:grid-cols-2 xl:grid-cols-4">
         {box.positions.map((p) => {
           const feed = feedName(p.feedId);

@@ -3,12 +3,13 @@ import type { Connector, Pin } from '#shared/schemas/pin-map.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { Loading } from '@/components/ui/loading.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
-import { conflictBox, useBoxes, useUpdateBox } from '../api/boxes.ts';
+import { conflictBox, useBoxes, useCreateBox, useUpdateBox } from '../api/boxes.ts';
 import { useWires } from '../api/get-wires.ts';
 import { useGroundPoints } from '../api/ground-points.ts';
 import { useSplices } from '../api/splices.ts';
 import { wiresByTerminal } from '../lib/box-terminals.ts';
 import { endOptions } from '../lib/end-options.ts';
+import { AddBoxForm } from './add-box-form.tsx';
 import { BoxCard } from './box-card.tsx';
 import { BoxPositionsForm } from './box-positions-form.tsx';
 
@@ -30,6 +31,8 @@ export function BoxScreen({ conversionId, readOnly, pins, connectors, feedNames 
   const splices = useSplices(conversionId);
   const grounds = useGroundPoints(conversionId);
   const update = useUpdateBox(conversionId);
+  const create = useCreateBox(conversionId);
+  const [adding, setAdding] = useState(false);
   const [editing, setEditing] = useState<number | null>(null);
   const [message, setMessage] = useState<Message | null>(null);
 
@@ -53,13 +56,37 @@ export function BoxScreen({ conversionId, readOnly, pins, connectors, feedNames 
       </Notice>
     );
   }
-  if (boxes.data.length === 0) {
-    return <Notice title="This conversion has no relay and fuse box yet." />;
-  }
   const feedName = (id: number | null) => (id === null ? null : (feedNames.get(id) ?? null));
 
   return (
     <div className="grid gap-6">
+      {boxes.data.length === 0 ? (
+        <Notice title="This conversion has no relay and fuse box yet.">
+          {readOnly ? null : 'Add one, then its fuses and relays as positions.'}
+        </Notice>
+      ) : null}
+      {readOnly ? null : adding ? (
+        <AddBoxForm
+          busy={create.isPending}
+          error={create.error}
+          onCancel={() => setAdding(false)}
+          onSubmit={(values) =>
+            create.mutate(values, {
+              onSuccess: ({ box }) => {
+                setAdding(false);
+                setEditing(box.id);
+                setMessage({ tone: 'sound', title: `Added the box ${box.label}` });
+              },
+            })
+          }
+        />
+      ) : (
+        <div>
+          <Button size="sm" onClick={() => setAdding(true)}>
+            Add a box
+          </Button>
+        </div>
+      )}
       {message ? (
         <Notice tone={message.tone} title={message.title}>
           {message.body}
