@@ -93,6 +93,10 @@ test('a builder wires the cooling fan circuit from the type-ahead and reads its 
   await expect(wireRow(page, w1)).toContainText('R4 relay · 30');
   await expect(wireRow(page, w3)).toContainText('G-5 chassis');
   await expect(wireRow(page, w4)).toContainText('E2-10 Cooling fan relay coil control');
+  await page.getByText(/^Splices \(\d+\) and ground points/).click();
+  const grounds = page.getByRole('table', { name: 'Ground points' });
+  await expect(grounds.getByRole('row').filter({ hasText: 'G-5' })).toContainText('6 mm²');
+  await page.screenshot({ path: `${SCREENS}/wires-splices-grounds.png`, fullPage: true });
 
   // Keyboard: the new wire's length typed into its cell, Enter saves.
   const lengthCell = wireRow(page, w2).getByRole('gridcell').nth(3);

@@ -17,6 +17,7 @@ import { cellChange, withEnd, type WireColumnId } from '../lib/wire-cells.ts';
 import { inversePatch, type WirePatch } from '../lib/wire-paste.ts';
 import { AddWireForm } from './add-wire-form.tsx';
 import { GroundPointForm, SpliceForm } from './small-forms.tsx';
+import { SplicesAndGrounds } from './splices-and-grounds.tsx';
 import { WireImport } from './wire-import.tsx';
 import { WiresGrid } from './wires-grid.tsx';
 
@@ -247,6 +248,11 @@ export function WiresScreen({ conversionId, readOnly, pins, connectors }: WiresS
           {message.body}
         </Notice>
       ) : null}
+      <SplicesAndGrounds
+        wires={wires.data}
+        splices={splices.data ?? []}
+        groundPoints={grounds.data ?? []}
+      />
       <p className="text-xs text-ink-faint">
         {readOnly
           ? 'Read only: your role cannot change wires. Arrows move through the list.'
