@@ -5,6 +5,21 @@ import { createSmallPlan } from './support/small-plan.ts';
 test('a first revision shows the plan as frozen, not the draft edited since', async ({ page }) => {
   await signIn(page, DEMO.builder);
   const plan = await createSmallPlan(page.request, 'Tamsin shop van');
+  // A wire from the signal pin to the dash (an end still to be named: a warning, not an error),
+  // so the frozen plan has a wire list to show.
+  const wire = await page.request.post(`/api/conversions/${plan.conversionId}/wires`, {
+    data: {
+      label: 'W-001',
+      colour: 'GN',
+      sizeMm2: 0.5,
+      lengthM: 1.2,
+      ends: [
+        { kind: 'pin', refId: plan.pins.find((p) => p.cavity === '2')!.id },
+        { kind: 'unresolved', text: 'Dash gauge' },
+      ],
+    },
+  });
+  expect(wire.status(), await wire.text()).toBe(201);
   await page.goto(`/conversions/${plan.conversionId}/revisions`);
   await page.getByRole('button', { name: 'Submit for review' }).click();
   await expect(page.getByRole('heading', { name: /Revision 1/ })).toBeVisible();
@@ -44,6 +59,13 @@ test('a first revision shows the plan as frozen, not the draft edited since', as
   await expect(feed.getByRole('cell', { name: '10 A' })).toBeVisible();
   await expect(feed.getByText('E5-1')).toBeVisible();
   await page.screenshot({ path: 'test-results/screens/frozen-plan-feeds.png', fullPage: true });
+
+  await frozen.getByRole('tab', { name: 'Wires (1)' }).click();
+  const w = frozen.getByRole('row', { name: /W-001/ });
+  await expect(w.getByRole('cell', { name: 'E5-2' })).toBeVisible();
+  await expect(w.getByRole('cell', { name: '? Dash gauge' })).toBeVisible();
+  await expect(w.getByRole('cell', { name: '1.2 m' })).toBeVisible();
+  await page.screenshot({ path: 'test-results/screens/frozen-plan-wires.png', fullPage: true });
 });
 
 test('differences name each pin with its function and connector, grouped added, removed and changed', async ({

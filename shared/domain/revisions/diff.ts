@@ -150,23 +150,25 @@ export function diffSnapshots(
   return { pins, feeds, connectors, conversion, harness: diffHarness(before, after) };
 }
 
-/** Every harness item by what a person calls it ("W-012", "S-03", "G-1", "Fuse and relay box F4"). */
-function harnessItems(s: ConversionSnapshot): Map<string, Record<string, unknown>> {
-  const items = new Map<string, Record<string, unknown>>();
+/** How a wire end is named in the differences and the frozen plan: "E1-5", "S-03", "Box F4:in". */
+export function harnessEndNamer(
+  s: ConversionSnapshot,
+): (e: SnapshotWire['ends'][number]) => string {
   const h = s.harness;
-  if (!h) return items;
   const pinName = pinNames(s);
   const positionName = new Map(
-    h.boxes.flatMap((b) => b.positions.map((p) => [p.id, `${b.label} ${p.label}`] as const)),
+    (h?.boxes ?? []).flatMap((b) =>
+      b.positions.map((p) => [p.id, `${b.label} ${p.label}`] as const),
+    ),
   );
-  const endName = (e: SnapshotWire['ends'][number]) => {
+  return (e) => {
     switch (e.kind) {
       case 'pin':
         return pinName.get(e.refId) ?? `pin ${e.refId}`;
       case 'splice':
-        return h.splices.find((x) => x.id === e.refId)?.label ?? 'splice';
+        return h?.splices.find((x) => x.id === e.refId)?.label ?? 'splice';
       case 'ground':
-        return h.groundPoints.find((x) => x.id === e.refId)?.label ?? 'ground';
+        return h?.groundPoints.find((x) => x.id === e.refId)?.label ?? 'ground';
       case 'relay':
       case 'fuse':
         return `${positionName.get(e.refId) ?? e.kind}:${e.terminal}`;
@@ -176,6 +178,14 @@ function harnessItems(s: ConversionSnapshot): Map<string, Record<string, unknown
         return `? ${e.text}`;
     }
   };
+}
+
+/** Every harness item by what a person calls it ("W-012", "S-03", "G-1", "Fuse and relay box F4"). */
+function harnessItems(s: ConversionSnapshot): Map<string, Record<string, unknown>> {
+  const items = new Map<string, Record<string, unknown>>();
+  const h = s.harness;
+  if (!h) return items;
+  const endName = harnessEndNamer(s);
   for (const w of h.wires) {
     items.set(`Wire ${w.label}`, {
       colour: w.colour,

@@ -139,7 +139,10 @@ export function ConversionRevisionRoute() {
           unit={workshop.data?.sizeUnit ?? 'mm2'}
         />
       ) : (
-        <Notice tone="info" title="First revision for review">
+        <Notice
+          tone="info"
+          title={r.number === 1 ? 'First revision for review' : 'Nothing signed off before this'}
+        >
           There is no earlier signed-off revision to compare with: review the whole plan, as frozen
           below.
         </Notice>

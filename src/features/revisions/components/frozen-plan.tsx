@@ -2,6 +2,7 @@ import { useId, useState } from 'react';
 import { showField } from '#shared/domain/fields/field-table.ts';
 import { PIN_FIELDS } from '#shared/domain/fields/pin-fields.ts';
 import { pinNames } from '#shared/domain/pin-names.ts';
+import { harnessEndNamer } from '#shared/domain/revisions/diff.ts';
 import { SIGNAL_CLASS_LABELS } from '#shared/domain/signal-classes.ts';
 import { formatWireSize } from '#shared/domain/wire-sizes.ts';
 import { FEED_SOURCE_LABELS, WIRE_ZONE_LABELS } from '#shared/schemas/feeds.schema.ts';
@@ -17,7 +18,7 @@ import { WireColour } from '@/components/ui/wire-colour.tsx';
 
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
-type Tab = 'pins' | 'feeds';
+type Tab = 'pins' | 'feeds' | 'wires' | 'box';
 
 function ConnectorPins({
   connector,
@@ -105,9 +106,18 @@ export function FrozenPlan({
         : p.destination;
   const pinsOf = (c: SnapshotConnector) =>
     snapshot.pins.filter((p) => p.connectorId === c.id).sort((a, b) => a.position - b.position);
+  const harness = snapshot.harness;
+  const endName = harnessEndNamer(snapshot);
   const tabs: Array<{ key: Tab; label: string }> = [
     { key: 'pins', label: `Pin map (${plural(snapshot.pins.length, 'pin')})` },
     { key: 'feeds', label: `Feeds (${snapshot.feeds.length})` },
+    // Revisions frozen before wires existed have none to show.
+    ...(harness
+      ? [
+          { key: 'wires' as const, label: `Wires (${harness.wires.length})` },
+          { key: 'box' as const, label: `Splices, grounds and box` },
+        ]
+      : []),
   ];
 
   return (
@@ -161,6 +171,99 @@ export function FrozenPlan({
                 destinationOf={destinationOf}
                 unit={unit}
               />
+            ))
+          )}
+        </div>
+      ) : tab === 'wires' && harness ? (
+        <div role="tabpanel" id={`${id}-wires`} aria-labelledby={`${id}-wires-tab`}>
+          {harness.wires.length === 0 ? (
+            <p className="text-ink-soft">No wires were in the plan.</p>
+          ) : (
+            <div className="overflow-x-auto">
+              <table className="lw-table w-full border-collapse text-sm">
+                <caption className="sr-only">Wires as frozen</caption>
+                <thead className="border-b border-rule">
+                  <tr>
+                    <th className="px-2 py-1.5">Wire</th>
+                    <th className="px-2 py-1.5">From</th>
+                    <th className="px-2 py-1.5">To</th>
+                    <th className="px-2 py-1.5">Colour</th>
+                    <th className="px-2 py-1.5">Size</th>
+                    <th className="px-2 py-1.5">Length</th>
+                    <th className="px-2 py-1.5">Notes</th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {harness.wires.map((w) => (
+                    <tr key={w.id} className="border-b border-rule/60 align-top">
+                      <th scope="row" className="px-2 py-1.5 font-mono font-semibold">
+                        {w.label}
+                      </th>
+                      <td className="px-2 py-1.5 font-mono">{endName(w.ends[0])}</td>
+                      <td className="px-2 py-1.5 font-mono">{endName(w.ends[1])}</td>
+                      <td className="px-2 py-1.5">
+                        {w.colour ? <WireColour value={w.colour} /> : '—'}
+                      </td>
+                      <td className="px-2 py-1.5 whitespace-nowrap">
+                        {w.sizeMm2 == null ? '—' : formatWireSize(w.sizeMm2, unit)}
+                      </td>
+                      <td className="px-2 py-1.5 whitespace-nowrap">
+                        {w.lengthM == null ? '—' : `${w.lengthM} m`}
+                      </td>
+                      <td className="px-2 py-1.5 whitespace-pre-wrap text-ink-soft">{w.notes}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
+          )}
+        </div>
+      ) : tab === 'box' && harness ? (
+        <div
+          role="tabpanel"
+          id={`${id}-box`}
+          aria-labelledby={`${id}-box-tab`}
+          className="flex flex-col gap-3 text-sm"
+        >
+          <p>
+            <span className="font-semibold">Splices:</span>{' '}
+            {harness.splices.length
+              ? harness.splices
+                  .map(
+                    (x) =>
+                      `${x.label}${x.sealed ? ' (sealed)' : ''}${x.branch ? `, ${x.branch}` : ''}`,
+                  )
+                  .join('; ')
+              : 'none'}
+          </p>
+          <p>
+            <span className="font-semibold">Ground points:</span>{' '}
+            {harness.groundPoints.length
+              ? harness.groundPoints
+                  .map((g) => `${g.label} (${g.location.replace('_', ' ')})`)
+                  .join('; ')
+              : 'none'}
+          </p>
+          {harness.boxes.length === 0 ? (
+            <p>
+              <span className="font-semibold">Fuse and relay box:</span> none
+            </p>
+          ) : (
+            harness.boxes.map((b) => (
+              <div key={b.id}>
+                <p className="font-semibold">{b.label}</p>
+                <ul className="pl-5">
+                  {b.positions.map((p) => (
+                    <li key={p.id} className="list-disc">
+                      <span className="font-mono">{p.label}</span>:{' '}
+                      {p.kind === 'fuse'
+                        ? `${p.ratingA} A fuse`
+                        : `relay, ${p.contactRatingA} A contacts`}
+                      {p.feedId != null ? ` for ${feedName.get(p.feedId) ?? '?'}` : ''}
+                    </li>
+                  ))}
+                </ul>
+              </div>
             ))
           )}
         </div>
