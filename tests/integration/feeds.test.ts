@@ -274,3 +274,43 @@ describe('a pin joined to a feed is one fact', () => {
     expect((await feedOf(other.id)).loads.map((l) => l.pinId)).toContain(pin.id);
   });
 });
+
+describe('a pinout import that joins pins to feeds', () => {
+  it('adds the pins to the feeds’ loads, and takes them off when the file no longer joins them', async () => {
+    const connector = await request(ctx.app)
+      .post(`/api/conversions/${draftId}/connectors`)
+      .set('Authorization', builder)
+      .send({ label: 'X7', side: 'ecu', cavityCount: 2 })
+      .expect(201);
+    const upload = (csv: string) =>
+      request(ctx.app)
+        .post(`/api/connectors/${connector.body.connector.id}/import`)
+        .set('Authorization', builder)
+        .attach('file', Buffer.from(csv, 'utf8'), {
+          filename: 'x7.csv',
+          contentType: 'text/csv',
+        });
+    const fuelPump = async () =>
+      (
+        (
+          await request(ctx.app)
+            .get(`/api/conversions/${draftId}/feeds`)
+            .set('Authorization', builder)
+        ).body.feeds as Array<{ name: string; loads: Array<{ pinId: number | null }> }>
+      ).find((f) => f.name === 'Fuel pump')!;
+    const x71 = async () =>
+      (
+        (
+          await request(ctx.app)
+            .get(`/api/conversions/${draftId}/pins`)
+            .set('Authorization', builder)
+        ).body.pins as Array<{ id: number; connectorId: number; cavity: string }>
+      ).find((p) => p.connectorId === connector.body.connector.id && p.cavity === '1')!;
+
+    await upload('cavity,function,feed\n1,Pump relay supply,Fuel pump\n2,,\n').expect(200);
+    const pin = await x71();
+    expect((await fuelPump()).loads.map((l) => l.pinId)).toContain(pin.id);
+    await upload('cavity,function,feed\n1,Pump relay supply,\n2,,\n').expect(200);
+    expect((await fuelPump()).loads.map((l) => l.pinId)).not.toContain(pin.id);
+  });
+});

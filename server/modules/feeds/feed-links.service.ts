@@ -108,3 +108,38 @@ export async function pinsFollowLoads(
     t,
   );
 }
+
+/**
+ * After pins were written in bulk (a pinout import): the feed loads of these connectors' pins are
+ * made to agree with the pins' destinations. Pins are the side the import edited.
+ */
+export async function loadsFollowConnectorPins(
+  connectorIds: number[],
+  t: Transaction,
+): Promise<void> {
+  if (!connectorIds.length) return;
+  const pins = await Pin.findAll({
+    where: { connectorId: connectorIds },
+    attributes: ['id', 'function', 'loadCurrentA', 'destinationFeedId'],
+    transaction: t,
+  });
+  if (!pins.length) return;
+  const loads = await FeedLoad.findAll({
+    where: { pinId: pins.map((p) => p.id) },
+    transaction: t,
+  });
+  const touched: number[] = [];
+  for (const load of loads) {
+    const pin = pins.find((p) => p.id === load.pinId)!;
+    if (pin.destinationFeedId === load.feedId) continue;
+    touched.push(load.feedId);
+    await load.destroy({ transaction: t });
+  }
+  for (const pin of pins) {
+    if (pin.destinationFeedId == null) continue;
+    if (loads.some((l) => l.pinId === pin.id && l.feedId === pin.destinationFeedId)) continue;
+    await addLoadFor(pin, pin.destinationFeedId, t);
+    touched.push(pin.destinationFeedId);
+  }
+  await touchFeeds(touched, t);
+}

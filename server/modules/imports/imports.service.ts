@@ -30,6 +30,7 @@ import { logger } from '../../lib/logger.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { displayFileName, type UploadedFile } from '../../lib/upload.ts';
 import { recordAudit } from '../audit/audit.service.ts';
+import { loadsFollowConnectorPins } from '../feeds/feed-links.service.ts';
 import {
   conversionChangeCounter,
   findConversionInWorkshop,
@@ -522,6 +523,11 @@ export async function importPinout(
     }
     assertGrowthConfirmed(fresh, allowGrowth);
     await writePlan(fresh, where.conversionId, t);
+    // A pin the file joins to a feed is one of that feed's loads, as when edited on the pin map.
+    await loadsFollowConnectorPins(
+      fresh.connectors.map((c) => c.connectorId),
+      t,
+    );
     await PinImport.create(
       {
         workshopId: actor.workshopId,
