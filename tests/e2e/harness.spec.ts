@@ -264,3 +264,22 @@ test('a pin of the pin map opens its circuit', async ({ page }) => {
   await expect(named).toContainText('W-009');
   await page.screenshot({ path: `${SCREENS}/circuit-pin.png`, fullPage: true });
 });
+
+test('a technician reads the wires and the box without the controls that change them', async ({
+  page,
+}) => {
+  await signIn(page, DEMO.technician);
+  await openSection(page, 'Wires');
+  await expect(wireRow(page, 'W-001')).toContainText('Battery +');
+  await expect(page.getByText('Read only: your role cannot change wires.')).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Add a wire' })).toHaveCount(0);
+  await expect(grid(page).getByRole('button', { name: 'Delete W-001' })).toHaveCount(0);
+  await expect(page.getByRole('link', { name: 'Export CSV' })).toBeVisible();
+  await page
+    .getByRole('navigation', { name: 'Conversion sections' })
+    .getByRole('link', { name: 'Box', exact: true })
+    .click();
+  await expect(page.getByRole('region', { name: 'Box Fuse and relay box' })).toBeVisible();
+  await expect(page.getByRole('button', { name: /Edit positions/ })).toHaveCount(0);
+  await expect(page.getByRole('button', { name: 'Add a box' })).toHaveCount(0);
+});
