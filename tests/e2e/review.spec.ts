@@ -37,8 +37,11 @@ test('builder submits, reviewer sees the differences and signs off, technician p
   await page.getByRole('link', { name: 'Revisions' }).click();
   await page.getByRole('link', { name: 'Revision 2' }).click();
   await expect(page.getByRole('heading', { name: 'Changes since revision 1' })).toBeVisible();
+  // The change itself, in the differences (the frozen plan below lists the same pin again).
   await expect(
-    page.getByRole('cell', { name: 'Re-terminated with a new sealed pin' }),
+    page
+      .getByRole('region', { name: 'Changes since revision 1' })
+      .getByRole('cell', { name: 'Re-terminated with a new sealed pin' }),
   ).toBeVisible();
   await page.getByLabel('Comment', { exact: true }).fill('Fine. Use the sealed pin from the kit.');
   await page.getByRole('button', { name: 'Add comment' }).click();
