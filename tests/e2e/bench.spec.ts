@@ -48,6 +48,22 @@ test('the technician works through the bench checklist on a tablet; ticks and re
     'true',
   );
   await expect(same.getByLabel('Reading, Ω')).toHaveValue('0.6');
+
+  // The whole build: a wire is terminated, labelled and tested; a ground point cleaned and
+  // torqued; a box position has its fuse fitted.
+  const wire = page.getByRole('listitem').filter({ hasText: 'W-001' }).first();
+  await expect(wire).toContainText('Wire');
+  await expect(wire.getByRole('checkbox', { name: 'Labelled at both ends' })).toBeVisible();
+  await expect(wire.getByLabel('Reading, Ω')).toBeVisible();
+  const ground = page
+    .getByRole('listitem')
+    .filter({ hasText: 'G-1' })
+    .filter({ hasText: 'Ground point' });
+  await expect(ground.getByRole('checkbox', { name: 'Fastened and torqued' })).toBeVisible();
+  const fuse = page.getByRole('listitem').filter({ hasText: 'Fuse and relay box F1' });
+  await expect(fuse.getByRole('checkbox', { name: /Fuse fitted, 15 A/ })).toBeVisible();
+  await wire.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: 'test-results/screens/bench-harness.png' });
 });
 
 test('the builder sees the checklist but cannot tick it', async ({ page }) => {
