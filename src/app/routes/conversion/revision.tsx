@@ -152,7 +152,14 @@ export function ConversionRevisionRoute() {
       <FrozenFindings findings={r.findings} />
       <EarlierComments conversionId={conversion.id} revision={r} canAnswer={mayAnswer} />
       <CommentsPanel conversionId={conversion.id} revision={r} canComment={mayComment} />
-      {r.changes ? frozenPlan : null}
+      {r.changes ? (
+        <FrozenPlan
+          snapshot={r.snapshot}
+          revisionNumber={r.number}
+          unit={workshop.data?.sizeUnit ?? 'mm2'}
+          collapsed
+        />
+      ) : null}
     </div>
   );
 }

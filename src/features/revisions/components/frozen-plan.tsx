@@ -13,6 +13,7 @@ import type {
   SnapshotPin,
 } from '#shared/schemas/snapshot.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
+import { Button } from '@/components/ui/button.tsx';
 import { DispositionLabel } from '@/components/ui/disposition-glyph.tsx';
 import { WireColour } from '@/components/ui/wire-colour.tsx';
 
@@ -89,12 +90,16 @@ export function FrozenPlan({
   snapshot,
   revisionNumber,
   unit,
+  collapsed = false,
 }: {
   snapshot: ConversionSnapshot;
   revisionNumber: number;
   unit: SizeUnit;
+  /** Shut until asked for: on a later revision the differences come first. */
+  collapsed?: boolean;
 }) {
   const [tab, setTab] = useState<Tab>('pins');
+  const [open, setOpen] = useState(!collapsed);
   const id = useId();
   const names = pinNames(snapshot);
   const feedName = new Map(snapshot.feeds.map((f) => [f.id, f.name]));
@@ -133,205 +138,218 @@ export function FrozenPlan({
           Read-only: what was submitted, not today&rsquo;s draft.
         </p>
       </div>
-      <div role="tablist" aria-label="Frozen plan" className="flex gap-1 border-b border-rule">
-        {tabs.map((t) => (
-          <button
-            key={t.key}
-            type="button"
-            role="tab"
-            id={`${id}-${t.key}-tab`}
-            aria-selected={tab === t.key}
-            aria-controls={`${id}-${t.key}`}
-            onClick={() => setTab(t.key)}
-            className={`-mb-px rounded-t-md border px-3 py-1.5 text-sm font-medium ${
-              tab === t.key
-                ? 'border-rule border-b-paper-raised bg-paper-raised text-ink'
-                : 'border-transparent text-ink-soft hover:text-ink'
-            }`}
-          >
-            {t.label}
-          </button>
-        ))}
-      </div>
-      {tab === 'pins' ? (
-        <div
-          role="tabpanel"
-          id={`${id}-pins`}
-          aria-labelledby={`${id}-pins-tab`}
-          className="flex flex-col gap-5"
-        >
-          {snapshot.connectors.length === 0 ? (
-            <p className="text-ink-soft">No connectors were in the plan.</p>
-          ) : (
-            snapshot.connectors.map((c) => (
-              <ConnectorPins
-                key={c.id}
-                connector={c}
-                pins={pinsOf(c)}
-                destinationOf={destinationOf}
-                unit={unit}
-              />
-            ))
-          )}
+      {collapsed ? (
+        <div>
+          <Button size="sm" aria-expanded={open} onClick={() => setOpen((o) => !o)}>
+            {open ? 'Hide the whole plan' : 'Show the whole plan'}
+          </Button>
         </div>
-      ) : tab === 'wires' && harness ? (
-        <div role="tabpanel" id={`${id}-wires`} aria-labelledby={`${id}-wires-tab`}>
-          {harness.wires.length === 0 ? (
-            <p className="text-ink-soft">No wires were in the plan.</p>
+      ) : null}
+      {open ? (
+        <>
+          <div role="tablist" aria-label="Frozen plan" className="flex gap-1 border-b border-rule">
+            {tabs.map((t) => (
+              <button
+                key={t.key}
+                type="button"
+                role="tab"
+                id={`${id}-${t.key}-tab`}
+                aria-selected={tab === t.key}
+                aria-controls={`${id}-${t.key}`}
+                onClick={() => setTab(t.key)}
+                className={`-mb-px rounded-t-md border px-3 py-1.5 text-sm font-medium ${
+                  tab === t.key
+                    ? 'border-rule border-b-paper-raised bg-paper-raised text-ink'
+                    : 'border-transparent text-ink-soft hover:text-ink'
+                }`}
+              >
+                {t.label}
+              </button>
+            ))}
+          </div>
+          {tab === 'pins' ? (
+            <div
+              role="tabpanel"
+              id={`${id}-pins`}
+              aria-labelledby={`${id}-pins-tab`}
+              className="flex flex-col gap-5"
+            >
+              {snapshot.connectors.length === 0 ? (
+                <p className="text-ink-soft">No connectors were in the plan.</p>
+              ) : (
+                snapshot.connectors.map((c) => (
+                  <ConnectorPins
+                    key={c.id}
+                    connector={c}
+                    pins={pinsOf(c)}
+                    destinationOf={destinationOf}
+                    unit={unit}
+                  />
+                ))
+              )}
+            </div>
+          ) : tab === 'wires' && harness ? (
+            <div role="tabpanel" id={`${id}-wires`} aria-labelledby={`${id}-wires-tab`}>
+              {harness.wires.length === 0 ? (
+                <p className="text-ink-soft">No wires were in the plan.</p>
+              ) : (
+                <div className="overflow-x-auto">
+                  <table className="lw-table w-full border-collapse text-sm">
+                    <caption className="sr-only">Wires as frozen</caption>
+                    <thead className="border-b border-rule">
+                      <tr>
+                        <th className="px-2 py-1.5">Wire</th>
+                        <th className="px-2 py-1.5">From</th>
+                        <th className="px-2 py-1.5">To</th>
+                        <th className="px-2 py-1.5">Colour</th>
+                        <th className="px-2 py-1.5">Size</th>
+                        <th className="px-2 py-1.5">Length</th>
+                        <th className="px-2 py-1.5">Notes</th>
+                      </tr>
+                    </thead>
+                    <tbody>
+                      {harness.wires.map((w) => (
+                        <tr key={w.id} className="border-b border-rule/60 align-top">
+                          <th scope="row" className="px-2 py-1.5 font-mono font-semibold">
+                            {w.label}
+                          </th>
+                          <td className="px-2 py-1.5 font-mono">{endName(w.ends[0])}</td>
+                          <td className="px-2 py-1.5 font-mono">{endName(w.ends[1])}</td>
+                          <td className="px-2 py-1.5">
+                            {w.colour ? <WireColour value={w.colour} /> : '—'}
+                          </td>
+                          <td className="px-2 py-1.5 whitespace-nowrap">
+                            {w.sizeMm2 == null ? '—' : formatWireSize(w.sizeMm2, unit)}
+                          </td>
+                          <td className="px-2 py-1.5 whitespace-nowrap">
+                            {w.lengthM == null ? '—' : `${w.lengthM} m`}
+                          </td>
+                          <td className="px-2 py-1.5 whitespace-pre-wrap text-ink-soft">
+                            {w.notes}
+                          </td>
+                        </tr>
+                      ))}
+                    </tbody>
+                  </table>
+                </div>
+              )}
+            </div>
+          ) : tab === 'box' && harness ? (
+            <div
+              role="tabpanel"
+              id={`${id}-box`}
+              aria-labelledby={`${id}-box-tab`}
+              className="flex flex-col gap-3 text-sm"
+            >
+              <p>
+                <span className="font-semibold">Splices:</span>{' '}
+                {harness.splices.length
+                  ? harness.splices
+                      .map(
+                        (x) =>
+                          `${x.label}${x.sealed ? ' (sealed)' : ''}${x.branch ? `, ${x.branch}` : ''}`,
+                      )
+                      .join('; ')
+                  : 'none'}
+              </p>
+              <p>
+                <span className="font-semibold">Ground points:</span>{' '}
+                {harness.groundPoints.length
+                  ? harness.groundPoints
+                      .map((g) => `${g.label} (${g.location.replace('_', ' ')})`)
+                      .join('; ')
+                  : 'none'}
+              </p>
+              {harness.boxes.length === 0 ? (
+                <p>
+                  <span className="font-semibold">Fuse and relay box:</span> none
+                </p>
+              ) : (
+                harness.boxes.map((b) => (
+                  <div key={b.id}>
+                    <p className="font-semibold">{b.label}</p>
+                    <ul className="pl-5">
+                      {b.positions.map((p) => (
+                        <li key={p.id} className="list-disc">
+                          <span className="font-mono">{p.label}</span>:{' '}
+                          {p.kind === 'fuse'
+                            ? `${p.ratingA} A fuse`
+                            : `relay, ${p.contactRatingA} A contacts`}
+                          {p.feedId != null ? ` for ${feedName.get(p.feedId) ?? '?'}` : ''}
+                        </li>
+                      ))}
+                    </ul>
+                  </div>
+                ))
+              )}
+            </div>
           ) : (
-            <div className="overflow-x-auto">
-              <table className="lw-table w-full border-collapse text-sm">
-                <caption className="sr-only">Wires as frozen</caption>
-                <thead className="border-b border-rule">
-                  <tr>
-                    <th className="px-2 py-1.5">Wire</th>
-                    <th className="px-2 py-1.5">From</th>
-                    <th className="px-2 py-1.5">To</th>
-                    <th className="px-2 py-1.5">Colour</th>
-                    <th className="px-2 py-1.5">Size</th>
-                    <th className="px-2 py-1.5">Length</th>
-                    <th className="px-2 py-1.5">Notes</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {harness.wires.map((w) => (
-                    <tr key={w.id} className="border-b border-rule/60 align-top">
-                      <th scope="row" className="px-2 py-1.5 font-mono font-semibold">
-                        {w.label}
-                      </th>
-                      <td className="px-2 py-1.5 font-mono">{endName(w.ends[0])}</td>
-                      <td className="px-2 py-1.5 font-mono">{endName(w.ends[1])}</td>
-                      <td className="px-2 py-1.5">
-                        {w.colour ? <WireColour value={w.colour} /> : '—'}
-                      </td>
-                      <td className="px-2 py-1.5 whitespace-nowrap">
-                        {w.sizeMm2 == null ? '—' : formatWireSize(w.sizeMm2, unit)}
-                      </td>
-                      <td className="px-2 py-1.5 whitespace-nowrap">
-                        {w.lengthM == null ? '—' : `${w.lengthM} m`}
-                      </td>
-                      <td className="px-2 py-1.5 whitespace-pre-wrap text-ink-soft">{w.notes}</td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
+            <div role="tabpanel" id={`${id}-feeds`} aria-labelledby={`${id}-feeds-tab`}>
+              {snapshot.feeds.length === 0 ? (
+                <p className="text-ink-soft">No new feeds were in the plan.</p>
+              ) : (
+                <div className="overflow-x-auto">
+                  <table className="lw-table w-full border-collapse text-sm">
+                    <caption className="sr-only">Feeds as frozen</caption>
+                    <thead className="border-b border-rule">
+                      <tr>
+                        <th className="px-2 py-1.5">Feed</th>
+                        <th className="px-2 py-1.5">Source</th>
+                        <th className="px-2 py-1.5">Fuse</th>
+                        <th className="px-2 py-1.5">Relay</th>
+                        <th className="px-2 py-1.5">Wire</th>
+                        <th className="px-2 py-1.5">Loads</th>
+                      </tr>
+                    </thead>
+                    <tbody>
+                      {snapshot.feeds.map((f) => (
+                        <tr key={f.id} className="border-b border-rule/60 align-top">
+                          <th scope="row" className="px-2 py-1.5 font-semibold">
+                            {f.name}
+                          </th>
+                          <td className="px-2 py-1.5">
+                            {f.source === 'relay_output' && f.sourceFeedId != null
+                              ? `Relay output of ${feedName.get(f.sourceFeedId) ?? '?'}`
+                              : FEED_SOURCE_LABELS[f.source]}
+                          </td>
+                          <td className="px-2 py-1.5 whitespace-nowrap">
+                            {f.fuseA == null ? 'None' : `${f.fuseA} A`}
+                          </td>
+                          <td className="px-2 py-1.5 whitespace-nowrap">
+                            {f.relay ? `${f.relay.contactRatingA} A contacts` : '—'}
+                          </td>
+                          <td className="px-2 py-1.5">
+                            {formatWireSize(f.wire.sizeMm2, unit)}, {f.wire.lengthM} m,{' '}
+                            {WIRE_ZONE_LABELS[f.wire.zone].toLowerCase()}
+                            {f.wire.colour ? (
+                              <>
+                                , <WireColour value={f.wire.colour} />
+                              </>
+                            ) : null}
+                          </td>
+                          <td className="px-2 py-1.5">
+                            <ul>
+                              {f.loads.map((l) => (
+                                <li key={l.id}>
+                                  {l.pinId != null ? (
+                                    <span className="font-mono">{names.get(l.pinId) ?? '?'}</span>
+                                  ) : null}
+                                  {l.pinId != null && l.name ? ' · ' : ''}
+                                  {l.name} ({l.currentA} A{l.continuous ? ', continuous' : ''})
+                                </li>
+                              ))}
+                            </ul>
+                          </td>
+                        </tr>
+                      ))}
+                    </tbody>
+                  </table>
+                </div>
+              )}
             </div>
           )}
-        </div>
-      ) : tab === 'box' && harness ? (
-        <div
-          role="tabpanel"
-          id={`${id}-box`}
-          aria-labelledby={`${id}-box-tab`}
-          className="flex flex-col gap-3 text-sm"
-        >
-          <p>
-            <span className="font-semibold">Splices:</span>{' '}
-            {harness.splices.length
-              ? harness.splices
-                  .map(
-                    (x) =>
-                      `${x.label}${x.sealed ? ' (sealed)' : ''}${x.branch ? `, ${x.branch}` : ''}`,
-                  )
-                  .join('; ')
-              : 'none'}
-          </p>
-          <p>
-            <span className="font-semibold">Ground points:</span>{' '}
-            {harness.groundPoints.length
-              ? harness.groundPoints
-                  .map((g) => `${g.label} (${g.location.replace('_', ' ')})`)
-                  .join('; ')
-              : 'none'}
-          </p>
-          {harness.boxes.length === 0 ? (
-            <p>
-              <span className="font-semibold">Fuse and relay box:</span> none
-            </p>
-          ) : (
-            harness.boxes.map((b) => (
-              <div key={b.id}>
-                <p className="font-semibold">{b.label}</p>
-                <ul className="pl-5">
-                  {b.positions.map((p) => (
-                    <li key={p.id} className="list-disc">
-                      <span className="font-mono">{p.label}</span>:{' '}
-                      {p.kind === 'fuse'
-                        ? `${p.ratingA} A fuse`
-                        : `relay, ${p.contactRatingA} A contacts`}
-                      {p.feedId != null ? ` for ${feedName.get(p.feedId) ?? '?'}` : ''}
-                    </li>
-                  ))}
-                </ul>
-              </div>
-            ))
-          )}
-        </div>
-      ) : (
-        <div role="tabpanel" id={`${id}-feeds`} aria-labelledby={`${id}-feeds-tab`}>
-          {snapshot.feeds.length === 0 ? (
-            <p className="text-ink-soft">No new feeds were in the plan.</p>
-          ) : (
-            <div className="overflow-x-auto">
-              <table className="lw-table w-full border-collapse text-sm">
-                <caption className="sr-only">Feeds as frozen</caption>
-                <thead className="border-b border-rule">
-                  <tr>
-                    <th className="px-2 py-1.5">Feed</th>
-                    <th className="px-2 py-1.5">Source</th>
-                    <th className="px-2 py-1.5">Fuse</th>
-                    <th className="px-2 py-1.5">Relay</th>
-                    <th className="px-2 py-1.5">Wire</th>
-                    <th className="px-2 py-1.5">Loads</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {snapshot.feeds.map((f) => (
-                    <tr key={f.id} className="border-b border-rule/60 align-top">
-                      <th scope="row" className="px-2 py-1.5 font-semibold">
-                        {f.name}
-                      </th>
-                      <td className="px-2 py-1.5">
-                        {f.source === 'relay_output' && f.sourceFeedId != null
-                          ? `Relay output of ${feedName.get(f.sourceFeedId) ?? '?'}`
-                          : FEED_SOURCE_LABELS[f.source]}
-                      </td>
-                      <td className="px-2 py-1.5 whitespace-nowrap">
-                        {f.fuseA == null ? 'None' : `${f.fuseA} A`}
-                      </td>
-                      <td className="px-2 py-1.5 whitespace-nowrap">
-                        {f.relay ? `${f.relay.contactRatingA} A contacts` : '—'}
-                      </td>
-                      <td className="px-2 py-1.5">
-                        {formatWireSize(f.wire.sizeMm2, unit)}, {f.wire.lengthM} m,{' '}
-                        {WIRE_ZONE_LABELS[f.wire.zone].toLowerCase()}
-                        {f.wire.colour ? (
-                          <>
-                            , <WireColour value={f.wire.colour} />
-                          </>
-                        ) : null}
-                      </td>
-                      <td className="px-2 py-1.5">
-                        <ul>
-                          {f.loads.map((l) => (
-                            <li key={l.id}>
-                              {l.pinId != null ? (
-                                <span className="font-mono">{names.get(l.pinId) ?? '?'}</span>
-                              ) : null}
-                              {l.pinId != null && l.name ? ' · ' : ''}
-                              {l.name} ({l.currentA} A{l.continuous ? ', continuous' : ''})
-                            </li>
-                          ))}
-                        </ul>
-                      </td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
-          )}
-        </div>
-      )}
+        </>
+      ) : null}
     </section>
   );
 }
