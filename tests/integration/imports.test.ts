@@ -277,6 +277,52 @@ describe('importing into a connector that already has pins', () => {
   });
 });
 
+describe('applying right after a preview', () => {
+  it('works on the pin map as it is when applied, not as it was previewed', async () => {
+    const connector = await createConnector(conversionId, 'X7', 'engine', 2);
+    const file = 'cavity,function\n1,Crank sensor\n2,Cam sensor\n';
+    const preview = await upload(intoConnector(connector), file, { dryRun: true });
+    expect(preview.body.summary).toEqual({ added: 0, changed: 2, unchanged: 0, removed: 0 });
+    // Someone types one of the file's values by hand between the preview and the Import button.
+    const [first] = (await pinsOf(conversionId)).filter((p) => p.connectorId === connector);
+    const edited = await request(ctx.app)
+      .patch(`/api/pins/${first!.id}`)
+      .set('Authorization', builder)
+      .send({ version: first!.version, function: 'Crank sensor' });
+    expect(edited.status).toBe(200);
+    const applied = await upload(intoConnector(connector), file);
+    expect(applied.status).toBe(200);
+    expect(applied.body.summary).toEqual({ added: 0, changed: 1, unchanged: 1, removed: 0 });
+    const after = (await pinsOf(conversionId)).filter((p) => p.connectorId === connector);
+    expect(after.map((p) => [p.function, p.version])).toEqual([
+      ['Crank sensor', edited.body.pin.version],
+      ['Cam sensor', 1],
+    ]);
+  });
+
+  it('reads the columns again when the workshop’s saved choices changed since the preview', async () => {
+    const connector = await createConnector(conversionId, 'X8', 'engine', 1);
+    const file = 'Slot,Label,Note\n1,Boost sensor,dry\n';
+    await upload(intoConnector(connector), file, {
+      mapping: { Slot: 'cavity', Label: 'function', Note: 'ignore' },
+    });
+    const preview = await upload(intoConnector(connector), file, { dryRun: true });
+    expect(preview.body.mappingSource).toBe('saved');
+    expect(preview.body.summary).toEqual({ added: 0, changed: 0, unchanged: 1, removed: 0 });
+    // An import of a file with the same columns into another conversion (this pin map stays as
+    // it was) saves different choices in between.
+    const other = await createConnector(await createConversion('Same columns'), 'Y1', 'engine', 1);
+    await upload(intoConnector(other), 'Slot,Label,Note\n1,Spare,keep clear\n', {
+      mapping: { Slot: 'cavity', Label: 'function', Note: 'notes' },
+    });
+    const applied = await upload(intoConnector(connector), file);
+    expect(applied.status).toBe(200);
+    expect(applied.body.summary).toEqual({ added: 0, changed: 1, unchanged: 0, removed: 0 });
+    const [pin] = (await pinsOf(conversionId)).filter((p) => p.connectorId === connector);
+    expect([pin!.function, pin!.notes]).toEqual(['Boost sensor', 'dry']);
+  });
+});
+
 describe('large files', () => {
   it('imports a clean 2,000-row file across five connectors in one go', async () => {
     const conversion = await createConversion('Two thousand');

@@ -19,7 +19,11 @@ async function touchFeeds(feedIds: Iterable<number>, t: Transaction) {
 }
 
 /** A load row for a pin that was just joined to a feed from the pin map. */
-async function addLoadFor(pin: Pin, feedId: number, t: Transaction) {
+async function addLoadFor(
+  pin: Pick<Pin, 'id' | 'function' | 'loadCurrentA'>,
+  feedId: number,
+  t: Transaction,
+) {
   const existing = await FeedLoad.findOne({ where: { feedId, pinId: pin.id }, transaction: t });
   if (existing) return;
   const position = await FeedLoad.count({ where: { feedId }, transaction: t });
@@ -118,9 +122,11 @@ export async function loadsFollowConnectorPins(
   t: Transaction,
 ): Promise<void> {
   if (!connectorIds.length) return;
+  // Plain rows and lookups by id: an import of 20,000 pins passes through here.
   const pins = await Pin.findAll({
     where: { connectorId: connectorIds },
     attributes: ['id', 'function', 'loadCurrentA', 'destinationFeedId'],
+    raw: true,
     transaction: t,
   });
   if (!pins.length) return;
@@ -128,16 +134,18 @@ export async function loadsFollowConnectorPins(
     where: { pinId: pins.map((p) => p.id) },
     transaction: t,
   });
+  const pinById = new Map(pins.map((p) => [p.id, p]));
+  const loadKeys = new Set(loads.map((l) => `${l.pinId}:${l.feedId}`));
   const touched: number[] = [];
   for (const load of loads) {
-    const pin = pins.find((p) => p.id === load.pinId)!;
+    const pin = pinById.get(load.pinId!)!;
     if (pin.destinationFeedId === load.feedId) continue;
     touched.push(load.feedId);
     await load.destroy({ transaction: t });
   }
   for (const pin of pins) {
     if (pin.destinationFeedId == null) continue;
-    if (loads.some((l) => l.pinId === pin.id && l.feedId === pin.destinationFeedId)) continue;
+    if (loadKeys.has(`${pin.id}:${pin.destinationFeedId}`)) continue;
     await addLoadFor(pin, pin.destinationFeedId, t);
     touched.push(pin.destinationFeedId);
   }
