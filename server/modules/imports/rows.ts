@@ -8,6 +8,7 @@ import { unescapeFormula } from '#shared/domain/csv.ts';
 import { csvColumns, type FieldParse, type FieldSpec } from '#shared/domain/fields/field-table.ts';
 import { PIN_FIELDS, type PinValues } from '#shared/domain/fields/pin-fields.ts';
 import type { ImportField, ImportIssue } from '#shared/schemas/imports.schema.ts';
+import type { z } from 'zod';
 import { PinFields } from '#shared/schemas/pin-map.schema.ts';
 import type { CsvRecord } from './csv-text.ts';
 
@@ -30,10 +31,33 @@ const MAX_CAVITY = 8;
 const MAX_NAME: Partial<Record<ImportField, number>> = { connector: 40, feed: 120 };
 
 /**
- * The pin API's own strict schema over what a row sets: the cell parsers give the messages a
- * person can act on; this makes sure nothing reaches the database the pin editor would refuse.
+ * The pin API's own schema for each field a row sets: the cell parsers give the messages a person
+ * can act on; this makes sure nothing reaches the database the pin editor would refuse. The pin
+ * schema is a strict object of independent fields (no rule spans two), so checking field by field
+ * is the same check, and a value met before in the file (a colour, a size, a disposition) is
+ * checked once per file rather than once per row.
  */
-const RowFields = PinFields.partial();
+const FIELD_SCHEMAS: Record<string, z.ZodType | undefined> = PinFields.shape;
+
+function fieldChecker() {
+  const seen = new Map<string, Map<unknown, string[]>>();
+  return (key: string, value: unknown): string[] => {
+    let byValue = seen.get(key);
+    if (!byValue) seen.set(key, (byValue = new Map()));
+    let problems = byValue.get(value);
+    if (!problems) {
+      const schema = FIELD_SCHEMAS[key];
+      const parsed = schema?.safeParse(value);
+      problems = !schema
+        ? ['is not a pin field']
+        : parsed!.success
+          ? []
+          : parsed!.error.issues.map((i) => i.message);
+      byValue.set(value, problems);
+    }
+    return problems;
+  };
+}
 
 const PIN_CSV_COLUMNS = csvColumns(PIN_FIELDS);
 
@@ -64,6 +88,9 @@ function* parseRowsInSteps(
   const errors: ImportIssue[] = [];
   const mentioned: ParsedRows['mentioned'] = [];
   const firstRowOf = new Map<string, number>();
+  const fieldProblems = fieldChecker();
+  /** Per column, each cell text read without a problem and the value it gave. */
+  const readCells = new Map<ImportField, Map<string, unknown>>();
 
   for (const [at, record] of records.entries()) {
     if (at > 0 && at % STEP_ROWS === 0) yield;
@@ -108,13 +135,21 @@ function* parseRowsInSteps(
       return value;
     };
     const take = (field: ImportField, parse: (t: string) => FieldParse<unknown>) => {
-      const t = text(field);
-      if (t === undefined) return undefined;
+      const index = columnOf.get(field);
+      if (index === undefined) return undefined;
+      // A cell read cleanly before in this column (a colour, a size, a disposition) reads the same.
+      const cell = record.cells[index]!;
+      let clean = readCells.get(field);
+      if (!clean) readCells.set(field, (clean = new Map()));
+      if (clean.has(cell)) return clean.get(cell);
+      const before = errors.length;
+      const t = text(field)!;
       const parsed = parse(t);
       if (!parsed.ok) {
         issue(field, parsed.error);
         return undefined;
       }
+      if (errors.length === before) clean.set(cell, parsed.value);
       return parsed.value;
     };
 
@@ -165,13 +200,11 @@ function* parseRowsInSteps(
       }
     }
     if (errors.length === errorsBefore) {
-      const { feed: _feed, ...pinValues } = values;
-      const strict = RowFields.safeParse(pinValues);
-      if (!strict.success) {
-        for (const i of strict.error.issues) issue(null, `${String(i.path[0])}: ${i.message}`);
-        continue;
+      for (const [key, value] of Object.entries(values)) {
+        if (key === 'feed') continue;
+        for (const message of fieldProblems(key, value)) issue(null, `${key}: ${message}`);
       }
-      rows.push({ row: record.row, connector, cavity, values });
+      if (errors.length === errorsBefore) rows.push({ row: record.row, connector, cavity, values });
     }
   }
   return { rows, errors, mentioned };

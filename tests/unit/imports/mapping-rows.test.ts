@@ -77,6 +77,30 @@ function rowsOf(headers: string[], lines: string[][]) {
 }
 
 describe('checking each cell', () => {
+  it('reports a bad cell on every line it is on, and reads a repeated good cell alike', () => {
+    const { rows, errors } = rowsOf(
+      ['cavity', 'colour', 'disposition'],
+      [
+        ['1', 'PU', 'keep'],
+        ['2', 'BU/WH', 'keep'],
+        ['3', 'PU', 'keep'],
+        ['4', 'BU/WH', 'keep'],
+        ['5', 'BU/WH\u200B', 'keep'],
+        ['6', 'BU/WH\u200B', 'keep'],
+      ],
+    );
+    expect(errors.map((e) => [e.row, e.column])).toEqual([
+      [2, 'colour'],
+      [4, 'colour'],
+      [6, 'colour'],
+      [7, 'colour'],
+    ]);
+    expect(rows.map((r) => [r.cavity, r.values.colour, r.values.disposition])).toEqual([
+      ['2', 'BU/WH', 'keep'],
+      ['4', 'BU/WH', 'keep'],
+    ]);
+  });
+
   it('reads dispositions as codes or screen labels, and signal classes likewise', () => {
     const { rows, errors } = rowsOf(
       ['cavity', 'disposition', 'signal_class'],
