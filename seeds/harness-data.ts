@@ -6,6 +6,7 @@
  */
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { deriveHarness } from '../server/db/migrations/0011-harness.ts';
+import { insertReturningId } from '../server/db/portable.ts';
 
 interface Options {
   /** The draft carries the planted sensor-ground problem. */
@@ -26,14 +27,11 @@ export async function seedHarness(
       replacements: { conversionId, now, ...replacements },
       transaction,
     });
-  const insert = async (sql: string, replacements: Record<string, unknown>) => {
-    const [id] = await sequelize.query(sql, {
-      type: QueryTypes.INSERT,
+  const insert = (sql: string, replacements: Record<string, unknown>) =>
+    insertReturningId(sequelize, sql, {
       replacements: { conversionId, now, ...replacements },
       transaction,
     });
-    return id as unknown as number;
-  };
   const exec = (sql: string, replacements: Record<string, unknown>) =>
     sequelize.query(sql, { replacements: { conversionId, ...replacements }, transaction });
 
@@ -159,7 +157,7 @@ export async function seedHarness(
   const splice = async (label: string, notes: string) =>
     insert(
       `INSERT INTO splices (conversion_id, label, sealed, branch, distance_mm, notes, version, created_at, updated_at)
-       VALUES (:conversionId, :label, 1, :branch, :distance, :notes, 0, :now, :now)`,
+       VALUES (:conversionId, :label, TRUE, :branch, :distance, :notes, 0, :now, :now)`,
       { label, branch: 'Engine harness', distance: 350, notes },
     );
   const powerGrounds = await q<{ end_id: number }>(

@@ -4,7 +4,7 @@ import { DEMO_USERS } from '../seeds/demo-data.ts';
 import { isEmpty, seedDemo } from '../seeds/seed-demo.ts';
 import { createApp } from './app.ts';
 import { EnvError, loadEnv } from './config/env.ts';
-import { closeDatabase, connectDatabase } from './db/index.ts';
+import { closeDatabase, connectDatabase, databaseTarget } from './db/index.ts';
 import { startFileStore } from './lib/file-store-setup.ts';
 import { logger } from './lib/logger.ts';
 import { startMail } from './modules/mail/mail-setup.ts';
@@ -13,7 +13,9 @@ const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '
 
 async function main() {
   const env = loadEnv();
-  const sequelize = await connectDatabase(env.DATABASE_PATH);
+  const sequelize = await connectDatabase(databaseTarget(env));
+  // Never the URL: it may carry a password.
+  const database = env.DATABASE_URL ? 'postgresql' : env.DATABASE_PATH;
   const fresh = await isEmpty();
   if (env.DEMO && fresh) {
     await seedDemo(sequelize, {
@@ -21,14 +23,14 @@ async function main() {
       bcryptCost: env.BCRYPT_COST,
       sealKeyPem: env.SEAL_PRIVATE_KEY,
     });
-    logger.info({ database: env.DATABASE_PATH }, 'seeded the demo workshop');
+    logger.info({ database }, 'seeded the demo workshop');
   }
   const stopMail = await startMail(env);
   const stopFileStore = await startFileStore(env);
   const app = createApp({ env, clientDir: path.join(projectRoot, 'dist') });
   const server = app.listen(env.PORT, env.HOST, () => {
     const url = `http://localhost:${env.PORT}`;
-    logger.info({ url, database: env.DATABASE_PATH }, 'Loomwright is listening');
+    logger.info({ url, database }, 'Loomwright is listening');
     // The demo password is printed once, when the demo is seeded; later starts print none.
     if (env.DEMO && fresh) {
       const lines = DEMO_USERS.map((u) => `  ${u.role.padEnd(11)} ${u.email}`).join('\n');

@@ -12,10 +12,16 @@ const STOP_RETRYING_AFTER_MS = 4000;
  */
 export const WRITE_QUEUE_WAIT_MS = 10_000;
 
+/**
+ * Errors that mean "another writer got there first; the same work may succeed if run again":
+ * SQLite's busy and locked, PostgreSQL's serialisation failure, deadlock and lock timeout.
+ */
+const BUSY_CODES = new Set(['SQLITE_BUSY', 'SQLITE_LOCKED', '40001', '40P01', '55P03']);
+
 export function isBusyError(err: unknown): boolean {
   const e = err as { original?: { code?: string }; parent?: { code?: string }; code?: string };
   const code = e?.original?.code ?? e?.parent?.code ?? e?.code;
-  return code === 'SQLITE_BUSY' || code === 'SQLITE_LOCKED';
+  return code !== undefined && BUSY_CODES.has(code);
 }
 
 /**
@@ -41,7 +47,8 @@ function writeQueueOf(sequelize: Sequelize): MutexInterface {
  * Runs `work` in one managed IMMEDIATE transaction, after the writes queued before it. If SQLite
  * reports the database busy (another process holds the lock), the whole transaction is retried
  * (not single statements: sequelize #10262) up to three tries with jitter, then the caller gets 503
- * with Retry-After and nothing partial.
+ * with Retry-After and nothing partial. On PostgreSQL the transaction is SERIALIZABLE and a
+ * serialisation failure, deadlock or lock timeout is retried the same way.
  */
 export async function inTransaction<T>(
   sequelize: Sequelize,

@@ -3,6 +3,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { Express } from 'express';
+import pg from 'pg';
 import request from 'supertest';
 import type { Role } from '#shared/auth/roles.ts';
 import { createApp } from '#server/app.ts';
@@ -14,6 +15,38 @@ import { seedDemo, type DemoSeedResult } from '../../seeds/seed-demo.ts';
 import { DEMO_USERS } from '../../seeds/demo-data.ts';
 
 export const TEST_PASSWORD = 'loomwright-demo';
+
+/**
+ * `npm run test:pg` sets TEST_DATABASE_URL to a PostgreSQL server (any database on it, used to
+ * create others): each test context then gets a database of its own there, dropped at close.
+ */
+export const TEST_DATABASE_URL = process.env.TEST_DATABASE_URL;
+/** The tests run against PostgreSQL: SQLite's own checks (pragmas, the file) do not apply. */
+export const onPostgres = Boolean(TEST_DATABASE_URL);
+
+/** A fresh, empty PostgreSQL database for one test context; answers its URL and its dropper. */
+export async function createPostgresDatabase(
+  serverUrl: string,
+): Promise<{ url: string; drop: () => Promise<void> }> {
+  const name = `lw_test_${process.pid}_${randomBytes(4).toString('hex')}`;
+  const admin = async (sql: string) => {
+    const client = new pg.Client({ connectionString: serverUrl });
+    await client.connect();
+    try {
+      await client.query(sql);
+    } finally {
+      await client.end();
+    }
+  };
+  // Byte order for text, as SQLite's default collation sorts it.
+  await admin(`CREATE DATABASE ${name} TEMPLATE template0 ENCODING 'UTF8' LOCALE 'C'`);
+  const url = new URL(serverUrl);
+  url.pathname = `/${name}`;
+  return {
+    url: url.toString(),
+    drop: () => admin(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`),
+  };
+}
 
 export interface TestContext {
   app: Express;
@@ -37,15 +70,17 @@ export async function createTestContext(
 ): Promise<TestContext> {
   const dir = mkdtempSync(path.join(tmpdir(), 'loomwright-test-'));
   const databasePath = path.join(dir, 'test.sqlite');
+  const postgres = TEST_DATABASE_URL ? await createPostgresDatabase(TEST_DATABASE_URL) : null;
   const env = loadEnv({
     NODE_ENV: 'test',
     DATABASE_PATH: databasePath,
     JWT_SECRET: randomBytes(32).toString('base64url'),
     BCRYPT_COST: '10',
     LOG_LEVEL: 'silent',
+    ...(postgres ? { DATABASE_URL: postgres.url } : {}),
     ...overrides,
   });
-  const sequelize = await connectDatabase(databasePath);
+  const sequelize = await connectDatabase(postgres ? postgres.url : databasePath);
   const demo = await seedDemo(sequelize, {
     password: TEST_PASSWORD,
     bcryptCost: 10,
@@ -68,6 +103,7 @@ export async function createTestContext(
     emailFor: (role) => DEMO_USERS.find((u) => u.role === role)!.email,
     close: async () => {
       await closeDatabase();
+      await postgres?.drop();
       rmSync(dir, { recursive: true, force: true });
     },
   };

@@ -10,7 +10,7 @@ import { BLANK_PIN_VALUES, type Pin } from '#shared/schemas/pin-map.schema.ts';
 import { db } from '#server/db/index.ts';
 import { AuditEvent, Connector, Pin as PinModel, PinImport } from '#server/db/models/index.ts';
 import { createOtherWorkshop } from '../factories/workshop.factory.ts';
-import { createTestContext, type TestContext } from '../helpers/test-app.ts';
+import { createTestContext, onPostgres, type TestContext } from '../helpers/test-app.ts';
 
 let ctx: TestContext;
 let builder: string;
@@ -360,10 +360,21 @@ describe('large files', () => {
     for (let c = 1; c <= 5; c++) {
       for (let i = 1; i <= 400; i++) csv += `R${c},C${i},Row ${(c - 1) * 400 + i}\n`;
     }
-    await db().query(
-      `CREATE TRIGGER fail_late BEFORE INSERT ON pins WHEN NEW.function = 'Row 1999'
-       BEGIN SELECT RAISE(ABORT, 'simulated failure'); END`,
-    );
+    if (onPostgres) {
+      await db().query(
+        `CREATE FUNCTION fail_late() RETURNS trigger LANGUAGE plpgsql AS $$
+           BEGIN RAISE EXCEPTION 'simulated failure'; END $$`,
+      );
+      await db().query(
+        `CREATE TRIGGER fail_late BEFORE INSERT ON pins FOR EACH ROW
+           WHEN (NEW.function = 'Row 1999') EXECUTE FUNCTION fail_late()`,
+      );
+    } else {
+      await db().query(
+        `CREATE TRIGGER fail_late BEFORE INSERT ON pins WHEN NEW.function = 'Row 1999'
+         BEGIN SELECT RAISE(ABORT, 'simulated failure'); END`,
+      );
+    }
     try {
       const before = await writeState();
       const res = await upload(intoConversion(conversion), csv);
@@ -372,7 +383,7 @@ describe('large files', () => {
       expect(await writeState()).toEqual(before);
       expect(await PinModel.count({ where: { conversionId: conversion } })).toBe(5);
     } finally {
-      await db().query('DROP TRIGGER fail_late');
+      await db().query(onPostgres ? 'DROP FUNCTION fail_late CASCADE' : 'DROP TRIGGER fail_late');
     }
   });
 
@@ -460,8 +471,8 @@ describe('files that cannot be read', () => {
     expect(preview.body.errors[0].message).toContain('byte 1 (0xFF');
     expect(await writeState()).toEqual(before);
     const [row] = await db().query<{ n: number }>(
-      `SELECT COUNT(*) AS n FROM pins WHERE instr(function || notes || destination || cavity, char(65533)) > 0`,
-      { type: QueryTypes.SELECT },
+      `SELECT COUNT(*) AS n FROM pins WHERE function || notes || destination || cavity LIKE :replacement`,
+      { type: QueryTypes.SELECT, replacements: { replacement: '%\uFFFD%' } },
     );
     expect(row!.n).toBe(0);
   });

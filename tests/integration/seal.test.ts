@@ -13,7 +13,7 @@ import type { Finding } from '#shared/schemas/checks.schema.ts';
 import type { ConversionSnapshot } from '#shared/schemas/snapshot.schema.ts';
 import { db } from '#server/db/index.ts';
 import { Revision } from '#server/db/models/index.ts';
-import { createTestContext, type TestContext } from '../helpers/test-app.ts';
+import { createTestContext, onPostgres, type TestContext } from '../helpers/test-app.ts';
 
 let ctx: TestContext;
 let conversionId: number;
@@ -108,7 +108,7 @@ describe('a revision rewritten in the database file', () => {
       'revisions_signed_immutable',
       'revisions_decided_immutable',
     ]) {
-      await raw(`DROP TRIGGER ${trigger}`);
+      await raw(onPostgres ? `DROP TRIGGER ${trigger} ON revisions` : `DROP TRIGGER ${trigger}`);
     }
   });
 

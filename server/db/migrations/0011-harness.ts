@@ -1,4 +1,5 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { insertReturningId } from '../portable.ts';
 import type { Migration } from './index.ts';
 
 /**
@@ -176,14 +177,11 @@ export async function deriveHarness(
     ),
   ]);
   const now = new Date().toISOString();
-  const insert = async (sql: string, replacements: Record<string, unknown>) => {
-    const [id] = await sequelize.query(sql, {
-      type: QueryTypes.INSERT,
+  const insert = (sql: string, replacements: Record<string, unknown>) =>
+    insertReturningId(sequelize, sql, {
       replacements: { now, conversionId, ...replacements },
       transaction,
     });
-    return id as unknown as number;
-  };
 
   // The box: a fuse and a relay position per feed, named in feed order.
   const fuseOf = new Map<number, number>();

@@ -13,6 +13,7 @@ import { electricalRules } from './0010-electrical-rules.ts';
 import { harness } from './0011-harness.ts';
 import { signals } from './0012-signals.ts';
 import { commentAnswers } from './0013-comment-answers.ts';
+import { POSTGRES_AFTER, POSTGRES_BEFORE, postgresMigrationContext } from './postgres.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -42,12 +43,26 @@ export const MIGRATIONS: Migration[] = [
 ];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {
+  const postgres = sequelize.getDialect() === 'postgres';
   const umzug = new Umzug<Sequelize>({
     migrations: MIGRATIONS.map((m) => ({
       name: m.name,
       // Each migration is all-or-nothing.
       up: async ({ context }: { context: Sequelize }) => {
-        await context.transaction((t) => m.up(context, t));
+        if (!postgres) {
+          await context.transaction((t) => m.up(context, t));
+          return;
+        }
+        // The same migration in PostgreSQL's words (./postgres.ts).
+        await context.transaction(async (transaction) => {
+          for (const sql of POSTGRES_BEFORE[m.name] ?? []) {
+            await context.query(sql, { transaction });
+          }
+          await m.up(postgresMigrationContext(context), transaction);
+          for (const sql of POSTGRES_AFTER[m.name] ?? []) {
+            await context.query(sql, { transaction });
+          }
+        });
       },
     })),
     context: sequelize,

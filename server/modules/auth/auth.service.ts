@@ -56,8 +56,8 @@ export async function userForToken(token: string): Promise<SessionUser | null> {
   if (!claims) return null;
   // On every request: one prepared statement, no model.
   const [row] = await readRows<SessionRow>(
-    `SELECT u.id, u.email, u.name, u.role, u.active, u.token_version AS tokenVersion,
-            w.id AS workshopId, w.name AS workshopName
+    `SELECT u.id, u.email, u.name, u.role, u.active, u.token_version AS "tokenVersion",
+            w.id AS "workshopId", w.name AS "workshopName"
        FROM users u JOIN workshops w ON w.id = u.workshop_id
       WHERE u.id = ?`,
     [Number(claims.sub)],

@@ -21,6 +21,7 @@ import type {
   WireEnd,
 } from '#shared/schemas/harness.schema.ts';
 import { db } from '../../db/index.ts';
+import { insertReturningId } from '../../db/portable.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
@@ -41,8 +42,8 @@ const query = <T extends object>(
 async function run(sql: string, replacements: Record<string, unknown>, transaction: Transaction) {
   const verb = sql.trimStart().slice(0, 6).toUpperCase();
   if (verb === 'INSERT') {
-    const [id] = await db().query(sql, { type: QueryTypes.INSERT, replacements, transaction });
-    return { changes: 1, lastId: id as unknown as number };
+    const id = await insertReturningId(db(), sql, { replacements, transaction });
+    return { changes: 1, lastId: id };
   }
   if (verb === 'UPDATE') {
     const [, changes] = await db().query(sql, {

@@ -17,6 +17,7 @@ import {
 } from '#shared/schemas/harness.schema.ts';
 import { WIRE_ZONES } from '#shared/schemas/feeds.schema.ts';
 import { db } from '../../db/index.ts';
+import { insertReturningId } from '../../db/portable.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { badRequest } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
@@ -275,13 +276,13 @@ export async function importWires(
         );
         wireId = same.id;
       } else {
-        const [id] = await db().query(
+        wireId = await insertReturningId(
+          db(),
           `INSERT INTO wires (conversion_id, label, colour, size_mm2, length_m, zone, branch, notes,
              version, created_at, updated_at)
            VALUES (:conversionId, :label, :colour, :size, :length, :zone, '', :notes, 0, :now, :now)`,
-          { type: QueryTypes.INSERT, replacements: values, transaction: t },
+          { replacements: values, transaction: t },
         );
-        wireId = id as unknown as number;
       }
       await writeEnds(wireId, row.ends, t);
     }

@@ -31,7 +31,7 @@ export async function listConnectors(
   await findConversionInWorkshop(actor, conversionId);
   const connectors = await Connector.findAll({ where: { conversionId }, order: [['id', 'ASC']] });
   const counts = await db().query<{ connectorId: number; disposition: Disposition; n: number }>(
-    `SELECT connector_id AS connectorId, disposition, COUNT(*) AS n FROM pins
+    `SELECT connector_id AS "connectorId", disposition, COUNT(*) AS n FROM pins
      WHERE conversion_id = :conversionId GROUP BY connector_id, disposition`,
     { replacements: { conversionId }, type: QueryTypes.SELECT },
   );

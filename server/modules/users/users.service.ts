@@ -91,7 +91,9 @@ async function answerForTakenAddress(
   input: CreateUserRequest,
 ): Promise<UserSummary> {
   const [row] = await db().query<{ seq: number }>(
-    "UPDATE sqlite_sequence SET seq = seq + 1 WHERE name = 'users' RETURNING seq",
+    db().getDialect() === 'postgres'
+      ? "SELECT nextval(pg_get_serial_sequence('users', 'id')) AS seq"
+      : "UPDATE sqlite_sequence SET seq = seq + 1 WHERE name = 'users' RETURNING seq",
     { transaction: t, type: QueryTypes.SELECT },
   );
   // The sequence row exists once any user has been created, and an admin is asking.
