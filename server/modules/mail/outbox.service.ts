@@ -1,5 +1,5 @@
 import nodemailer, { type Transporter } from 'nodemailer';
-import { Op, type Transaction } from 'sequelize';
+import { Op, Transaction } from 'sequelize';
 import { EmailSchema } from '#shared/schemas/auth.schema.ts';
 import { config } from '../../config/runtime.ts';
 import { MailOutbox } from '../../db/models/index.ts';
@@ -109,13 +109,13 @@ export function deliverDueMail(): Promise<number> {
   return pass;
 }
 
+const DUE = () => ({ status: 'pending', nextAttemptAt: { [Op.lte]: new Date() } });
+const BATCH = 50;
+
 async function deliver(): Promise<number> {
   if (!transport) return 0;
-  const due = await MailOutbox.findAll({
-    where: { status: 'pending', nextAttemptAt: { [Op.lte]: new Date() } },
-    order: [['id', 'ASC']],
-    limit: 50,
-  });
+  if (MailOutbox.sequelize!.getDialect() === 'postgres') return deliverClaimingRows();
+  const due = await MailOutbox.findAll({ where: DUE(), order: [['id', 'ASC']], limit: BATCH });
   let sent = 0;
   for (const row of due) {
     const [claimed] = await MailOutbox.update(
@@ -123,48 +123,80 @@ async function deliver(): Promise<number> {
       { where: { id: row.id, status: 'pending' } },
     );
     if (claimed !== 1) continue;
-    try {
-      const messageId = noticeMessageId(row);
-      await transport.sendMail({
-        messageId,
-        from: fromAddress,
-        to: row.toAddress,
-        subject: row.subject,
-        text: row.textBody,
-      });
-      await MailOutbox.update(
-        {
-          status: 'sent',
-          sentAt: new Date(),
-          messageId,
-          attempts: row.attempts + 1,
-          // A sent invitation's one-time link is not kept anywhere.
-          ...(row.kind === 'invitation'
-            ? { textBody: '[sent; the one-time link is not kept]' }
-            : {}),
-        },
-        { where: { id: row.id } },
-      );
-      sent += 1;
-    } catch (err) {
-      const attempts = row.attempts + 1;
-      const delayS = Math.min(15 * 60, 5 * 2 ** (attempts - 1));
-      await MailOutbox.update(
-        {
-          status: attempts >= MAX_ATTEMPTS ? 'failed' : 'pending',
-          attempts,
-          lastError: (err as Error).message.slice(0, 300),
-          nextAttemptAt: new Date(Date.now() + delayS * 1000),
-        },
-        { where: { id: row.id } },
-      );
-      logger.warn(
-        { outboxId: row.id, attempts, err: (err as Error).message },
-        'mail not sent; will retry',
-      );
-    }
+    const outcome = await sendOne(row);
+    await MailOutbox.update(outcome, { where: { id: row.id } });
+    if (outcome.status === 'sent') sent += 1;
   }
   return sent;
+}
+
+/**
+ * PostgreSQL, where several app processes send from one outbox: each notice is sent inside a
+ * transaction that holds its row locked (`FOR UPDATE SKIP LOCKED`), so another process passes it
+ * by, and the row is marked in the same transaction. A process that dies mid-send leaves no
+ * 'sending' row behind for a restart to reset: its lock goes with its connection and the notice is
+ * still pending (sent again with the same Message-ID, as after a crash on SQLite).
+ * docs/decisions/0015-postgresql.md
+ */
+async function deliverClaimingRows(): Promise<number> {
+  const sequelize = MailOutbox.sequelize!;
+  let sent = 0;
+  for (let n = 0; n < BATCH; n++) {
+    const outcome = await sequelize.transaction(
+      { isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED },
+      async (t) => {
+        const row = await MailOutbox.findOne({
+          where: DUE(),
+          order: [['id', 'ASC']],
+          lock: t.LOCK.UPDATE,
+          skipLocked: true,
+          transaction: t,
+        });
+        if (!row) return null;
+        const result = await sendOne(row);
+        await MailOutbox.update(result, { where: { id: row.id }, transaction: t });
+        return result;
+      },
+    );
+    if (!outcome) break;
+    if (outcome.status === 'sent') sent += 1;
+  }
+  return sent;
+}
+
+/** Sends one notice and answers what its row becomes: sent, or pending again later (or failed). */
+async function sendOne(row: MailOutbox) {
+  try {
+    const messageId = noticeMessageId(row);
+    await transport!.sendMail({
+      messageId,
+      from: fromAddress,
+      to: row.toAddress,
+      subject: row.subject,
+      text: row.textBody,
+    });
+    return {
+      status: 'sent' as const,
+      sentAt: new Date(),
+      messageId,
+      attempts: row.attempts + 1,
+      // A sent invitation's one-time link is not kept anywhere.
+      ...(row.kind === 'invitation' ? { textBody: '[sent; the one-time link is not kept]' } : {}),
+    };
+  } catch (err) {
+    const attempts = row.attempts + 1;
+    const delayS = Math.min(15 * 60, 5 * 2 ** (attempts - 1));
+    logger.warn(
+      { outboxId: row.id, attempts, err: (err as Error).message },
+      'mail not sent; will retry',
+    );
+    return {
+      status: attempts >= MAX_ATTEMPTS ? ('failed' as const) : ('pending' as const),
+      attempts,
+      lastError: (err as Error).message.slice(0, 300),
+      nextAttemptAt: new Date(Date.now() + delayS * 1000),
+    };
+  }
 }
 
 let timer: NodeJS.Timeout | null = null;
