@@ -417,46 +417,42 @@ test('1,200 pins scroll and edit without stalling', async ({ page }) => {
     });
     expect(made.status()).toBe(201);
   }
-  const started = Date.now();
   await page.goto(`/conversions/${conversion.id}/pins`);
   await expect(page.getByText('Showing 1200 of 1200 pins')).toBeVisible();
-  const loadMs = Date.now() - started;
 
-  // Only the rows in view are in the page.
-  const drawn = await grid(page).locator('[role="row"][data-pin]').count();
-  expect(drawn).toBeLessThan(80);
+  // Only the rows in view are in the page, wherever the grid is: a stall would be the whole grid
+  // drawn (or drawn again) at once. Speed itself is measured by `npm run bench` (P6), not here.
+  const drawnRows = () => grid(page).locator('[role="row"][data-pin]').count();
+  expect(await drawnRows()).toBeLessThan(80);
 
   await cell(page, 'A-1', 'function').click();
-  const timings: number[] = [];
-  async function timed(action: () => Promise<void>) {
-    const t = Date.now();
-    await action();
-    timings.push(Date.now() - t);
-  }
-  await timed(async () => {
-    await page.keyboard.press('ControlOrMeta+End');
-    await expect(row(page, 'C-400')).toBeVisible();
-  });
-  await timed(async () => {
-    await page.keyboard.type('Last cavity of the rig');
-    await page.keyboard.press('Enter');
-    await expect(cell(page, 'C-400', 'function')).toContainText('Last cavity of the rig');
-  });
+  await page.keyboard.press('ControlOrMeta+End');
+  await expect(row(page, 'C-400')).toBeVisible();
+  expect(await drawnRows()).toBeLessThan(80);
+  await page.keyboard.type('Last cavity of the rig');
+  await page.keyboard.press('Enter');
+  await expect(cell(page, 'C-400', 'function')).toContainText('Last cavity of the rig');
   for (let i = 0; i < 5; i++) {
-    await timed(async () => {
-      await page.keyboard.press('PageUp');
-      await expect(grid(page)).toHaveAttribute('aria-activedescendant', /.+/);
-    });
+    await page.keyboard.press('PageUp');
+    await expect(grid(page)).toHaveAttribute('aria-activedescendant', /.+/);
   }
-  await timed(async () => {
-    await grid(page).evaluate((el) => el.scrollTo({ top: el.scrollHeight / 2 }));
-    await expect(row(page, 'B-200')).toBeVisible();
-  });
+  expect(await drawnRows()).toBeLessThan(80);
+
+  // Moving the cursor within the view keeps the rows' elements: each key redraws what changed,
+  // not every row. Rows are marked, the cursor moves, and the marked elements are still there.
+  const marked = await grid(page)
+    .locator('[role="row"][data-pin]')
+    .evaluateAll((rows) => {
+      for (const r of rows) r.setAttribute('data-seen', '1');
+      return rows.length;
+    });
+  for (let i = 0; i < 3; i++) await page.keyboard.press('ArrowUp');
+  await expect(grid(page)).toHaveAttribute('aria-activedescendant', /.+/);
+  const stillMarked = await grid(page).locator('[role="row"][data-pin][data-seen="1"]').count();
+  expect(stillMarked).toBeGreaterThanOrEqual(marked - 4);
+
+  await grid(page).evaluate((el) => el.scrollTo({ top: el.scrollHeight / 2 }));
+  await expect(row(page, 'B-200')).toBeVisible();
+  expect(await drawnRows()).toBeLessThan(80);
   await allSaved(page);
-  test.info().annotations.push({
-    type: 'timings',
-    description: `load ${loadMs} ms; actions ${timings.join(', ')} ms`,
-  });
-  // Generous: this guards against a stall (a whole-grid redraw per key), not a speed target.
-  for (const ms of timings) expect(ms).toBeLessThan(2000);
 });
