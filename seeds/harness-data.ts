@@ -182,7 +182,7 @@ export async function seedHarness(
     );
   }
 
-  // The signals the rules read: the tach output and its gauge, the CAN terminations, a shield.
+  // The signals the rules read: the tach output and its gauge, the CAN pair, a shield.
   const setPin = (connector: string, cavity: string, values: Record<string, unknown>) =>
     exec(
       `UPDATE pins SET ${Object.keys(values)
@@ -198,6 +198,16 @@ export async function seedHarness(
     pulse_signal: options.draft ? 'square_12v' : 'open_collector',
     pulses_per_rev: 2,
   });
+  // The signed-off plan runs its CAN pair twisted (twist group T1); the draft has not yet.
+  if (!options.draft) {
+    await exec(
+      `UPDATE wires SET twist_group = 'T1' WHERE conversion_id = :conversionId AND id IN (
+         SELECT e.wire_id FROM wire_ends e JOIN pins p ON p.id = e.pin_id
+           JOIN connectors c ON c.id = p.connector_id
+          WHERE c.conversion_id = :conversionId AND c.label = 'E2' AND p.cavity IN ('15', '16'))`,
+      {},
+    );
+  }
   if (options.draft) {
     // The ECU holds one CAN terminator; the donor's dropped gateway held the other.
     await setPin('E2', '15', { termination_ohm: 120 });

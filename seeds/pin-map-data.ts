@@ -294,28 +294,35 @@ const DLC: DemoConnector = {
 
 export const SIGNED_OFF_CONNECTORS: DemoConnector[] = [E1, E2, E3, V1, DLC];
 
+/** Pins of one connector with some cavities replaced. */
+const withPins = (connector: DemoConnector, replaced: DemoPin[]): DemoConnector => ({
+  ...connector,
+  pins: connector.pins.map((p) => replaced.find((r) => r[0] === p[0]) ?? p),
+});
+
 /**
- * The draft differs from the signed-off plan by the problems the checks must find: two pins still
- * undecided, and an extra chassis ground joined to a sensor ground.
+ * The draft differs from the signed-off plan by the problems the checks must find (two pins still
+ * undecided, an extra chassis ground joined to a sensor ground) and by the electronic throttle's
+ * accelerator pedal, wired through the bulkhead: two signal tracks, a 5 V reference and a ground.
  */
 export const DRAFT_CONNECTORS: DemoConnector[] = [
-  {
-    ...E1,
-    pins: E1.pins.map((p) =>
-      p[0] === '19'
-        ? [
-            '19',
-            'Sensor ground A',
-            'sensor_ground',
-            'BN',
-            0.5,
-            'join',
-            'Chassis ground stud, left inner wing',
-          ]
-        : p,
-    ),
-  },
-  E2,
+  withPins(E1, [
+    [
+      '19',
+      'Sensor ground A',
+      'sensor_ground',
+      'BN',
+      0.5,
+      'join',
+      'Chassis ground stud, left inner wing',
+    ],
+    ['38', 'Pedal sensor reference 5 V', 'sensor_reference', 'OG/GN', 0.5, 'join', 'V1-11'],
+    ['39', 'Pedal sensor ground', 'sensor_ground', 'BN/GN', 0.5, 'join', 'V1-12'],
+  ]),
+  withPins(E2, [
+    ['27', 'Pedal position 1 signal', 'sensor_signal', 'GN/WH', 0.5, 'join', 'V1-9'],
+    ['28', 'Pedal position 2 signal', 'sensor_signal', 'GN/YE', 0.5, 'join', 'V1-10'],
+  ]),
   {
     ...E3,
     pins: E3.pins.map((p) =>
@@ -324,6 +331,27 @@ export const DRAFT_CONNECTORS: DemoConnector[] = [
         : p,
     ),
   },
-  V1,
+  withPins(V1, [
+    ['9', 'Pedal track 1', 'sensor_signal', 'GN/WH', 0.5, 'join', 'Accelerator pedal, track 1'],
+    ['10', 'Pedal track 2', 'sensor_signal', 'GN/YE', 0.5, 'join', 'Accelerator pedal, track 2'],
+    [
+      '11',
+      'Pedal sensor reference 5 V',
+      'sensor_reference',
+      'OG/GN',
+      0.5,
+      'join',
+      'Accelerator pedal, 5 V',
+    ],
+    [
+      '12',
+      'Pedal sensor ground',
+      'sensor_ground',
+      'BN/GN',
+      0.5,
+      'join',
+      'Accelerator pedal, ground',
+    ],
+  ]),
   DLC,
 ];

@@ -39,6 +39,12 @@ export const CHECK_RULES = [
   'power_ground_unreached',
   'ground_strap_small',
   'sensor_ground_to_power_ground',
+  'can_pair_untwisted',
+  'can_stub_long',
+  'diagnostic_pin_wrong_line',
+  'crank_cam_unprotected',
+  'ecu_power_not_from_main_relay',
+  'pedal_track_removed',
 ] as const;
 export type CheckRule = (typeof CHECK_RULES)[number];
 

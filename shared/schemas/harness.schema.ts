@@ -63,6 +63,10 @@ const wireShape = {
   zone: z.enum(WIRE_ZONES).optional(),
   branch: optionalText(80).optional(),
   notes: noteText(2000).optional(),
+  /** Wires sharing a twist group are twisted together ("T1"); empty when run loose. */
+  twistGroup: optionalText(12).optional(),
+  /** Runs inside a shielded cable. */
+  shielded: z.boolean().optional(),
 };
 
 export const CreateWireRequest = z.strictObject({
@@ -89,6 +93,10 @@ export interface Wire {
   zone: WireZone;
   branch: string;
   notes: string;
+  /** Absent in revisions frozen before wires recorded it (read as ''). */
+  twistGroup?: string;
+  /** Absent in revisions frozen before wires recorded it (read as false). */
+  shielded?: boolean;
   ends: [WireEnd, WireEnd];
   version: number;
 }

@@ -235,8 +235,10 @@ describe('the wire list as CSV', () => {
     expect(csv.status).toBe(200);
     const body = (csv.body as string).replace(/^\uFEFF/, '');
     const [header, first] = body.split('\r\n');
-    expect(header).toBe('label,colour,size_mm2,length_m,zone,end_a,end_b,notes');
-    expect(first).toMatch(/^W-001,RD,2\.5,,engine_bay,battery,F1:in,$/);
+    expect(header).toBe(
+      'label,colour,size_mm2,length_m,zone,end_a,end_b,notes,twist_group,shielded',
+    );
+    expect(first).toMatch(/^W-001,RD,2\.5,,engine_bay,battery,F1:in,,,no$/);
 
     const dry = await request(ctx.app)
       .post(`/api/conversions/${draft}/wires/import?dryRun=1`)
@@ -382,8 +384,66 @@ describe('signal rules on the demo', () => {
     const signedOff = await request(ctx.app)
       .post(`/api/conversions/${ctx.demo.conversions.signedOff}/checks`)
       .set('Authorization', builder);
-    expect((signedOff.body.findings as Finding[]).filter((f) => f.severity === 'error')).toEqual(
-      [],
-    );
+    const signedOffFindings = signedOff.body.findings as Finding[];
+    expect(signedOffFindings.filter((f) => f.severity === 'error')).toEqual([]);
+    // The signed-off plan runs its CAN pair twisted; the draft does not yet.
+    expect(signedOffFindings.some((f) => f.rule === 'can_pair_untwisted')).toBe(false);
+    expect(rule('can_pair_untwisted')?.message).toMatch(/same twist group/);
+  });
+
+  it('clears the CAN pair finding once both wires share a twist group, by the API and by CSV', async () => {
+    const pairFinding = async () =>
+      (
+        (
+          await request(ctx.app)
+            .post(`/api/conversions/${draft}/checks`)
+            .set('Authorization', builder)
+        ).body.findings as Finding[]
+      ).find((f) => f.rule === 'can_pair_untwisted');
+    const found = await pairFinding();
+    expect(found?.working).toHaveLength(2);
+    const labels = found!.working.map((line) => line.split(':')[0]!);
+    const wires = (await wiresOf(draft)).filter((w) => labels.includes(w.label));
+    expect(wires).toHaveLength(2);
+
+    // One wire twisted by the API: the other is still loose.
+    const patched = await request(ctx.app)
+      .patch(`/api/wires/${wires[0]!.id}`)
+      .set('Authorization', builder)
+      .send({ twistGroup: 'T1', version: wires[0]!.version });
+    expect(patched.status).toBe(200);
+    expect(patched.body.wire.twistGroup).toBe('T1');
+    expect((await pairFinding())?.working).toHaveLength(2);
+
+    // The other by CSV, with a bad shielded cell first: refused with row and column, nothing written.
+    const header = 'label,end_a,end_b,twist_group,shielded';
+    const ends = async (w: Wire) => {
+      const csv = await text(
+        request(ctx.app).get(`/api/conversions/${draft}/wires.csv`).set('Authorization', builder),
+      );
+      const row = (csv.body as string).split('\r\n').find((l) => l.startsWith(`${w.label},`))!;
+      return row.split(',').slice(5, 7).join(',');
+    };
+    const line = `${wires[1]!.label},${await ends(wires[1]!)}`;
+    const refused = await request(ctx.app)
+      .post(`/api/conversions/${draft}/wires/import`)
+      .set('Authorization', builder)
+      .attach('file', Buffer.from(`${header}\r\n${line},T1,maybe\r\n`), 'wires.csv');
+    expect(refused.status).toBe(422);
+    expect(refused.body.errors).toEqual([expect.objectContaining({ row: 2, column: 'shielded' })]);
+    const imported = await request(ctx.app)
+      .post(`/api/conversions/${draft}/wires/import`)
+      .set('Authorization', builder)
+      .attach('file', Buffer.from(`${header}\r\n${line},T1,yes\r\n`), 'wires.csv');
+    expect(imported.status).toBe(200);
+    expect(await pairFinding()).toBeUndefined();
+    const after = (await wiresOf(draft)).find((w) => w.id === wires[1]!.id)!;
+    // Columns the file left out (colour, size, notes) are kept, not blanked.
+    expect(after).toMatchObject({
+      twistGroup: 'T1',
+      shielded: true,
+      colour: wires[1]!.colour,
+      sizeMm2: wires[1]!.sizeMm2,
+    });
   });
 });

@@ -14,6 +14,7 @@ import { harness } from './0011-harness.ts';
 import { signals } from './0012-signals.ts';
 import { commentAnswers } from './0013-comment-answers.ts';
 import { POSTGRES_AFTER, POSTGRES_BEFORE, postgresMigrationContext } from './postgres.ts';
+import { wirePairs } from './0014-wire-pairs.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -40,6 +41,7 @@ export const MIGRATIONS: Migration[] = [
   harness,
   signals,
   commentAnswers,
+  wirePairs,
 ];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {

@@ -26,6 +26,8 @@ interface WireRow {
   zone: Wire['zone'];
   branch: string;
   notes: string;
+  twist_group: string;
+  shielded: number | boolean;
   version: number;
 }
 export interface EndRow {
@@ -110,6 +112,8 @@ export function toWire(row: WireRow, ends: EndRow[]): Wire {
     zone: row.zone,
     branch: row.branch,
     notes: row.notes,
+    twistGroup: row.twist_group,
+    shielded: Boolean(row.shielded),
     ends: [toEnd(byIndex[0]!), toEnd(byIndex[1]!)],
     version: row.version,
   };

@@ -193,9 +193,9 @@ export async function createWire(
     const now = new Date().toISOString();
     const { lastId } = await run(
       `INSERT INTO wires (conversion_id, label, colour, size_mm2, insulation_rating_c, length_m,
-         zone, branch, notes, version, created_at, updated_at)
+         zone, branch, notes, twist_group, shielded, version, created_at, updated_at)
        VALUES (:conversionId, :label, :colour, :size, :insulation, :length, :zone, :branch, :notes,
-         0, :now, :now)`,
+         :twistGroup, :shielded, 0, :now, :now)`,
       {
         conversionId,
         label,
@@ -206,6 +206,8 @@ export async function createWire(
         zone: input.zone ?? 'cabin',
         branch: input.branch ?? '',
         notes: input.notes ?? '',
+        twistGroup: input.twistGroup ?? '',
+        shielded: input.shielded ?? false,
         now,
       },
       t,
@@ -244,7 +246,8 @@ export async function updateWire(
     const { changes } = await run(
       `UPDATE wires SET label = :label, colour = :colour, size_mm2 = :size,
          insulation_rating_c = :insulation, length_m = :length, zone = :zone, branch = :branch,
-         notes = :notes, version = version + 1, updated_at = :now
+         notes = :notes, twist_group = :twistGroup, shielded = :shielded,
+         version = version + 1, updated_at = :now
        WHERE id = :wireId AND version = :version`,
       {
         wireId,
@@ -257,6 +260,8 @@ export async function updateWire(
         zone: merged.zone,
         branch: merged.branch,
         notes: merged.notes,
+        twistGroup: merged.twistGroup ?? '',
+        shielded: merged.shielded ?? false,
         now: new Date().toISOString(),
       },
       t,

@@ -37,7 +37,17 @@ export const WIRE_CSV_HEADERS = [
   'end_a',
   'end_b',
   'notes',
+  'twist_group',
+  'shielded',
 ] as const;
+
+/** How the shielded column reads: yes/no, and the usual spellings of both. */
+function readShielded(text: string): boolean | undefined {
+  const t = text.trim().toLowerCase();
+  if (['yes', 'y', 'true', '1', 'shielded'].includes(t)) return true;
+  if (['', 'no', 'n', 'false', '0'].includes(t)) return false;
+  return undefined;
+}
 
 /** A wire list is small: 2 MB is thousands of wires. */
 export const uploadOne = singleFileUpload({ maxBytes: () => 2 * 1024 * 1024 });
@@ -133,6 +143,8 @@ export async function exportWires(
         names.nameOf(w.ends[0]),
         names.nameOf(w.ends[1]),
         w.notes,
+        w.twistGroup ?? '',
+        w.shielded ? 'yes' : 'no',
       ]),
     );
   }
@@ -182,6 +194,9 @@ export async function importWires(
   const rows: Array<
     Omit<Wire, 'id' | 'conversionId' | 'version' | 'label'> & { label: string | null }
   > = [];
+  // A column the file leaves out leaves that field of an existing wire alone.
+  const kept = <T>(column: string, read: T, existing: T | undefined): T =>
+    col(column) >= 0 || existing === undefined ? read : existing;
   const labels = new Set<string>();
   for (const record of table.records) {
     const cell = (name: string) => {
@@ -222,6 +237,10 @@ export async function importWires(
     if (!(WIRE_ZONES as readonly string[]).includes(zone)) {
       problem('zone', `"${zone}" is not a zone: use ${WIRE_ZONES.join(' or ')}`);
     }
+    const twistGroup = cell('twist_group');
+    if (twistGroup.length > 12) problem('twist_group', 'a twist group is at most 12 characters');
+    const shielded = readShielded(cell('shielded'));
+    if (shielded === undefined) problem('shielded', `"${cell('shielded')}" is not yes or no`);
     const ends: WireEnd[] = [];
     for (const column of ['end_a', 'end_b'] as const) {
       const read = names.read(cell(column));
@@ -237,6 +256,8 @@ export async function importWires(
       zone,
       branch: '',
       notes: cell('notes'),
+      twistGroup,
+      shielded: shielded ?? false,
       ends: [
         ends[0] ?? { kind: 'unresolved', text: '' },
         ends[1] ?? { kind: 'unresolved', text: '' },
@@ -260,18 +281,21 @@ export async function importWires(
       const values = {
         conversionId,
         label,
-        colour: row.colour,
-        size: row.sizeMm2,
-        length: row.lengthM,
-        zone: row.zone,
-        notes: row.notes,
+        colour: kept('colour', row.colour, same?.colour),
+        size: kept('size_mm2', row.sizeMm2, same?.sizeMm2),
+        length: kept('length_m', row.lengthM, same?.lengthM),
+        zone: kept('zone', row.zone, same?.zone),
+        notes: kept('notes', row.notes, same?.notes),
+        twistGroup: kept('twist_group', row.twistGroup ?? '', same?.twistGroup),
+        shielded: kept('shielded', row.shielded ?? false, same?.shielded),
         now,
       };
       let wireId: number;
       if (same) {
         await db().query(
           `UPDATE wires SET colour = :colour, size_mm2 = :size, length_m = :length, zone = :zone,
-             notes = :notes, version = version + 1, updated_at = :now WHERE id = :id`,
+             notes = :notes, twist_group = :twistGroup, shielded = :shielded,
+             version = version + 1, updated_at = :now WHERE id = :id`,
           { replacements: { ...values, id: same.id }, transaction: t },
         );
         wireId = same.id;
@@ -279,8 +303,9 @@ export async function importWires(
         wireId = await insertReturningId(
           db(),
           `INSERT INTO wires (conversion_id, label, colour, size_mm2, length_m, zone, branch, notes,
-             version, created_at, updated_at)
-           VALUES (:conversionId, :label, :colour, :size, :length, :zone, '', :notes, 0, :now, :now)`,
+             twist_group, shielded, version, created_at, updated_at)
+           VALUES (:conversionId, :label, :colour, :size, :length, :zone, '', :notes, :twistGroup,
+             :shielded, 0, :now, :now)`,
           { replacements: values, transaction: t },
         );
       }

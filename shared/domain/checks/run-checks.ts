@@ -19,6 +19,14 @@ import {
   checkShields,
 } from './signal-rules.ts';
 import {
+  checkCanPairs,
+  checkCanStubs,
+  checkCrankCamWiring,
+  checkDiagnosticConnector,
+  checkEcuMainPower,
+  checkPedalTracks,
+} from './signal-wiring-rules.ts';
+import {
   cavitiesWithTwoWires,
   groundPinsKept,
   harnessGraph,
@@ -70,6 +78,12 @@ export function storedFindings(snapshot: ConversionSnapshot, options: CheckOptio
     ...checkCoilSupplies(ctx, graph),
     ...checkLampOutputs(ctx, graph),
     ...checkEcuPowerAndGrounds(ctx, graph),
+    ...checkCanPairs(ctx, graph),
+    ...checkCanStubs(ctx, graph),
+    ...checkDiagnosticConnector(ctx, graph),
+    ...checkCrankCamWiring(ctx, graph),
+    ...checkEcuMainPower(ctx, graph),
+    ...checkPedalTracks(ctx),
     ...(graph
       ? [
           ...powerPinsByWire(ctx, graph),

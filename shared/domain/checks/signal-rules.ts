@@ -209,6 +209,8 @@ export function checkSensorReferences(ctx: CheckContext, graph: HarnessGraph | n
     ] as const) {
       if (ref.signalClass !== 'sensor_reference') continue;
       if (ctx.connectors.get(other.connectorId)?.side !== 'vehicle') continue;
+      // Carried on to one of the ECU's own sensors (a pedal through the bulkhead): not a load.
+      if (other.signalClass === 'sensor_reference') continue;
       findings.push(
         finding({
           rule: 'reference_feeds_vehicle',

@@ -74,6 +74,11 @@ export const SOURCES = {
     citation:
       'ISO 11898-2 (high-speed CAN): a 120 Ω termination at each end of the bus, so about 60 Ω across CAN-H and CAN-L with the power off',
   },
+  'sae-j1962': {
+    title: 'Diagnostic connector',
+    citation:
+      'SAE J1962 16-pin diagnostic connector: 4 chassis ground, 5 signal ground, 6 CAN high, 14 CAN low, 7 K-line, 15 L-line, 2 and 10 SAE J1850 bus + and −, 16 battery + (unswitched)',
+  },
   'from-memory': {
     title: 'From memory',
     citation: 'From memory: not verified at a published source',

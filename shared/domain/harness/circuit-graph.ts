@@ -302,6 +302,60 @@ export class HarnessGraph {
   }
 
   /**
+   * What a pin is joined to by wire through splices only (never through a box, a device or another
+   * pin): the other pins on the same line and every wire of it. A bus line is read this way.
+   */
+  line(pinId: number): { pinIds: number[]; wireIds: number[]; spliceIds: number[] } {
+    const start = `pin:${pinId}`;
+    const pinIds: number[] = [];
+    const wireIds = new Set<number>();
+    const spliceIds: number[] = [];
+    const seen = new Set([start]);
+    const queue = [start];
+    while (queue.length) {
+      const at = queue.shift()!;
+      for (const edge of this.adjacency.get(at) ?? []) {
+        if (edge.wireId == null) continue;
+        wireIds.add(edge.wireId);
+        const next = edge.from === at ? edge.to : edge.from;
+        if (seen.has(next)) continue;
+        seen.add(next);
+        const [kind, id] = next.split(':');
+        if (kind === 'pin') pinIds.push(Number(id));
+        if (kind === 'splice') {
+          spliceIds.push(Number(id));
+          queue.push(next);
+        }
+      }
+    }
+    return { pinIds, wireIds: [...wireIds], spliceIds };
+  }
+
+  /**
+   * Whether a pin is fed from a relay's output (87): walking from the pin through splices and
+   * fuses, never through relay contacts or a device, until a relay's 87 is met.
+   */
+  relayOutputFeeding(pinId: number): number | null {
+    const start = `pin:${pinId}`;
+    const seen = new Set([start]);
+    const queue = [start];
+    while (queue.length) {
+      const at = queue.shift()!;
+      for (const edge of this.adjacency.get(at) ?? []) {
+        if (edge.wireId == null) continue;
+        const leavingFrom = edge.from === at;
+        const next = leavingFrom ? edge.to : edge.from;
+        const nextTerminal = leavingFrom ? edge.toTerminal : edge.fromTerminal;
+        if (next.startsWith('relay:') && nextTerminal === '87') return Number(next.split(':')[1]);
+        if (seen.has(next)) continue;
+        seen.add(next);
+        if (next.startsWith('splice:') || next.startsWith('fuse:')) queue.push(next);
+      }
+    }
+    return null;
+  }
+
+  /**
    * The ground points a pin reaches by wire, through splices and devices but never through an ECU
    * or another connector: the path the checks read a sensor ground's extra ground from.
    */

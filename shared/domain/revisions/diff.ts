@@ -195,6 +195,8 @@ function harnessItems(s: ConversionSnapshot): Map<string, Record<string, unknown
       endA: endName(w.ends[0]),
       endB: endName(w.ends[1]),
       notes: w.notes,
+      twistGroup: w.twistGroup ?? '',
+      shielded: w.shielded ?? false,
     });
   }
   for (const x of h.splices)

@@ -36,6 +36,10 @@ export function CellValue({
       return <span className="whitespace-nowrap">{zoneLabel(wire.zone)}</span>;
     case 'notes':
       return <span className="text-ink-soft">{wire.notes}</span>;
+    case 'twist':
+      return <span className="font-mono">{wire.twistGroup || '—'}</span>;
+    case 'shielded':
+      return <span>{wire.shielded ? 'yes' : 'no'}</span>;
     case 'endA':
     case 'endB': {
       const end = wire.ends[col === 'endA' ? 0 : 1];

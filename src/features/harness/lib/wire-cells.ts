@@ -10,6 +10,8 @@ export const WIRE_COLUMNS = [
   'zone',
   'endA',
   'endB',
+  'twist',
+  'shielded',
   'notes',
 ] as const;
 export type WireColumnId = (typeof WIRE_COLUMNS)[number];
@@ -22,6 +24,8 @@ export const WIRE_COLUMN_HEADERS: Record<WireColumnId, string> = {
   zone: 'Zone',
   endA: 'End A',
   endB: 'End B',
+  twist: 'Twist group',
+  shielded: 'Shielded',
   notes: 'Notes',
 };
 
@@ -33,6 +37,8 @@ export const WIRE_COLUMN_WIDTHS: Record<WireColumnId, number> = {
   zone: 140,
   endA: 220,
   endB: 220,
+  twist: 84,
+  shielded: 80,
   notes: 140,
 };
 
@@ -57,6 +63,10 @@ export function cellText(wire: Wire, col: WireColumnId): string {
       return wire.zone;
     case 'notes':
       return wire.notes;
+    case 'twist':
+      return wire.twistGroup ?? '';
+    case 'shielded':
+      return wire.shielded ? 'yes' : 'no';
     case 'endA':
     case 'endB':
       return '';
@@ -88,6 +98,17 @@ export function cellChange(col: WireColumnId, text: string): CellChange {
       return { ok: true, patch: { colour: text.trim() } };
     case 'notes':
       return { ok: true, patch: { notes: text } };
+    case 'twist':
+      return text.trim().length <= 12
+        ? { ok: true, patch: { twistGroup: text.trim() } }
+        : { ok: false, message: 'A twist group is at most 12 characters ("T1").' };
+    case 'shielded': {
+      const t = text.trim().toLowerCase();
+      if (['y', 'yes', 'true', '1'].includes(t)) return { ok: true, patch: { shielded: true } };
+      if (['', 'n', 'no', 'false', '0'].includes(t))
+        return { ok: true, patch: { shielded: false } };
+      return { ok: false, message: 'Type yes or no.' };
+    }
     case 'zone':
       return (WIRE_ZONES as readonly string[]).includes(text)
         ? { ok: true, patch: { zone: text as WireZone } }

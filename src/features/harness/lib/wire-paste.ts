@@ -67,6 +67,8 @@ export function inversePatch(wire: Wire, patch: WirePatch): WirePatch {
   if (patch.lengthM !== undefined) back.lengthM = wire.lengthM;
   if (patch.zone !== undefined) back.zone = wire.zone;
   if (patch.notes !== undefined) back.notes = wire.notes;
+  if (patch.twistGroup !== undefined) back.twistGroup = wire.twistGroup ?? '';
+  if (patch.shielded !== undefined) back.shielded = wire.shielded ?? false;
   if (patch.branch !== undefined) back.branch = wire.branch;
   if (patch.insulationRatingC !== undefined) back.insulationRatingC = wire.insulationRatingC;
   if (patch.ends !== undefined) back.ends = wire.ends;

@@ -34,6 +34,8 @@ const FIELD_LABELS: Record<string, string> = {
   cavityCount: 'Cavities',
   rows: 'Rows',
   columns: 'Columns',
+  twistGroup: 'Twist group',
+  shielded: 'Shielded',
 };
 
 /** Links arrive named ("V1-3", a feed's name) rather than as ids: shown as they come. */
@@ -49,6 +51,7 @@ function show(field: string, value: unknown, unit: SizeUnit): string {
     const w = value as FeedWire;
     return `${formatWireSize(w.sizeMm2, unit)}, ${w.lengthM} m, ${WIRE_ZONE_LABELS[w.zone].toLowerCase()}, ${RETURN_PATH_LABELS[w.returnPath].toLowerCase()}${w.colour ? `, ${w.colour}` : ''}`;
   }
+  if (typeof value === 'boolean') return value ? 'yes' : 'no';
   if (typeof value === 'object') return JSON.stringify(value);
   return String(value);
 }

@@ -56,6 +56,12 @@ export async function drawHarness(sheet: Sheet, index: PlanIndex): Promise<void>
       { text: w.colour || 'not set' },
       { text: w.sizeMm2 == null ? 'not set' : formatWireSize(w.sizeMm2, unit) },
       { text: w.lengthM == null ? 'measure' : `${w.lengthM} m` },
+      {
+        text: [w.twistGroup ? `twist ${w.twistGroup}` : '', w.shielded ? 'shielded' : '']
+          .filter(Boolean)
+          .join(', '),
+        style: { size: 8 },
+      },
       { text: endText(w.id, 0), style: { size: 8 } },
       { text: endText(w.id, 1), style: { size: 8 } },
     ],
@@ -67,6 +73,7 @@ export async function drawHarness(sheet: Sheet, index: PlanIndex): Promise<void>
       { title: 'Colour', width: 50 },
       { title: 'Size', width: 52 },
       { title: 'Length', width: 44 },
+      { title: 'Run', width: 50 },
       { title: 'End A', flex: 1 },
       { title: 'End B', flex: 1 },
     ],
