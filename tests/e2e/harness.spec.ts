@@ -1,6 +1,10 @@
 import { mkdirSync } from 'node:fs';
 import { expect, test, type Locator, type Page } from '@playwright/test';
+import { WIRE_COLUMNS } from '../../src/features/harness/lib/wire-cells.ts';
 import { DEMO, signIn } from './support/session.ts';
+
+/** Where a column's cell sits in a wire's row. */
+const cellAt = (column: (typeof WIRE_COLUMNS)[number]) => WIRE_COLUMNS.indexOf(column);
 
 const SCREENS = 'test-results/screens';
 
@@ -60,7 +64,17 @@ test('a builder wires the cooling fan circuit from the type-ahead and reads its 
   await page.screenshot({ path: `${SCREENS}/wires-grid.png`, fullPage: true });
 
   // Take the demo's fan wires out, so the circuit is built fresh from the screen.
-  for (const label of ['W-012', 'W-014', 'W-015', 'W-037']) {
+  // W-012, W-014 and W-015 run F4 → R4 → fan; the fan motor's own ground wire leaves M1-2.
+  const fanGround = (
+    await grid(page)
+      .getByRole('row')
+      .filter({ hasText: 'M1-2' })
+      .getByRole('gridcell')
+      .first()
+      .textContent()
+  )?.trim();
+  expect(fanGround).toMatch(/^W-\d{3}$/);
+  for (const label of ['W-012', 'W-014', 'W-015', fanGround!]) {
     await grid(page)
       .getByRole('button', { name: `Delete ${label}` })
       .click();
@@ -99,14 +113,14 @@ test('a builder wires the cooling fan circuit from the type-ahead and reads its 
   await page.screenshot({ path: `${SCREENS}/wires-splices-grounds.png`, fullPage: true });
 
   // Keyboard: the new wire's length typed into its cell, Enter saves.
-  const lengthCell = wireRow(page, w2).getByRole('gridcell').nth(3);
+  const lengthCell = wireRow(page, w2).getByRole('gridcell').nth(cellAt('length'));
   await lengthCell.click();
   await page.keyboard.type('1.4');
   await page.keyboard.press('Enter');
   await expect(page.getByRole('status').filter({ hasText: `Saved ${w2}` })).toBeVisible();
   await expect(lengthCell).toHaveText('1.4');
   // The cursor went down a row: Ctrl+D fills the length down, Ctrl+Z takes it back.
-  const belowLength = wireRow(page, w3).getByRole('gridcell').nth(3);
+  const belowLength = wireRow(page, w3).getByRole('gridcell').nth(cellAt('length'));
   await expect(belowLength).toBeFocused();
   await page.keyboard.press('Control+d');
   await expect(belowLength).toHaveText('1.4');
@@ -117,7 +131,7 @@ test('a builder wires the cooling fan circuit from the type-ahead and reads its 
   ).toBeVisible();
   await expect(belowLength).toHaveText('—');
   // Two lines pasted into the notes go down the column, one wire each.
-  const w3Notes = wireRow(page, w3).getByRole('gridcell').nth(7);
+  const w3Notes = wireRow(page, w3).getByRole('gridcell').nth(cellAt('notes'));
   await w3Notes.click();
   await w3Notes.evaluate((cell) => {
     // The browser's own classes; the node typecheck of this file has no DOM library.
@@ -130,7 +144,9 @@ test('a builder wires the cooling fan circuit from the type-ahead and reads its 
     cell.dispatchEvent(new page.ClipboardEvent('paste', { clipboardData: data, bubbles: true }));
   });
   await expect(w3Notes).toHaveText('Fan ground, short run');
-  await expect(wireRow(page, w4).getByRole('gridcell').nth(7)).toHaveText('Coil wire in the loom');
+  await expect(wireRow(page, w4).getByRole('gridcell').nth(cellAt('notes'))).toHaveText(
+    'Coil wire in the loom',
+  );
 
   // Someone else changes the wire meanwhile: the grid's next edit is refused and shows their row.
   const wires = (await (await page.request.get('/api/conversions/2/wires')).json()) as {
@@ -141,7 +157,7 @@ test('a builder wires the cooling fan circuit from the type-ahead and reads its 
     data: { notes: 'Routed behind the radiator', version: other.version },
   });
   expect(patched.ok()).toBe(true);
-  const notesCell = wireRow(page, w2).getByRole('gridcell').nth(7);
+  const notesCell = wireRow(page, w2).getByRole('gridcell').nth(cellAt('notes'));
   await notesCell.click();
   await page.keyboard.type('Along the top rail');
   await page.keyboard.press('Enter');
