@@ -1,6 +1,6 @@
 /**
- * The pin and feed lists are served from a cache checked against a change counter that database
- * triggers keep (migration 0007). Every way of writing must change what is served, and what is
+ * The pin, feed and wire lists are served from a cache checked against a change counter that
+ * database triggers keep (migrations 0009 and 0015). Every way of writing must change what is served, and what is
  * served must be byte for byte what a fresh read of the database gives.
  */
 import request from 'supertest';
@@ -10,6 +10,7 @@ import { Feed, FeedLoad, Pin } from '#server/db/models/index.ts';
 import { toPinDto } from '#server/modules/pin-map/pin-dto.ts';
 import { PIN_ORDER } from '#server/modules/pin-map/pins.service.ts';
 import { toFeedDto } from '#server/modules/feeds/feeds.service.ts';
+import { wiresOf } from '#server/modules/harness/harness.repository.ts';
 import { createOtherWorkshop } from '../factories/workshop.factory.ts';
 import { createTestContext, type TestContext } from '../helpers/test-app.ts';
 
@@ -45,7 +46,18 @@ async function freshFeedList(conversionId: number): Promise<string> {
   return JSON.stringify({ feeds: feeds.map(toFeedDto) });
 }
 
-async function served(conversionId: number, list: 'pins' | 'feeds', etag?: string) {
+async function freshWireList(conversionId: number): Promise<string> {
+  return JSON.stringify({ wires: await wiresOf(conversionId) });
+}
+
+type List = 'pins' | 'feeds' | 'wires';
+const FRESH: Record<List, (conversionId: number) => Promise<string>> = {
+  pins: freshPinList,
+  feeds: freshFeedList,
+  wires: freshWireList,
+};
+
+async function served(conversionId: number, list: List, etag?: string) {
   const req = request(ctx.app)
     .get(`/api/conversions/${conversionId}/${list}`)
     .set('Authorization', builder);
@@ -61,9 +73,9 @@ async function served(conversionId: number, list: 'pins' | 'feeds', etag?: strin
 async function expectWriteServed(
   conversionId: number,
   write: () => Promise<unknown>,
-  list: 'pins' | 'feeds' = 'pins',
+  list: List = 'pins',
 ) {
-  const fresh = list === 'pins' ? freshPinList : freshFeedList;
+  const fresh = FRESH[list];
   const before = await served(conversionId, list);
   expect(before.status).toBe(200);
   expect(before.text).toBe(await fresh(conversionId));
@@ -305,6 +317,127 @@ describe('the feed list', () => {
           .expect(204);
       },
       'feeds',
+    );
+  });
+});
+
+describe('the wire list', () => {
+  const draft = () => ctx.demo.conversions.draft;
+  interface WireRow {
+    id: number;
+    version: number;
+    ends: Array<{ kind: string; refId?: number }>;
+  }
+  const wiresServed = async () =>
+    JSON.parse((await served(draft(), 'wires')).text).wires as WireRow[];
+  const pinIds = async () =>
+    (JSON.parse((await served(draft(), 'pins')).text).pins as PinRow[]).map((p) => p.id);
+
+  it('answers with the same bytes and ETag as a plain res.json would', async () => {
+    const first = await served(draft(), 'wires');
+    expect(first.status).toBe(200);
+    expect(first.text).toBe(await freshWireList(draft()));
+    expect(first.res.headers['content-type']).toBe('application/json; charset=utf-8');
+    expect((await served(draft(), 'wires', first.etag)).status).toBe(304);
+  });
+
+  it('changes after a wire is added, edited and deleted', async () => {
+    const [a, b] = await pinIds();
+    let id = 0;
+    await expectWriteServed(
+      draft(),
+      async () => {
+        const res = await request(ctx.app)
+          .post(`/api/conversions/${draft()}/wires`)
+          .set('Authorization', builder)
+          .send({
+            colour: 'GN',
+            sizeMm2: 0.5,
+            ends: [
+              { kind: 'pin', refId: a },
+              { kind: 'pin', refId: b },
+            ],
+          })
+          .expect(201);
+        id = res.body.wire.id as number;
+      },
+      'wires',
+    );
+    await expectWriteServed(
+      draft(),
+      () =>
+        request(ctx.app)
+          .patch(`/api/wires/${id}`)
+          .set('Authorization', builder)
+          .send({ lengthM: 2.5, version: 0 })
+          .expect(200),
+      'wires',
+    );
+    await expectWriteServed(
+      draft(),
+      () => request(ctx.app).delete(`/api/wires/${id}`).set('Authorization', builder).expect(204),
+      'wires',
+    );
+  });
+
+  it('changes after an end is changed by hand (plain SQL on wire_ends)', async () => {
+    const [wire] = await wiresServed();
+    await expectWriteServed(
+      draft(),
+      () =>
+        db().query(
+          `UPDATE wire_ends SET kind = 'unresolved', pin_id = NULL, splice_id = NULL,
+             ground_point_id = NULL, box_position_id = NULL, terminal = NULL, source = NULL,
+             text = 'by hand' WHERE wire_id = ? AND end_index = 1`,
+          { replacements: [wire!.id] },
+        ),
+      'wires',
+    );
+  });
+
+  it('changes after the pin an end is fastened to goes with its connector', async () => {
+    const fastened = (await wiresServed()).find((w) => w.ends.some((e) => e.kind === 'pin'))!;
+    const pinId = fastened.ends.find((e) => e.kind === 'pin')!.refId!;
+    const pin = await Pin.findByPk(pinId);
+    await expectWriteServed(
+      draft(),
+      () =>
+        request(ctx.app)
+          .delete(`/api/connectors/${pin!.connectorId}`)
+          .set('Authorization', builder)
+          .expect(204),
+      'wires',
+    );
+    const after = (await wiresServed()).find((w) => w.id === fastened.id)!;
+    expect(after.ends.some((e) => e.kind === 'pin' && e.refId === pinId)).toBe(false);
+  });
+
+  it('changes after a wire list CSV import', async () => {
+    const csv = await request(ctx.app)
+      .get(`/api/conversions/${draft()}/wires.csv`)
+      .set('Authorization', builder)
+      .buffer(true)
+      .parse((res, done) => {
+        let text = '';
+        res.on('data', (c: Buffer) => (text += c.toString('utf8')));
+        res.on('end', () => done(null, text));
+      });
+    const body = (csv.body as string).replace(/^\uFEFF/, '');
+    const [header, ...lines] = body.split('\r\n');
+    // The first wire's notes (a column of its own, whatever columns follow it) take new text.
+    const notes = header!.split(',').indexOf('notes');
+    const cells = lines[0]!.split(',');
+    cells[notes] = 'imported note';
+    const edited = [header, cells.join(','), ...lines.slice(1)];
+    await expectWriteServed(
+      draft(),
+      () =>
+        request(ctx.app)
+          .post(`/api/conversions/${draft()}/wires/import`)
+          .set('Authorization', builder)
+          .attach('file', Buffer.from(edited.join('\r\n')), 'wires.csv')
+          .expect(200),
+      'wires',
     );
   });
 });

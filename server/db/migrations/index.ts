@@ -15,6 +15,7 @@ import { signals } from './0012-signals.ts';
 import { commentAnswers } from './0013-comment-answers.ts';
 import { POSTGRES_AFTER, POSTGRES_BEFORE, postgresMigrationContext } from './postgres.ts';
 import { wirePairs } from './0014-wire-pairs.ts';
+import { harnessChangeCounters } from './0015-harness-change-counters.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -42,6 +43,7 @@ export const MIGRATIONS: Migration[] = [
   signals,
   commentAnswers,
   wirePairs,
+  harnessChangeCounters,
 ];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {

@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import { HARNESS_DIRECT, HARNESS_THROUGH } from './0015-harness-change-counters.ts';
 
 /**
  * The PostgreSQL side of the migrations (docs/decisions/0015-postgresql.md). The migrations are
@@ -165,6 +166,10 @@ export const POSTGRES_AFTER: Record<string, string[]> = {
       'review_comment_answers',
       'an answer is recorded once',
     ),
+  ],
+  '0015-harness-change-counters': [
+    ...HARNESS_DIRECT.flatMap((table) => changeCounter(table, (row) => `${row}.conversion_id`)),
+    ...Object.entries(HARNESS_THROUGH).flatMap(([table, of]) => changeCounter(table, of)),
   ],
 };
 

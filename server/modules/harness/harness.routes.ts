@@ -13,6 +13,7 @@ import {
   UpdateWireRequest,
 } from '#shared/schemas/harness.schema.ts';
 import { actorOf } from '../../lib/actor.ts';
+import { sendJsonBody } from '../../lib/cached-json.ts';
 import { parsedParams } from '../../lib/request.ts';
 import { authorize } from '../../middleware/authorize.ts';
 import { validate } from '../../middleware/validate.ts';
@@ -34,7 +35,7 @@ conversionHarnessRoutes.get(
   validate({ params: IdParams }),
   async (req, res) => {
     const { id } = parsedParams<IdParams>(req);
-    res.json({ wires: await harness.listWires(actorOf(req), id) });
+    await sendJsonBody(req, res, await harness.wireListBody(actorOf(req), id));
   },
 );
 conversionHarnessRoutes.post(

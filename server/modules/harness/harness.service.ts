@@ -23,10 +23,14 @@ import type {
 import { db } from '../../db/index.ts';
 import { insertReturningId } from '../../db/portable.ts';
 import type { Actor } from '../../lib/actor.ts';
+import { ConversionJsonCache, type JsonBody } from '../../lib/cached-json.ts';
 import { AppError, notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
-import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
+import {
+  conversionChangeCounter,
+  findConversionInWorkshop,
+} from '../conversions/conversions.service.ts';
 import { boxesOf, groundPointsOf, splicesOf, wiresOf } from './harness.repository.ts';
 
 const query = <T extends object>(
@@ -175,9 +179,17 @@ async function findWire(actor: Actor, wireId: number, t: Transaction): Promise<W
   return wireIn(row.conversion_id, wireId, t);
 }
 
-export async function listWires(actor: Actor, conversionId: number): Promise<Wire[]> {
-  await findConversionInWorkshop(actor, conversionId);
-  return wiresOf(conversionId);
+const wireListCache = new ConversionJsonCache();
+
+/**
+ * The answer of GET …/wires (`{ wires }`) serialised, with its ETag, made again only when the
+ * conversion's change counter has moved since (migration 0015: the harness tables move it too).
+ */
+export async function wireListBody(actor: Actor, conversionId: number): Promise<JsonBody> {
+  const counter = await conversionChangeCounter(actor, conversionId);
+  return wireListCache.get(conversionId, counter, async () => ({
+    wires: await wiresOf(conversionId),
+  }));
 }
 
 export async function createWire(
