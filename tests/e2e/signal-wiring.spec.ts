@@ -36,7 +36,7 @@ test('the builder twists the draft’s CAN pair on the wire list and the checks 
   await openSection(page, 'Checks');
   await expect(pairFinding(page)).toContainText('Warning');
   await expect(pairFinding(page)).toContainText('give both wires the same twist group');
-  await expect(pairFinding(page)).toContainText('CAN bus termination');
+  await expect(pairFinding(page)).toContainText('High-speed CAN bus');
   await page.screenshot({ path: `${SCREENS}/checks-can-pair.png`, fullPage: true });
 
   await openSection(page, 'Wires');

@@ -70,9 +70,9 @@ export const SOURCES = {
       "ISO 8820-3 blade-fuse ratings; colours from industry charts (the standard's own table not read)",
   },
   'iso-11898-2': {
-    title: 'CAN bus termination',
+    title: 'High-speed CAN bus',
     citation:
-      'ISO 11898-2 (high-speed CAN): a 120 Ω termination at each end of the bus, so about 60 Ω across CAN-H and CAN-L with the power off',
+      'ISO 11898-2 (high-speed CAN): a 120 Ω termination at each end of the bus, so about 60 Ω across CAN-H and CAN-L with the power off; the pair twisted; stubs short',
   },
   'sae-j1962': {
     title: 'Diagnostic connector',
