@@ -19,8 +19,12 @@ const PINS = 300;
 const ROUNDS = 5;
 const MIX: Disposition[] = ['keep', 'keep', 'keep', 'join', 'extend', 'depin', 'cut', 'empty'];
 
-/** Three 100-cavity connectors, every pin filled in, dispositions mixed, one feed. */
-function snapshot300(): ConversionSnapshot {
+/**
+ * Three 100-cavity connectors, every pin filled in, dispositions mixed, one feed. Each `variant`
+ * words its circuits and destinations differently, so no round prints what an earlier one did
+ * (the product keeps word layouts across worksheets; a reprint of the same plan would flatter it).
+ */
+function snapshot300(variant = 0): ConversionSnapshot {
   const connectors: ConversionSnapshot['connectors'] = [];
   const pins: SnapshotPin[] = [];
   for (let c = 0; c < PINS / 100; c++) {
@@ -43,13 +47,13 @@ function snapshot300(): ConversionSnapshot {
         cavity: String(i + 1),
         position: i,
         ...BLANK_PIN_VALUES,
-        function: `Generated circuit ${c + 1}.${i + 1} to the bench test point`,
+        function: `Generated circuit ${variant}-${c + 1}.${i + 1} to bench point ${variant * 1000 + i}`,
         signalClass: 'sensor_signal',
         colour: 'BU/WH',
         sizeMm2: 0.5,
         insulationRatingC: 105,
         disposition,
-        destination: disposition === 'join' ? `Bench test point ${i}` : '',
+        destination: disposition === 'join' ? `Bench test point ${variant}-${i}` : '',
         runLengthM: disposition === 'join' || disposition === 'extend' ? 1.5 : null,
         loadCurrentA: 0.1,
         notes: i % 10 === 0 ? 'Route along the existing loom; tie every 150 mm.' : '',
@@ -167,13 +171,25 @@ async function run(fn: () => Promise<Buffer>) {
 
 /** P3: the worksheet, findings section included, beside the plain-lines baseline, alternating. */
 export async function worksheetBench(rounds: number): Promise<BenchRow[]> {
-  const snapshot = snapshot300();
-  const { findings } = checkReport(snapshot, { sizeUnit: 'mm2' });
+  // One plan per print, the same for the product and the baseline of a round.
+  const plans = Array.from({ length: Math.max(rounds, ROUNDS) + 1 }, (_, variant) => {
+    const snapshot = snapshot300(variant);
+    const { findings } = checkReport(snapshot, { sizeUnit: 'mm2' });
+    return { snapshot, findings, meta: metaFor(findings) };
+  });
+  const { findings } = plans[0]!;
   if (findings.length === 0) throw new Error('the worksheet bench expects findings to print');
-  const meta = metaFor(findings);
+  let productPrints = 0;
+  let baselinePrints = 0;
   // The product gives up on a layout after 20 s; a bench on a busy machine measures it to the end.
-  const product = () => run(() => worksheetBuffer({ snapshot, meta }, { deadlineMs: 600_000 }));
-  const baseline = () => run(() => plainLines(snapshot, findings));
+  const product = () => {
+    const { snapshot, meta } = plans[productPrints++]!;
+    return run(() => worksheetBuffer({ snapshot, meta }, { deadlineMs: 600_000 }));
+  };
+  const baseline = () => {
+    const { snapshot, findings: printed } = plans[baselinePrints++]!;
+    return run(() => plainLines(snapshot, printed));
+  };
   // The first print in a process also parses the fonts and warms the JIT: shown on its own.
   const cold = await product();
   await baseline();

@@ -178,3 +178,19 @@ describe('several at once', () => {
     expectPageNumbers(pb);
   }, 30_000);
 });
+
+describe('word layouts shared between worksheets', () => {
+  it('prints a plan the same whatever was printed before it in the process', async () => {
+    const small = bigSnapshot(40);
+    const printedAt = new Date('2026-03-01T10:00:00Z');
+    const first = await readPdf(
+      await worksheetBuffer({ snapshot: small, meta: meta({ printedAt }) }),
+    );
+    // Another plan in between fills the shared layouts with its own words, in every face.
+    await worksheetBuffer({ snapshot: bigSnapshot(120), meta: meta({ printedAt }) });
+    const again = await readPdf(
+      await worksheetBuffer({ snapshot: small, meta: meta({ printedAt }) }),
+    );
+    expect(again.map((p) => p.text)).toEqual(first.map((p) => p.text));
+  });
+});

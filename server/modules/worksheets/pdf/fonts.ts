@@ -62,6 +62,43 @@ export function registerFonts(doc: PDFKit.PDFDocument): void {
   }
 }
 
+/** pdfkit's font in a document: its fontkit font and the word layouts it keeps. */
+interface DocumentFont {
+  font: ParsedFont;
+  layoutCache?: Record<string, unknown>;
+}
+
+/** Words laid out per face, kept across documents until there are this many. */
+const MAX_SHARED_WORDS = 50_000;
+const wordLayouts = new Map<ParsedFont, Record<string, unknown>>();
+
+/**
+ * Lets the document's fonts share their word layouts with every other worksheet of this process.
+ * pdfkit shapes each word once per document (fontkit's substitution and positioning, most of a
+ * worksheet's time) and keeps the result per document; headings, labels, colour codes and
+ * numbers repeat from one worksheet to the next. A layout depends only on the word and the parsed
+ * font, which all documents share (`registerFonts`), and pdfkit copies a layout before changing
+ * it, so one kept layout serves every document.
+ */
+export function shareWordLayouts(doc: PDFKit.PDFDocument): void {
+  for (const [font, words] of wordLayouts) {
+    if (Object.keys(words).length > MAX_SHARED_WORDS) wordLayouts.delete(font);
+  }
+  const select = doc.font.bind(doc) as (...args: unknown[]) => PDFKit.PDFDocument;
+  const withShared = (...args: unknown[]) => {
+    select(...args);
+    const current = (doc as unknown as { _font?: DocumentFont })._font;
+    if (current?.layoutCache) {
+      let words = wordLayouts.get(current.font);
+      if (!words)
+        wordLayouts.set(current.font, (words = Object.create(null) as Record<string, unknown>));
+      current.layoutCache = words;
+    }
+    return doc;
+  };
+  doc.font = withShared as typeof doc.font;
+}
+
 const coverage = new Map<Face, Set<number>>();
 
 /** The code points a face has a glyph for. */

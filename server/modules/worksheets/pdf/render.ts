@@ -6,7 +6,7 @@ import type { Writable } from 'node:stream';
 import PDFDocument from 'pdfkit';
 import { CIRCUITS_TITLE, drawHarness, WIRES_TITLE } from './sections/harness.ts';
 import { buildCutList } from './cut-list.ts';
-import { registerFonts, warmFonts } from './fonts.ts';
+import { registerFonts, shareWordLayouts, warmFonts } from './fonts.ts';
 import type { WorksheetInput, WorksheetMeta, WorksheetRevision } from './meta.ts';
 import { indexPlan } from './plan.ts';
 import { ACTIONS_TITLE, drawActions } from './sections/actions.ts';
@@ -49,6 +49,7 @@ export async function renderWorksheet(
     },
   });
   registerFonts(doc);
+  shareWordLayouts(doc);
   const sheet = new Sheet(
     doc,
     snapshot,
