@@ -112,6 +112,22 @@ test('a builder wires the cooling fan circuit from the type-ahead and reads its 
   await expect(grounds.getByRole('row').filter({ hasText: 'G-5' })).toContainText('6 mm²');
   await page.screenshot({ path: `${SCREENS}/wires-splices-grounds.png`, fullPage: true });
 
+  // The strap turns out heavier than planned: G-5 is changed in place.
+  await page.getByRole('button', { name: 'Change G-5' }).click();
+  const changeGround = page.getByRole('form', { name: 'Change ground point G-5' });
+  await expect(changeGround.getByLabel('Strap size (mm²)')).toHaveValue('6');
+  await changeGround.getByLabel('Strap size (mm²)').fill('10');
+  await changeGround.getByLabel('Notes').fill('Radiator support, left');
+  await page.screenshot({ path: `${SCREENS}/wires-change-ground.png`, fullPage: true });
+  await changeGround.getByRole('button', { name: 'Save ground point' }).click();
+  await expect(
+    page.getByRole('status').filter({ hasText: 'Saved ground point G-5' }),
+  ).toBeVisible();
+  await expect(grounds.getByRole('row').filter({ hasText: 'G-5' })).toContainText('10 mm²');
+  await expect(grounds.getByRole('row').filter({ hasText: 'G-5' })).toContainText(
+    'Radiator support, left',
+  );
+
   // Keyboard: the new wire's length typed into its cell, Enter saves.
   const lengthCell = wireRow(page, w2).getByRole('gridcell').nth(cellAt('length'));
   await lengthCell.click();
@@ -290,6 +306,9 @@ test('a technician reads the wires and the box without the controls that change 
   await expect(page.getByText('Read only: your role cannot change wires.')).toBeVisible();
   await expect(page.getByRole('button', { name: 'Add a wire' })).toHaveCount(0);
   await expect(grid(page).getByRole('button', { name: 'Delete W-001' })).toHaveCount(0);
+  await page.getByText(/^Splices \(\d+\) and ground points/).click();
+  await expect(page.getByRole('table', { name: 'Ground points' })).toContainText('G-1');
+  await expect(page.getByRole('button', { name: 'Change G-1' })).toHaveCount(0);
   await expect(page.getByRole('link', { name: 'Export CSV' })).toBeVisible();
   await page
     .getByRole('navigation', { name: 'Conversion sections' })

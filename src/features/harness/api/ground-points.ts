@@ -1,5 +1,9 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CreateGroundPointRequest, GroundPoint } from '#shared/schemas/harness.schema.ts';
+import type {
+  CreateGroundPointRequest,
+  GroundPoint,
+  UpdateGroundPointRequest,
+} from '#shared/schemas/harness.schema.ts';
 import { api } from '@/lib/api-client.ts';
 import { harnessKeys } from './keys.ts';
 
@@ -24,5 +28,26 @@ export function useCreateGroundPoint(conversionId: number) {
     mutationFn: (input: CreateGroundPointRequest) => createGroundPoint(conversionId, input),
     onSuccess: () =>
       queryClient.invalidateQueries({ queryKey: harnessKeys.groundPoints(conversionId) }),
+  });
+}
+
+export const updateGroundPoint = (
+  conversionId: number,
+  groundPointId: number,
+  input: UpdateGroundPointRequest,
+) =>
+  api.patch<{ groundPoint: GroundPoint }>(
+    `/api/conversions/${conversionId}/ground-points/${groundPointId}`,
+    input,
+  );
+
+/** Changes a ground point; its label shows in wire ends too, so the whole harness is read again. */
+export function useUpdateGroundPoint(conversionId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, input }: { id: number; input: UpdateGroundPointRequest }) =>
+      updateGroundPoint(conversionId, id, input),
+    onSettled: () =>
+      queryClient.invalidateQueries({ queryKey: harnessKeys.conversion(conversionId) }),
   });
 }

@@ -1,5 +1,9 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CreateSpliceRequest, Splice } from '#shared/schemas/harness.schema.ts';
+import type {
+  CreateSpliceRequest,
+  Splice,
+  UpdateSpliceRequest,
+} from '#shared/schemas/harness.schema.ts';
 import { api } from '@/lib/api-client.ts';
 import { harnessKeys } from './keys.ts';
 
@@ -22,5 +26,19 @@ export function useCreateSplice(conversionId: number) {
   return useMutation({
     mutationFn: (input: CreateSpliceRequest) => createSplice(conversionId, input),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: harnessKeys.splices(conversionId) }),
+  });
+}
+
+export const updateSplice = (conversionId: number, spliceId: number, input: UpdateSpliceRequest) =>
+  api.patch<{ splice: Splice }>(`/api/conversions/${conversionId}/splices/${spliceId}`, input);
+
+/** Changes a splice; its label shows in wire ends too, so the whole harness is read again. */
+export function useUpdateSplice(conversionId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, input }: { id: number; input: UpdateSpliceRequest }) =>
+      updateSplice(conversionId, id, input),
+    onSettled: () =>
+      queryClient.invalidateQueries({ queryKey: harnessKeys.conversion(conversionId) }),
   });
 }

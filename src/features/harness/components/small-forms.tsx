@@ -5,6 +5,8 @@ import {
   CreateSpliceRequest,
   GROUND_LOCATIONS,
   GROUND_LOCATION_LABELS,
+  type GroundPoint,
+  type Splice,
 } from '#shared/schemas/harness.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextField } from '@/components/ui/field.tsx';
@@ -15,7 +17,9 @@ import { errorAt } from '@/lib/form-errors.ts';
 const blankAsNull = (value: unknown) =>
   value == null || String(value).trim() === '' ? null : Number(String(value).replace(',', '.'));
 
-interface SmallFormProps<T> {
+interface SmallFormProps<T, Item> {
+  /** The item being changed; a new one is added when absent. */
+  initial?: Item;
   busy: boolean;
   error: Error | null;
   onSubmit: (values: T) => void;
@@ -37,23 +41,33 @@ function Actions({ busy, what, onCancel }: { busy: boolean; what: string; onCanc
   );
 }
 
-/** A new splice: its label is given the next "S-…" when left empty. */
+/** A new splice (its label is given the next "S-…" when left empty), or a change to one. */
 export function SpliceForm({
+  initial,
   busy,
   error,
   onSubmit,
   onCancel,
-}: SmallFormProps<CreateSpliceRequest>) {
+}: SmallFormProps<CreateSpliceRequest, Splice>) {
   const { register, handleSubmit, formState } = useForm({
     resolver: zodResolver(CreateSpliceRequest),
-    defaultValues: { label: undefined, sealed: true, branch: '', distanceMm: null },
+    defaultValues: initial
+      ? {
+          label: initial.label,
+          sealed: initial.sealed,
+          branch: initial.branch,
+          distanceMm: initial.distanceMm,
+          notes: initial.notes,
+        }
+      : { label: undefined, sealed: true, branch: '', distanceMm: null, notes: '' },
   });
+  const title = initial ? `Change splice ${initial.label}` : 'Add a splice';
   const server = error instanceof ApiError ? error.fieldIssues() : {};
   const errorOf = (path: string) => errorAt(formState.errors, path) ?? server[path];
   const submit = handleSubmit(onSubmit);
   return (
-    <form aria-label="Add a splice" onSubmit={(e) => void submit(e)} className={FORM}>
-      <h2 className="font-semibold sm:col-span-4">Add a splice</h2>
+    <form aria-label={title} onSubmit={(e) => void submit(e)} className={FORM}>
+      <h2 className="font-semibold sm:col-span-4">{title}</h2>
       <TextField
         label="Label"
         placeholder="next S-…"
@@ -70,33 +84,46 @@ export function SpliceForm({
       <label className="flex items-center gap-2 self-end pb-2 text-sm">
         <input type="checkbox" {...register('sealed')} /> Sealed (heat-shrink with glue)
       </label>
+      <TextField label="Notes" {...register('notes')} error={errorOf('notes')} />
       {error && !Object.keys(server).length ? (
         <p role="alert" className="text-sm text-fault sm:col-span-4">
           {error.message}
         </p>
       ) : null}
-      <Actions busy={busy} what="Add splice" onCancel={onCancel} />
+      <Actions busy={busy} what={initial ? 'Save splice' : 'Add splice'} onCancel={onCancel} />
     </form>
   );
 }
 
-/** A new ground point: where it is and the strap's size; the label defaults to the next "G-…". */
+/**
+ * A new ground point (where it is and the strap's size; the label defaults to the next "G-…"), or a
+ * change to one.
+ */
 export function GroundPointForm({
+  initial,
   busy,
   error,
   onSubmit,
   onCancel,
-}: SmallFormProps<CreateGroundPointRequest>) {
+}: SmallFormProps<CreateGroundPointRequest, GroundPoint>) {
   const { register, handleSubmit, formState } = useForm({
     resolver: zodResolver(CreateGroundPointRequest),
-    defaultValues: { label: undefined, location: 'chassis' as const, strapSizeMm2: null },
+    defaultValues: initial
+      ? {
+          label: initial.label,
+          location: initial.location,
+          strapSizeMm2: initial.strapSizeMm2,
+          notes: initial.notes,
+        }
+      : { label: undefined, location: 'chassis' as const, strapSizeMm2: null, notes: '' },
   });
+  const title = initial ? `Change ground point ${initial.label}` : 'Add a ground point';
   const server = error instanceof ApiError ? error.fieldIssues() : {};
   const errorOf = (path: string) => errorAt(formState.errors, path) ?? server[path];
   const submit = handleSubmit(onSubmit);
   return (
-    <form aria-label="Add a ground point" onSubmit={(e) => void submit(e)} className={FORM}>
-      <h2 className="font-semibold sm:col-span-4">Add a ground point</h2>
+    <form aria-label={title} onSubmit={(e) => void submit(e)} className={FORM}>
+      <h2 className="font-semibold sm:col-span-4">{title}</h2>
       <TextField
         label="Label"
         placeholder="next G-…"
@@ -116,12 +143,17 @@ export function GroundPointForm({
         {...register('strapSizeMm2', { setValueAs: blankAsNull })}
         error={errorOf('strapSizeMm2')}
       />
+      <TextField label="Notes" {...register('notes')} error={errorOf('notes')} />
       {error && !Object.keys(server).length ? (
         <p role="alert" className="text-sm text-fault sm:col-span-4">
           {error.message}
         </p>
       ) : null}
-      <Actions busy={busy} what="Add ground point" onCancel={onCancel} />
+      <Actions
+        busy={busy}
+        what={initial ? 'Save ground point' : 'Add ground point'}
+        onCancel={onCancel}
+      />
     </form>
   );
 }

@@ -1,9 +1,14 @@
+import { useState } from 'react';
 import {
   GROUND_LOCATION_LABELS,
   type GroundPoint,
   type Splice,
   type Wire,
 } from '#shared/schemas/harness.schema.ts';
+import { Button } from '@/components/ui/button.tsx';
+import { useUpdateGroundPoint } from '../api/ground-points.ts';
+import { useUpdateSplice } from '../api/splices.ts';
+import { GroundPointForm, SpliceForm } from './small-forms.tsx';
 
 /** How many wire ends are fastened to each splice and ground point, keyed "kind:id". */
 function endCounts(wires: readonly Wire[]) {
@@ -21,22 +26,91 @@ function endCounts(wires: readonly Wire[]) {
 const TH = 'px-2 py-1 text-left font-medium text-ink-soft';
 const TD = 'px-2 py-1 align-top';
 
-/** The conversion's splices and ground points, with how many wires each joins. */
+type Editing = { kind: 'splice'; item: Splice } | { kind: 'ground'; item: GroundPoint } | null;
+
+/** The conversion's splices and ground points, with how many wires each joins; each can be changed. */
 export function SplicesAndGrounds({
+  conversionId,
   wires,
   splices,
   groundPoints,
+  readOnly,
+  onSaved,
 }: {
+  conversionId: number;
   wires: readonly Wire[];
   splices: readonly Splice[];
   groundPoints: readonly GroundPoint[];
+  readOnly: boolean;
+  onSaved: (what: string) => void;
 }) {
   const counts = endCounts(wires);
+  const [editing, setEditing] = useState<Editing>(null);
+  const updateSplice = useUpdateSplice(conversionId);
+  const updateGround = useUpdateGroundPoint(conversionId);
+  const open = (next: Editing) => {
+    updateSplice.reset();
+    updateGround.reset();
+    setEditing(next);
+  };
+  /** The button that opens a row's item in its form. */
+  const change = (label: string, next: NonNullable<Editing>) =>
+    readOnly ? null : (
+      <td className={TD}>
+        <Button variant="quiet" aria-label={`Change ${label}`} onClick={() => open(next)}>
+          Change
+        </Button>
+      </td>
+    );
   return (
     <details className="rounded-lg border border-rule bg-paper-raised px-4 py-2">
       <summary className="cursor-pointer text-sm font-semibold">
         Splices ({splices.length}) and ground points ({groundPoints.length})
       </summary>
+      {editing?.kind === 'splice' ? (
+        <div className="mt-2">
+          <SpliceForm
+            key={`splice-${editing.item.id}-${editing.item.version}`}
+            initial={editing.item}
+            busy={updateSplice.isPending}
+            error={updateSplice.error}
+            onSubmit={(values) =>
+              updateSplice.mutate(
+                { id: editing.item.id, input: { ...values, version: editing.item.version } },
+                {
+                  onSuccess: ({ splice }) => {
+                    setEditing(null);
+                    onSaved(`Saved splice ${splice.label}`);
+                  },
+                },
+              )
+            }
+            onCancel={() => setEditing(null)}
+          />
+        </div>
+      ) : null}
+      {editing?.kind === 'ground' ? (
+        <div className="mt-2">
+          <GroundPointForm
+            key={`ground-${editing.item.id}-${editing.item.version}`}
+            initial={editing.item}
+            busy={updateGround.isPending}
+            error={updateGround.error}
+            onSubmit={(values) =>
+              updateGround.mutate(
+                { id: editing.item.id, input: { ...values, version: editing.item.version } },
+                {
+                  onSuccess: ({ groundPoint }) => {
+                    setEditing(null);
+                    onSaved(`Saved ground point ${groundPoint.label}`);
+                  },
+                },
+              )
+            }
+            onCancel={() => setEditing(null)}
+          />
+        </div>
+      ) : null}
       <div className="mt-2 grid gap-4 lg:grid-cols-2">
         <table aria-label="Splices" className="self-start text-sm">
           <thead>
@@ -45,6 +119,11 @@ export function SplicesAndGrounds({
               <th className={TH}>Wires</th>
               <th className={TH}>Sealed</th>
               <th className={TH}>Where</th>
+              {readOnly ? null : (
+                <th className={TH}>
+                  <span className="sr-only">Change</span>
+                </th>
+              )}
             </tr>
           </thead>
           <tbody>
@@ -59,6 +138,7 @@ export function SplicesAndGrounds({
                     .join(', ') || '—'}
                   {s.notes ? <div className="text-xs text-ink-soft">{s.notes}</div> : null}
                 </td>
+                {change(s.label, { kind: 'splice', item: s })}
               </tr>
             ))}
           </tbody>
@@ -70,6 +150,11 @@ export function SplicesAndGrounds({
               <th className={TH}>Wires</th>
               <th className={TH}>Location</th>
               <th className={TH}>Strap</th>
+              {readOnly ? null : (
+                <th className={TH}>
+                  <span className="sr-only">Change</span>
+                </th>
+              )}
             </tr>
           </thead>
           <tbody>
@@ -82,6 +167,7 @@ export function SplicesAndGrounds({
                   {g.notes ? <div className="text-xs text-ink-soft">{g.notes}</div> : null}
                 </td>
                 <td className={TD}>{g.strapSizeMm2 !== null ? `${g.strapSizeMm2} mm²` : '—'}</td>
+                {change(g.label, { kind: 'ground', item: g })}
               </tr>
             ))}
           </tbody>

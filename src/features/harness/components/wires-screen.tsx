@@ -249,9 +249,12 @@ export function WiresScreen({ conversionId, readOnly, pins, connectors }: WiresS
         </Notice>
       ) : null}
       <SplicesAndGrounds
+        conversionId={conversionId}
         wires={wires.data}
         splices={splices.data ?? []}
         groundPoints={grounds.data ?? []}
+        readOnly={readOnly}
+        onSaved={(title) => setMessage({ tone: 'sound', title })}
       />
       <p className="text-xs text-ink-faint">
         {readOnly
