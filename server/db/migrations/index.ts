@@ -73,5 +73,18 @@ export async function migrate(sequelize: Sequelize): Promise<void> {
     storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
     logger: undefined,
   });
-  await umzug.up();
+  if (!postgres) {
+    await umzug.up();
+    return;
+  }
+  // Several processes may start together on one database: one migrates, the others wait for it
+  // (a lock held until this transaction ends) and then find nothing left to do.
+  await sequelize.transaction(async (transaction) => {
+    await sequelize.query('SET LOCAL lock_timeout = 0', { transaction });
+    await sequelize.query(`SELECT pg_advisory_xact_lock(${MIGRATION_LOCK})`, { transaction });
+    await umzug.up();
+  });
 }
+
+/** Any fixed number: the advisory lock that one migrating process holds at a time. */
+const MIGRATION_LOCK = 20_517_015;
