@@ -33,18 +33,37 @@ export function signSessionToken(userId: number, tokenVersion: number): string {
   });
 }
 
+/**
+ * Tokens already verified, with their claims and expiry: every request of a session carries the
+ * same token, and checking its signature again each time was the largest single cost of a cached
+ * list's request. Keyed by the whole token (signature included) and the key that verified it, so a
+ * changed token or secret is verified afresh; an entry is used only until the token expires. The
+ * user's role, `active` and token version are still read from the database on every request.
+ */
+const verified = new Map<string, { key: KeyObject; claims: TokenClaims; expiresMs: number }>();
+const MAX_VERIFIED = 1000;
+
 /** Verifies signature, algorithm, issuer, audience and expiry; null when any check fails. */
 export function verifySessionToken(token: string): TokenClaims | null {
+  const key = sessionKey();
+  const known = verified.get(token);
+  if (known && known.key === key && Date.now() < known.expiresMs) return known.claims;
+  if (known) verified.delete(token);
   try {
-    const payload = jwt.verify(token, sessionKey(), {
+    const payload = jwt.verify(token, key, {
       algorithms: ['HS256'],
       issuer: ISSUER,
       audience: AUDIENCE,
     });
     if (typeof payload !== 'object' || payload === null) return null;
-    const { sub, tv } = payload as Partial<TokenClaims>;
+    const { sub, tv, exp } = payload as Partial<TokenClaims> & { exp?: number };
     if (typeof sub !== 'string' || !/^\d+$/.test(sub) || typeof tv !== 'number') return null;
-    return { sub, tv };
+    const claims = { sub, tv };
+    if (typeof exp === 'number') {
+      verified.set(token, { key, claims, expiresMs: exp * 1000 });
+      if (verified.size > MAX_VERIFIED) verified.delete(verified.keys().next().value!);
+    }
+    return claims;
   } catch {
     return null;
   }
