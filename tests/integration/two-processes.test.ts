@@ -33,7 +33,8 @@ function freePort(): Promise<number> {
   });
 }
 
-async function waitFor<T>(what: string, probe: () => Promise<T | undefined>, ms = 30_000) {
+// Generous: starting the server through tsx is slow on a busy machine; the limit only stops a hang.
+async function waitFor<T>(what: string, probe: () => Promise<T | undefined>, ms = 90_000) {
   const until = Date.now() + ms;
   for (;;) {
     const value = await probe().catch(() => undefined);
@@ -78,6 +79,8 @@ describe.skipIf(!onPostgres)('two app processes on one PostgreSQL database', () 
     child.stdout!.on('data', (b: Buffer) => output.push(b.toString()));
     child.stderr!.on('data', (b: Buffer) => output.push(b.toString()));
     const url = `http://127.0.0.1:${port}`;
+    // Known before it listens, so afterAll stops it even if it never comes up.
+    apps.push({ url, child, output });
     await waitFor(`${name} to listen`, async () => {
       if (child.exitCode !== null) throw new Error(`${name} exited: ${output.join('')}`);
       const res = await fetch(`${url}/api/health`);
@@ -100,8 +103,8 @@ describe.skipIf(!onPostgres)('two app processes on one PostgreSQL database', () 
     smtp = await startFakeSmtp();
     dir = mkdtempSync(path.join(tmpdir(), 'loomwright-two-'));
     writeFileSync(path.join(dir, 'seal-key.pem'), ctx.env.SEAL_PRIVATE_KEY, { mode: 0o600 });
-    apps.push(...(await Promise.all([startApp('first'), startApp('second')])));
-  }, 60_000);
+    await Promise.all([startApp('first'), startApp('second')]);
+  }, 180_000);
 
   afterAll(async () => {
     await Promise.all(
