@@ -10,6 +10,7 @@ import { cavityName } from '#shared/domain/pin-names.ts';
 import { DispositionGlyphPath, DispositionLabel } from '@/components/ui/disposition-glyph.tsx';
 import { WireColour } from '@/components/ui/wire-colour.tsx';
 import { plural } from '@/lib/plural.ts';
+import { useStableHandler } from '../hooks/use-stable-handler.ts';
 
 interface FaceProps {
   connector: Connector;
@@ -24,9 +25,9 @@ const PITCH = 34;
 const BOX = 28;
 const MARGIN = 12;
 
-function describeCavity(connector: Connector, pin: Pin, unit: SizeUnit): string {
+function describeCavity(connectorLabel: string, pin: Pin, unit: SizeUnit): string {
   const parts = [
-    `Cavity ${cavityName(connector.label, pin.cavity)}`,
+    `Cavity ${cavityName(connectorLabel, pin.cavity)}`,
     pin.function || 'no function recorded',
     pin.colour ? `wire ${pin.colour}, ${describeWireColour(pin.colour)}` : 'no wire colour',
     pin.sizeMm2 != null ? formatWireSize(pin.sizeMm2, unit) : 'no size',
@@ -89,21 +90,28 @@ function FaceDrawing({ connector, pins, counts, unit, onActivate }: FaceProps) {
     document.getElementById(`${id}-cavity-${next}`)?.focus();
   }
 
-  function onKeyDown(event: KeyboardEvent<SVGGElement>, index: number, cavity: FaceCavity) {
-    const step: Record<string, number> = {
-      ArrowRight: 1,
-      ArrowLeft: -1,
-      ArrowDown: connector.columns,
-      ArrowUp: -connector.columns,
-    };
-    if (event.key in step) {
-      event.preventDefault();
-      focusCavity(index + step[event.key]!);
-    } else if (event.key === 'Enter' || event.key === ' ') {
-      event.preventDefault();
-      onActivate(cavity.pin.id);
-    }
-  }
+  // Stable, so a cavity redraws only when its own pin (or its focusability) changes.
+  const onCavityKey = useStableHandler(
+    (event: KeyboardEvent<SVGGElement>, index: number, pinId: number) => {
+      const step: Record<string, number> = {
+        ArrowRight: 1,
+        ArrowLeft: -1,
+        ArrowDown: connector.columns,
+        ArrowUp: -connector.columns,
+      };
+      if (event.key in step) {
+        event.preventDefault();
+        focusCavity(index + step[event.key]!);
+      } else if (event.key === 'Enter' || event.key === ' ') {
+        event.preventDefault();
+        onActivate(pinId);
+      }
+    },
+  );
+  const onShow = useStableHandler((index: number | null, focused = false) => {
+    if (focused && index !== null) setFocusIndex(index);
+    setShown(index === null ? null : (cavities[index] ?? null));
+  });
 
   const tip = shown ? at(shown) : null;
   return (
@@ -140,49 +148,22 @@ function FaceDrawing({ connector, pins, counts, unit, onActivate }: FaceProps) {
             rx={2}
             className="fill-rule-strong"
           />
-          {cavities.map((cavity, index) => {
-            const { x, y } = at(cavity);
-            const { pin } = cavity;
-            const undecided = pin.disposition === 'undecided';
-            return (
-              <g
-                key={pin.id}
-                id={`${id}-cavity-${index}`}
-                role="button"
-                tabIndex={index === focusIndex ? 0 : -1}
-                aria-label={describeCavity(connector, pin, unit)}
-                onClick={() => onActivate(pin.id)}
-                onKeyDown={(e) => onKeyDown(e, index, cavity)}
-                onMouseEnter={() => setShown(cavity)}
-                onMouseLeave={() => setShown(null)}
-                onFocus={() => {
-                  setFocusIndex(index);
-                  setShown(cavity);
-                }}
-                onBlur={() => setShown(null)}
-                className="group/cavity cursor-pointer outline-none"
-              >
-                <rect
-                  x={x}
-                  y={y}
-                  width={BOX}
-                  height={BOX}
-                  rx={5}
-                  strokeDasharray={undecided ? '3 2' : undefined}
-                  className={`fill-paper-raised ${undecided ? 'stroke-ink-faint' : 'stroke-ink-soft'} group-hover/cavity:stroke-ink group-focus-visible/cavity:stroke-focus group-focus-visible/cavity:stroke-[3]`}
-                />
-                <text x={x + 3} y={y + 8.5} className="fill-ink-soft font-mono text-[8px]">
-                  {pin.cavity.length > 4 ? `${pin.cavity.slice(0, 4)}…` : pin.cavity}
-                </text>
-                <g
-                  transform={`translate(${x + BOX / 2 - 6}, ${y + 11}) scale(1.2)`}
-                  className={undecided ? 'text-ink-faint' : 'text-ink'}
-                >
-                  <DispositionGlyphPath disposition={pin.disposition} />
-                </g>
-              </g>
-            );
-          })}
+          {cavities.map((cavity, index) => (
+            <CavityMark
+              key={cavity.pin.id}
+              id={`${id}-cavity-${index}`}
+              index={index}
+              pin={cavity.pin}
+              row={cavity.row}
+              column={cavity.column}
+              label={connector.label}
+              unit={unit}
+              focusable={index === focusIndex}
+              onKey={onCavityKey}
+              onShow={onShow}
+              onActivate={onActivate}
+            />
+          ))}
         </svg>
       </div>
       {shown && tip ? (
@@ -209,6 +190,73 @@ function FaceDrawing({ connector, pins, counts, unit, onActivate }: FaceProps) {
     </div>
   );
 }
+
+interface CavityProps {
+  id: string;
+  index: number;
+  pin: Pin;
+  row: number;
+  column: number;
+  label: string;
+  unit: SizeUnit;
+  focusable: boolean;
+  onKey: (event: KeyboardEvent<SVGGElement>, index: number, pinId: number) => void;
+  onShow: (index: number | null, focused?: boolean) => void;
+  onActivate: (pinId: number) => void;
+}
+
+/** One cavity of a face. Memoised: an edit redraws the cavity it changed, not all 400. */
+const CavityMark = memo(function CavityMark({
+  id,
+  index,
+  pin,
+  row,
+  column,
+  label,
+  unit,
+  focusable,
+  onKey,
+  onShow,
+  onActivate,
+}: CavityProps) {
+  const x = MARGIN + column * PITCH;
+  const y = MARGIN + row * PITCH;
+  const undecided = pin.disposition === 'undecided';
+  return (
+    <g
+      id={id}
+      role="button"
+      tabIndex={focusable ? 0 : -1}
+      aria-label={describeCavity(label, pin, unit)}
+      onClick={() => onActivate(pin.id)}
+      onKeyDown={(e) => onKey(e, index, pin.id)}
+      onMouseEnter={() => onShow(index)}
+      onMouseLeave={() => onShow(null)}
+      onFocus={() => onShow(index, true)}
+      onBlur={() => onShow(null)}
+      className="group/cavity cursor-pointer outline-none"
+    >
+      <rect
+        x={x}
+        y={y}
+        width={BOX}
+        height={BOX}
+        rx={5}
+        strokeDasharray={undecided ? '3 2' : undefined}
+        className={`fill-paper-raised ${undecided ? 'stroke-ink-faint' : 'stroke-ink-soft'} group-hover/cavity:stroke-ink group-focus-visible/cavity:stroke-focus group-focus-visible/cavity:stroke-[3]`}
+      />
+      <text x={x + 3} y={y + 8.5} className="fill-ink-soft font-mono text-[8px]">
+        {pin.cavity.length > 4 ? `${pin.cavity.slice(0, 4)}…` : pin.cavity}
+      </text>
+      <g
+        transform={`translate(${x + BOX / 2 - 6}, ${y + 11}) scale(1.2)`}
+        className={undecided ? 'text-ink-faint' : 'text-ink'}
+      >
+        <DispositionGlyphPath disposition={pin.disposition} />
+      </g>
+    </g>
+  );
+});
 
 const sameItems = <T,>(a: readonly T[], b: readonly T[]) =>
   a.length === b.length && a.every((item, i) => item === b[i]);
