@@ -447,3 +447,77 @@ describe('signal rules on the demo', () => {
     });
   });
 });
+
+describe('a pin’s destination and its wire are one fact', () => {
+  it('moves the wire when the destination moves, frees its end when cleared, and wires a new destination', async () => {
+    const pins = (
+      await request(ctx.app).get(`/api/conversions/${draft}/pins`).set('Authorization', builder)
+    ).body.pins as Array<{ id: number; cavity: string; connectorId: number; version: number }>;
+    const connectors = (
+      await request(ctx.app)
+        .get(`/api/conversions/${draft}/connectors`)
+        .set('Authorization', builder)
+    ).body.connectors as Array<{ id: number; label: string }>;
+    const pinAt = (name: string) => {
+      const [label, cavity] = name.split('-');
+      const c = connectors.find((x) => x.label === label)!;
+      return pins.find((p) => p.connectorId === c.id && p.cavity === cavity)!;
+    };
+    const tach = pinAt('E2-12');
+    const wireOfTach = async () =>
+      (await wiresOf(draft)).filter((w) =>
+        w.ends.some((e) => e.kind === 'pin' && e.refId === tach.id),
+      );
+    const [before] = await wireOfTach();
+    expect(before!.ends).toContainEqual({ kind: 'pin', refId: pinAt('V1-3').id });
+
+    const moved = await request(ctx.app)
+      .patch(`/api/pins/${tach.id}`)
+      .set('Authorization', builder)
+      .send({ destinationPinId: pinAt('DLC-8').id, version: tach.version });
+    expect(moved.status).toBe(200);
+    const [after] = await wireOfTach();
+    expect(after!.id).toBe(before!.id);
+    expect(after!.ends).toContainEqual({ kind: 'pin', refId: pinAt('DLC-8').id });
+    expect(after!.version).toBe(before!.version + 1);
+
+    const cleared = await request(ctx.app)
+      .patch(`/api/pins/${tach.id}`)
+      .set('Authorization', builder)
+      .send({ destinationPinId: null, version: moved.body.pin.version });
+    expect(cleared.status).toBe(200);
+    const [loose] = await wireOfTach();
+    expect(loose!.ends).toContainEqual({ kind: 'unresolved', text: 'was DLC-8' });
+
+    // A pin with no wire at all gets one when it is given a destination.
+    const spare = pinAt('E1-40');
+    expect(
+      (await wiresOf(draft)).some((w) =>
+        w.ends.some((e) => e.kind === 'pin' && e.refId === spare.id),
+      ),
+    ).toBe(false);
+    const linked = await request(ctx.app)
+      .patch(`/api/pins/${spare.id}`)
+      .set('Authorization', builder)
+      .send({ disposition: 'join', destinationPinId: pinAt('DLC-9').id, version: spare.version });
+    expect(linked.status).toBe(200);
+    const added = (await wiresOf(draft)).find((w) =>
+      w.ends.some((e) => e.kind === 'pin' && e.refId === spare.id),
+    );
+    expect(added?.ends).toEqual([
+      { kind: 'pin', refId: spare.id },
+      { kind: 'pin', refId: pinAt('DLC-9').id },
+    ]);
+
+    // Put the draft back as it was for the tests after this one.
+    await request(ctx.app)
+      .delete(`/api/wires/${added!.id}`)
+      .set('Authorization', builder)
+      .expect(204);
+    await request(ctx.app)
+      .patch(`/api/pins/${spare.id}`)
+      .set('Authorization', builder)
+      .send({ disposition: 'empty', destinationPinId: null, version: linked.body.pin.version })
+      .expect(200);
+  });
+});

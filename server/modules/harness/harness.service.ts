@@ -95,7 +95,7 @@ async function assertEnds(conversionId: number, ends: readonly WireEnd[], t: Tra
   }
 }
 
-async function nextLabel(
+export async function nextLabel(
   table: 'wires' | 'splices' | 'ground_points',
   conversionId: number,
   prefix: string,

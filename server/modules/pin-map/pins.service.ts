@@ -20,6 +20,7 @@ import {
   ofConversionInWorkshop,
 } from '../conversions/conversions.service.ts';
 import { toPinDto } from './pin-dto.ts';
+import { wiresFollowPins } from '../harness/wire-links.service.ts';
 import { loadsFollowPins } from '../feeds/feed-links.service.ts';
 
 /** Connector by connector in the order they were added, each in face order. */
@@ -161,9 +162,11 @@ export async function updatePin(
     // Saving the same values again is not a change: no new version, nothing in the audit trail.
     if (Object.keys(changes).length === 0) return toPinDto(pin);
     const feedBefore = new Map([[pin.id, pin.destinationFeedId ?? null]]);
+    const pinBefore = new Map([[pin.id, pin.destinationPinId ?? null]]);
     pin.set(set);
     await pin.save({ transaction: t });
     await loadsFollowPins([pin], feedBefore, t);
+    await wiresFollowPins(actor, [pin], pinBefore, t);
     const connector = await Connector.findByPk(pin.connectorId, { transaction: t });
     await recordAudit(t, actor, {
       conversionId: pin.conversionId,
@@ -216,6 +219,7 @@ export async function bulkUpdatePins(
     await assertDestinationFeeds(conversionId, [input.set.destinationFeedId], t);
     const before: Record<number, Record<string, unknown>> = {};
     const feedBefore = new Map([...pins.values()].map((p) => [p.id, p.destinationFeedId ?? null]));
+    const pinBefore = new Map([...pins.values()].map((p) => [p.id, p.destinationPinId ?? null]));
     for (const pin of pins.values()) {
       if (Object.keys(changedFields<PinChanges>(pin, input.set)).length === 0) continue;
       before[pin.id] = beforeOf(pin, input.set);
@@ -223,6 +227,7 @@ export async function bulkUpdatePins(
       await pin.save({ transaction: t });
     }
     await loadsFollowPins(pins.values(), feedBefore, t);
+    await wiresFollowPins(actor, pins.values(), pinBefore, t);
     await recordAudit(t, actor, {
       conversionId,
       action: 'bulk_update',
@@ -274,6 +279,7 @@ export async function batchUpdatePins(
     const after: Record<number, Record<string, unknown>> = {};
     const saved = new Map<number, Pin>();
     const feedBefore = new Map([...pins.values()].map((p) => [p.id, p.destinationFeedId ?? null]));
+    const pinBefore = new Map([...pins.values()].map((p) => [p.id, p.destinationPinId ?? null]));
     for (const change of input.changes) {
       const pin = pins.get(change.id)!;
       const changes = beforeAndAfter(changedFields<PinChanges>(pin, change.set));
@@ -285,6 +291,7 @@ export async function batchUpdatePins(
       await pin.save({ transaction: t });
     }
     await loadsFollowPins(saved.values(), feedBefore, t);
+    await wiresFollowPins(actor, saved.values(), pinBefore, t);
     await recordAudit(t, actor, {
       conversionId,
       action: 'batch_update',
