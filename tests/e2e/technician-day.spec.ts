@@ -157,6 +157,16 @@ test('ticks made offline wait on the tablet, are counted, and reach the server w
     .toContain(picked[2]!.key);
   await page.screenshot({ path: 'test-results/screens/bench-offline.png' });
 
+  // Signing out now would throw the queue away: the tablet asks first, and "Cancel" keeps it.
+  let asked = '';
+  page.once('dialog', (dialog) => {
+    asked = dialog.message();
+    void dialog.dismiss();
+  });
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await expect.poll(() => asked).toContain('3 changes made offline have not reached the server');
+  await expect(page.getByText('3 waiting to send · offline')).toBeVisible();
+
   await context.setOffline(false);
   await expect(page.getByText('All saved')).toBeVisible();
   await expect(page.getByText(/waiting to send/)).toHaveCount(0);

@@ -1,3 +1,4 @@
+import { useQueryClient } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
 import { NavLink, useNavigate } from 'react-router-dom';
 import { can, ROLE_LABELS } from '#shared/auth/roles.ts';
@@ -5,6 +6,7 @@ import type { SessionUser } from '#shared/schemas/auth.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { paths } from '@/config/paths.ts';
 import { useSignOut } from '@/features/auth/api/sign-out.ts';
+import { plural } from '@/lib/plural.ts';
 import mark from '@/assets/loomwright-mark.svg';
 
 function NavItem({ to, children }: { to: string; children: ReactNode }) {
@@ -25,6 +27,7 @@ function NavItem({ to, children }: { to: string; children: ReactNode }) {
 export function AppShell({ user, children }: { user: SessionUser; children: ReactNode }) {
   const signOut = useSignOut();
   const navigate = useNavigate();
+  const queryClient = useQueryClient();
   return (
     <div className="min-h-screen">
       <header className="border-b border-rule bg-paper-raised print:hidden">
@@ -63,9 +66,22 @@ export function AppShell({ user, children }: { user: SessionUser; children: Reac
               size="sm"
               variant="secondary"
               busy={signOut.isPending}
-              onClick={() =>
-                signOut.mutate(undefined, { onSettled: () => navigate(paths.signIn.getHref()) })
-              }
+              onClick={() => {
+                // Signing out clears the tablet's queue: ticks made offline would be lost unsaid.
+                const unsent = queryClient
+                  .getMutationCache()
+                  .getAll()
+                  .filter((m) => m.state.isPaused).length;
+                if (
+                  unsent > 0 &&
+                  !window.confirm(
+                    `${plural(unsent, 'change')} made offline ${unsent === 1 ? 'has' : 'have'} not reached the server yet. Signing out now throws ${unsent === 1 ? 'it' : 'them'} away. Sign out anyway?`,
+                  )
+                ) {
+                  return;
+                }
+                signOut.mutate(undefined, { onSettled: () => navigate(paths.signIn.getHref()) });
+              }}
             >
               Sign out
             </Button>
