@@ -3,7 +3,7 @@ import { useState, type ComponentType } from 'react';
 import { createBrowserRouter, Navigate, RouterProvider } from 'react-router-dom';
 import { Loading } from '@/components/ui/loading.tsx';
 import { paths } from '@/config/paths.ts';
-import { RequireRight, RequireSession } from './layout/require-session.tsx';
+import { RequireRight, RequireSession, SessionOptional } from './layout/require-session.tsx';
 import { conversionLoaders } from './loaders.ts';
 import { NotFoundRoute, RouteError } from './routes/route-error.tsx';
 import { SetPasswordRoute } from './routes/set-password.tsx';
@@ -22,6 +22,20 @@ function createRouter(queryClient: QueryClient) {
   return createBrowserRouter([
     { path: paths.signIn.path, element: <SignInRoute />, errorElement: <RouteError /> },
     { path: paths.setPassword.path, element: <SetPasswordRoute />, errorElement: <RouteError /> },
+    {
+      // Help is read before signing in too (from the sign-in page).
+      element: <SessionOptional />,
+      errorElement: <RouteError />,
+      children: [
+        {
+          path: paths.help.path,
+          lazy: screen(
+            () => import('./routes/help.tsx'),
+            (m) => m.HelpRoute,
+          ),
+        },
+      ],
+    },
     {
       element: <RequireSession />,
       errorElement: <RouteError />,
@@ -138,13 +152,6 @@ function createRouter(queryClient: QueryClient) {
           lazy: screen(
             () => import('./routes/account.tsx'),
             (m) => m.AccountRoute,
-          ),
-        },
-        {
-          path: paths.help.path,
-          lazy: screen(
-            () => import('./routes/help.tsx'),
-            (m) => m.HelpRoute,
           ),
         },
         {

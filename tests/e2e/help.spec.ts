@@ -40,3 +40,16 @@ test('Help is one click from every screen and holds the tour, the keys, the word
   );
   await page.screenshot({ path: 'test-results/screens/help.png', fullPage: true });
 });
+
+test('Help is open from the sign-in page before signing in, and leads back to it', async ({
+  page,
+}) => {
+  await page.goto('/sign-in');
+  await page.getByRole('link', { name: 'Read the help' }).click();
+  await expect(page.getByRole('heading', { name: 'Help', level: 1 })).toBeVisible();
+  await expect(page.getByRole('region', { name: 'A tour' })).toBeVisible();
+  await expect(page.getByText('SAE J1962').first()).toBeVisible();
+  await page.screenshot({ path: 'test-results/screens/help-signed-out.png' });
+  await page.getByRole('link', { name: 'Sign in' }).click();
+  await expect(page.getByRole('button', { name: 'Sign in' })).toBeVisible();
+});

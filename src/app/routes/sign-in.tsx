@@ -1,4 +1,4 @@
-import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
+import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { paths } from '@/config/paths.ts';
 import { useSession } from '@/features/auth/api/get-session.ts';
 import { SignInForm } from '@/features/auth/components/sign-in-form.tsx';
@@ -30,6 +30,13 @@ export function SignInRoute() {
         <div className="rounded-lg border border-rule bg-paper-raised p-6 shadow-[0_1px_0_var(--color-rule)]">
           <SignInForm onSignedIn={() => navigate(next, { replace: true })} />
         </div>
+        <p className="mt-4 text-center text-sm text-ink-soft">
+          New here?{' '}
+          <Link to={paths.help.getHref()} className="font-medium text-ink underline">
+            Read the help
+          </Link>{' '}
+          — the tour, the words and every rule the checks apply.
+        </p>
       </div>
     </div>
   );
