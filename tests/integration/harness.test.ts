@@ -431,6 +431,28 @@ describe('signal rules on the demo', () => {
       .attach('file', Buffer.from(`${header}\r\n${line},T1,maybe\r\n`), 'wires.csv');
     expect(refused.status).toBe(422);
     expect(refused.body.errors).toEqual([expect.objectContaining({ row: 2, column: 'shielded' })]);
+    // Hostile text in a text cell is refused as the API would refuse it, named by row and column.
+    const hostile = await request(ctx.app)
+      .post(`/api/conversions/${draft}/wires/import`)
+      .set('Authorization', builder)
+      .attach(
+        'file',
+        Buffer.from(`${header},notes\r\n${line},T\u200B1,no,"15 A\u202E fuse"\r\n`),
+        'wires.csv',
+      );
+    expect(hostile.status).toBe(422);
+    expect(hostile.body.errors).toEqual([
+      expect.objectContaining({
+        row: 2,
+        column: 'twist_group',
+        message: expect.stringMatching(/U\+200B/),
+      }),
+      expect.objectContaining({
+        row: 2,
+        column: 'notes',
+        message: expect.stringMatching(/U\+202E/),
+      }),
+    ]);
     const imported = await request(ctx.app)
       .post(`/api/conversions/${draft}/wires/import`)
       .set('Authorization', builder)

@@ -15,6 +15,7 @@ import {
   type Wire,
   type WireEnd,
 } from '#shared/schemas/harness.schema.ts';
+import { noteText, optionalText, requiredText } from '#shared/schemas/common.schema.ts';
 import { WIRE_ZONES } from '#shared/schemas/feeds.schema.ts';
 import { db } from '../../db/index.ts';
 import { insertReturningId } from '../../db/portable.ts';
@@ -40,6 +41,12 @@ export const WIRE_CSV_HEADERS = [
   'twist_group',
   'shielded',
 ] as const;
+
+/** Text cells are held to the same rules as the API's fields (shared/schemas/harness.schema.ts). */
+const LABEL_TEXT = requiredText(20);
+const TWIST_TEXT = optionalText(12);
+const END_TEXT = optionalText(200);
+const NOTE_TEXT = noteText(2000);
 
 /** How the shielded column reads: yes/no, and the usual spellings of both. */
 function readShielded(text: string): boolean | undefined {
@@ -205,7 +212,14 @@ export async function importWires(
     };
     const problem = (column: string, message: string) =>
       errors.push({ row: record.row, column, message });
-    const label = cell('label') || null;
+    /** A text cell as the API would take it (NFC, no control or invisible characters). */
+    const text = (column: string, schema: typeof LABEL_TEXT, value = cell(column)) => {
+      const parsed = schema.safeParse(value);
+      if (parsed.success) return parsed.data;
+      problem(column, parsed.error.issues[0]?.message ?? 'is not text Loomwright can keep');
+      return value;
+    };
+    const label = cell('label') ? text('label', LABEL_TEXT) : null;
     if (label) {
       if (labels.has(label.toUpperCase())) problem('label', `"${label}" is used by two rows`);
       labels.add(label.toUpperCase());
@@ -237,14 +251,15 @@ export async function importWires(
     if (!(WIRE_ZONES as readonly string[]).includes(zone)) {
       problem('zone', `"${zone}" is not a zone: use ${WIRE_ZONES.join(' or ')}`);
     }
-    const twistGroup = cell('twist_group');
-    if (twistGroup.length > 12) problem('twist_group', 'a twist group is at most 12 characters');
+    const twistGroup = text('twist_group', TWIST_TEXT);
     const shielded = readShielded(cell('shielded'));
     if (shielded === undefined) problem('shielded', `"${cell('shielded')}" is not yes or no`);
     const ends: WireEnd[] = [];
     for (const column of ['end_a', 'end_b'] as const) {
       const read = names.read(cell(column));
       if (typeof read === 'string') problem(column, read);
+      else if (read.kind === 'unresolved')
+        ends.push({ kind: 'unresolved', text: text(column, END_TEXT, read.text) });
       else ends.push(read);
     }
     rows.push({
@@ -255,7 +270,7 @@ export async function importWires(
       lengthM,
       zone,
       branch: '',
-      notes: cell('notes'),
+      notes: text('notes', NOTE_TEXT),
       twistGroup,
       shielded: shielded ?? false,
       ends: [
