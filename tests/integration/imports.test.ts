@@ -340,6 +340,14 @@ describe('large files', () => {
     const pins = await pinsOf(conversion);
     expect(pins).toHaveLength(2000);
     expect(pins.every((p) => p.disposition === 'keep' && p.colour === 'BU/WH')).toBe(true);
+    // Each connector grew to its 400 cavities, its version moved on once, as an edit would.
+    const grown = await Connector.findAll({
+      where: { conversionId: conversion },
+      order: [['id', 'ASC']],
+    });
+    expect(grown.map((c) => [c.cavityCount, c.rows * c.columns >= 400, c.version])).toEqual(
+      Array(5).fill([400, true, 1]),
+    );
   });
 
   it('refuses more than 400 cavities on one connector (MAX_CAVITIES stays)', async () => {

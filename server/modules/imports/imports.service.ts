@@ -42,6 +42,7 @@ import { headerSignature, parseMappingField, resolveMapping } from './mapping.ts
 import {
   planImport,
   planImportYielding,
+  type ConnectorPlan,
   type Plan,
   type PlanContext,
   type PinData,
@@ -445,26 +446,39 @@ async function writePlan(plan: Plan, conversionId: number, t: Transaction): Prom
   for (const rows of chunks(adds, PINS_PER_STATEMENT)) {
     await writePins(rows, conversionId, false, t);
   }
-  const connectors = new Map(
+  const before = new Map(
     (
       await Connector.findAll({
         where: { id: plan.connectors.map((c) => c.connectorId) },
+        attributes: ['id', 'cavityCount', 'rows', 'columns'],
+        raw: true,
         transaction: t,
       })
     ).map((c) => [c.id, c]),
   );
-  for (const c of plan.connectors) {
-    const connector = connectors.get(c.connectorId);
+  const grown = plan.connectors.filter((c) => {
+    const connector = before.get(c.connectorId);
     if (!connector) throw notFound('That connector');
-    if (
+    return (
       connector.cavityCount !== c.cavityCount ||
       connector.rows !== c.rows ||
       connector.columns !== c.columns
-    ) {
-      connector.set({ cavityCount: c.cavityCount, rows: c.rows, columns: c.columns });
-      await connector.save({ transaction: t });
-    }
-  }
+    );
+  });
+  if (grown.length === 0) return;
+  // Every connector the file grew in one statement; its version moves on as a save would move it.
+  const byId = (value: (c: ConnectorPlan) => number) => ({
+    sql: `CASE id ${grown.map(() => 'WHEN ? THEN ?').join(' ')} END`,
+    values: grown.flatMap((c) => [c.connectorId, value(c)]),
+  });
+  const set = [byId((c) => c.cavityCount), byId((c) => c.rows), byId((c) => c.columns)];
+  await runBulkWrite(
+    `UPDATE connectors SET cavity_count = ${set[0]!.sql}, "rows" = ${set[1]!.sql}, ` +
+      `"columns" = ${set[2]!.sql}, version = version + 1, updated_at = ? ` +
+      `WHERE id IN (${grown.map(() => '?').join(', ')})`,
+    [...set.flatMap((s) => s.values), new Date(), ...grown.map((c) => c.connectorId)],
+    t,
+  );
 }
 
 /** The conversion's change counter as this transaction sees it (migration 0007). */
