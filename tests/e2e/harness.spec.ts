@@ -309,6 +309,25 @@ test('a technician reads the wires and the box without the controls that change 
   await page.getByText(/^Splices \(\d+\) and ground points/).click();
   await expect(page.getByRole('table', { name: 'Ground points' })).toContainText('G-1');
   await expect(page.getByRole('button', { name: 'Change G-1' })).toHaveCount(0);
+
+  // Sorting by a column is for reading, open to every role: by end B, then the other way.
+  const endB = grid(page).getByRole('columnheader', { name: 'End B' });
+  await endB.getByRole('button').click();
+  await expect(endB).toHaveAttribute('aria-sort', 'ascending');
+  const endBTexts = async () =>
+    grid(page)
+      .locator('tbody tr')
+      .evaluateAll(
+        (rows, at) => rows.map((r) => r.children[at]?.textContent ?? ''),
+        cellAt('endB'),
+      );
+  const ascending = await endBTexts();
+  expect(ascending[0]!.localeCompare(ascending.at(-1)!, undefined, { numeric: true })).toBeLessThan(
+    0,
+  );
+  await endB.getByRole('button').click();
+  await expect(endB).toHaveAttribute('aria-sort', 'descending');
+  expect((await endBTexts())[0]).toBe(ascending.at(-1));
   await expect(page.getByRole('link', { name: 'Export CSV' })).toBeVisible();
   await page
     .getByRole('navigation', { name: 'Conversion sections' })

@@ -40,6 +40,47 @@ interface WiresGridProps {
   focusWireId: number | null;
 }
 
+interface WireSort {
+  col: WireColumnId;
+  desc: boolean;
+  /** Wire ids in the order the sort gave when it was taken. */
+  order: number[];
+}
+
+const NUMERIC: ReadonlySet<WireColumnId> = new Set(['size', 'length']);
+
+/** Wire ids sorted by what a column shows; empty cells last either way. */
+function sortedIds(
+  wires: readonly Wire[],
+  col: WireColumnId,
+  desc: boolean,
+  byKey: ReadonlyMap<string, EndOption>,
+): number[] {
+  const shown = (w: Wire) =>
+    col === 'endA' || col === 'endB'
+      ? endText(w.ends[col === 'endA' ? 0 : 1], byKey)
+      : cellText(w, col);
+  const keyed = wires.map((w) => ({ id: w.id, text: shown(w) }));
+  const sign = desc ? -1 : 1;
+  keyed.sort((a, b) => {
+    if (!a.text || !b.text) return a.text ? -1 : b.text ? 1 : 0;
+    const order = NUMERIC.has(col)
+      ? Number(a.text) - Number(b.text)
+      : a.text.localeCompare(b.text, undefined, { numeric: true, sensitivity: 'base' });
+    return sign * order;
+  });
+  return keyed.map((k) => k.id);
+}
+
+/** The wires in a held order; wires added since come after, as listed. */
+function inOrder(wires: readonly Wire[], order: readonly number[]): Wire[] {
+  const at = new Map(order.map((id, i) => [id, i]));
+  return wires
+    .map((w, i) => ({ w, i, at: at.get(w.id) ?? order.length + i }))
+    .sort((a, b) => a.at - b.at)
+    .map((x) => x.w);
+}
+
 interface Cursor {
   row: number;
   col: number;
@@ -53,7 +94,15 @@ export function WiresGrid(props: WiresGridProps) {
   const { wires, options, byKey, readOnly, onText, onEnd, onDelete, circuitHref } = props;
   const { onPatches, onUndo } = props;
   const table = useTable({ features, columns, data: wires, getRowId });
-  const rows = table.getRowModel().rows.map((r) => r.original);
+  const listed = table.getRowModel().rows.map((r) => r.original);
+  // A sort is taken when its header is clicked and then held: a wire edited or added afterwards
+  // keeps its place instead of jumping away from the cursor.
+  const [sort, setSort] = useState<WireSort | null>(null);
+  const rows = sort ? inOrder(listed, sort.order) : listed;
+  const sortBy = (col: WireColumnId) => {
+    const desc = sort?.col === col && !sort.desc;
+    setSort({ col, desc, order: sortedIds(listed, col, desc, byKey) });
+  };
   const [cursor, setCursor] = useState<Cursor>({ row: 0, col: 0 });
   const [editing, setEditing] = useState<{ seed: string | null } | null>(null);
   const gridRef = useRef<HTMLTableElement>(null);
@@ -185,12 +234,23 @@ export function WiresGrid(props: WiresGridProps) {
               <th
                 key={id}
                 scope="col"
+                aria-sort={sort?.col === id ? (sort.desc ? 'descending' : 'ascending') : undefined}
                 style={{ minWidth: WIRE_COLUMN_WIDTHS[id] }}
                 className={`px-2 py-2 text-left font-semibold ${
                   id === 'label' ? 'sticky left-0 z-10 bg-paper-sunk' : ''
                 }`}
               >
-                {WIRE_COLUMN_HEADERS[id]}
+                <button
+                  type="button"
+                  onClick={() => sortBy(id)}
+                  className="text-left font-semibold hover:underline"
+                  title={`Sort by ${WIRE_COLUMN_HEADERS[id].toLowerCase()}`}
+                >
+                  {WIRE_COLUMN_HEADERS[id]}
+                  {sort?.col === id ? (
+                    <span aria-hidden="true">{sort.desc ? ' ▼' : ' ▲'}</span>
+                  ) : null}
+                </button>
               </th>
             ))}
             <th scope="col" className="px-2 py-2 text-left font-semibold">
