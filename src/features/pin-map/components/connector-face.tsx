@@ -116,7 +116,15 @@ function FaceDrawing({ connector, pins, counts, unit, onActivate }: FaceProps) {
   const tip = shown ? at(shown) : null;
   return (
     <div className="relative w-fit max-w-full">
-      <div className="overflow-x-auto">
+      {/* Out of view, the browser skips the face's layout and paint (its size is known): an edit
+          elsewhere on the page does not restyle hundreds of cavities. The tooltip sits outside. */}
+      <div
+        className="overflow-x-auto"
+        style={{
+          contentVisibility: 'auto',
+          containIntrinsicSize: `auto ${width}px auto ${height}px`,
+        }}
+      >
         <svg
           width={width}
           height={height}
