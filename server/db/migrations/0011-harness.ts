@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { insertReturningId } from '../portable.ts';
+import { insertReturningId, readTogether } from '../portable.ts';
 import type { Migration } from './index.ts';
 
 /**
@@ -163,19 +163,23 @@ export async function deriveHarness(
       replacements: { conversionId },
       transaction,
     });
-  const [pins, feeds, loads] = await Promise.all([
-    select<PinRow>(
-      `SELECT p.id, p.disposition, p.destination, p.destination_pin_id, p.destination_feed_id,
+  // One after another: they share the transaction's connection (the rows read are the same).
+  const [pins, feeds, loads] = await readTogether(
+    transaction,
+    () =>
+      select<PinRow>(
+        `SELECT p.id, p.disposition, p.destination, p.destination_pin_id, p.destination_feed_id,
               p.colour, p.size_mm2, p.insulation_rating_c, p.run_length_m, c.side
          FROM pins p JOIN connectors c ON c.id = p.connector_id
         WHERE p.conversion_id = :conversionId ORDER BY p.connector_id, p.position`,
-    ),
-    select<FeedRow>(`SELECT * FROM feeds WHERE conversion_id = :conversionId ORDER BY id`),
-    select<LoadRow>(
-      `SELECT l.feed_id, l.pin_id, l.name FROM feed_loads l JOIN feeds f ON f.id = l.feed_id
+      ),
+    () => select<FeedRow>(`SELECT * FROM feeds WHERE conversion_id = :conversionId ORDER BY id`),
+    () =>
+      select<LoadRow>(
+        `SELECT l.feed_id, l.pin_id, l.name FROM feed_loads l JOIN feeds f ON f.id = l.feed_id
         WHERE f.conversion_id = :conversionId ORDER BY l.feed_id, l.position`,
-    ),
-  ]);
+      ),
+  );
   const now = new Date().toISOString();
   const insert = (sql: string, replacements: Record<string, unknown>) =>
     insertReturningId(sequelize, sql, {

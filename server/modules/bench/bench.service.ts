@@ -32,6 +32,7 @@ import { recordAudit } from '../audit/audit.service.ts';
 import { assertSealIntact, findRevision, snapshotOf } from '../revisions/revisions.service.ts';
 import { findConversionInWorkshop } from '../conversions/conversions.service.ts';
 import { reworkOf, ticksOf } from './bench-carry.service.ts';
+import { readTogether } from '../../db/portable.ts';
 
 const iso = (d: Date) => new Date(d).toISOString();
 
@@ -89,10 +90,11 @@ async function signedOffRevision(
 }
 
 async function recordsOf(revisionId: number, t?: Transaction) {
-  const [records, photos] = await Promise.all([
-    BenchRecord.findAll({ where: { revisionId }, transaction: t }),
-    BenchPhoto.findAll({ where: { revisionId }, order: [['id', 'ASC']], transaction: t }),
-  ]);
+  const [records, photos] = await readTogether(
+    t,
+    () => BenchRecord.findAll({ where: { revisionId }, transaction: t }),
+    () => BenchPhoto.findAll({ where: { revisionId }, order: [['id', 'ASC']], transaction: t }),
+  );
   const photosByKey: Record<string, BenchPhotoDto[]> = {};
   for (const p of photos) (photosByKey[p.itemKey] ??= []).push(toPhotoDto(p));
   return {

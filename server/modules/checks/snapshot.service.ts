@@ -8,6 +8,7 @@ import { toFeedDto } from '../feeds/feeds.service.ts';
 import { harnessOf } from '../harness/harness.repository.ts';
 import { toConnectorDto, toPinDto } from '../pin-map/pin-dto.ts';
 import { PIN_ORDER } from '../pin-map/pins.service.ts';
+import { readTogether } from '../../db/portable.ts';
 
 /**
  * The conversion's plan as it stands, in the snapshot form the checks read and revisions freeze.
@@ -19,18 +20,20 @@ export async function loadConversionSnapshot(
   transaction?: Transaction,
 ): Promise<ConversionSnapshot> {
   const conversion = await findConversionInWorkshop(actor, conversionId, transaction);
-  const [workshop, connectors, pins, feeds, harness] = await Promise.all([
-    Workshop.findByPk(actor.workshopId, { transaction }),
-    Connector.findAll({ where: { conversionId }, order: [['id', 'ASC']], transaction }),
-    Pin.findAll({ where: { conversionId }, order: PIN_ORDER, raw: true, transaction }),
-    Feed.findAll({
-      where: { conversionId },
-      include: [{ model: FeedLoad, as: 'loads' }],
-      order: [['id', 'ASC']],
-      transaction,
-    }),
-    harnessOf(conversionId, transaction),
-  ]);
+  const [workshop, connectors, pins, feeds, harness] = await readTogether(
+    transaction,
+    () => Workshop.findByPk(actor.workshopId, { transaction }),
+    () => Connector.findAll({ where: { conversionId }, order: [['id', 'ASC']], transaction }),
+    () => Pin.findAll({ where: { conversionId }, order: PIN_ORDER, raw: true, transaction }),
+    () =>
+      Feed.findAll({
+        where: { conversionId },
+        include: [{ model: FeedLoad, as: 'loads' }],
+        order: [['id', 'ASC']],
+        transaction,
+      }),
+    () => harnessOf(conversionId, transaction),
+  );
   return {
     format: 1,
     conversion: {

@@ -14,6 +14,7 @@ import type {
 } from '#shared/schemas/harness.schema.ts';
 import type { FuseType } from '#shared/domain/electrical/fuses.ts';
 import { db } from '../../db/index.ts';
+import { readTogether } from '../../db/portable.ts';
 
 interface WireRow {
   id: number;
@@ -249,11 +250,12 @@ export async function boxesOf(conversionId: number, transaction?: Transaction): 
 
 /** The whole harness of a conversion. */
 export async function harnessOf(conversionId: number, transaction?: Transaction): Promise<Harness> {
-  const [wires, splices, groundPoints, boxes] = await Promise.all([
-    wiresOf(conversionId, transaction),
-    splicesOf(conversionId, transaction),
-    groundPointsOf(conversionId, transaction),
-    boxesOf(conversionId, transaction),
-  ]);
+  const [wires, splices, groundPoints, boxes] = await readTogether(
+    transaction,
+    () => wiresOf(conversionId, transaction),
+    () => splicesOf(conversionId, transaction),
+    () => groundPointsOf(conversionId, transaction),
+    () => boxesOf(conversionId, transaction),
+  );
   return { wires, splices, groundPoints, boxes };
 }

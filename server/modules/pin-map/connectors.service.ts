@@ -19,6 +19,7 @@ import {
   ofConversionInWorkshop,
 } from '../conversions/conversions.service.ts';
 import { toConnectorDto } from './pin-dto.ts';
+import { readTogether } from '../../db/portable.ts';
 
 export interface ConnectorWithCounts extends ConnectorDto {
   counts: Partial<Record<Disposition, number>>;
@@ -94,19 +95,22 @@ function assertLayoutHolds(rows: number, columns: number, cavityCount: number) {
 
 /** Which of these pins another pin, a feed's relay coil or a feed's load points at. */
 async function pinsReferenced(pinIds: number[], t: Transaction): Promise<Set<number>> {
-  const [linked, coils, loads] = await Promise.all([
-    Pin.findAll({
-      where: { destinationPinId: pinIds },
-      attributes: ['destinationPinId'],
-      transaction: t,
-    }),
-    Feed.findAll({
-      where: { relayCoilPinId: pinIds },
-      attributes: ['relayCoilPinId'],
-      transaction: t,
-    }),
-    FeedLoad.findAll({ where: { pinId: pinIds }, attributes: ['pinId'], transaction: t }),
-  ]);
+  const [linked, coils, loads] = await readTogether(
+    t,
+    () =>
+      Pin.findAll({
+        where: { destinationPinId: pinIds },
+        attributes: ['destinationPinId'],
+        transaction: t,
+      }),
+    () =>
+      Feed.findAll({
+        where: { relayCoilPinId: pinIds },
+        attributes: ['relayCoilPinId'],
+        transaction: t,
+      }),
+    () => FeedLoad.findAll({ where: { pinId: pinIds }, attributes: ['pinId'], transaction: t }),
+  );
   return new Set([
     ...linked.map((p) => p.destinationPinId!),
     ...coils.map((f) => f.relayCoilPinId!),
