@@ -1,17 +1,8 @@
 import { expect, test, type Page } from '@playwright/test';
+import { openSection } from './support/navigation.ts';
 import { DEMO, signIn } from './support/session.ts';
 
 const SCREENS = 'test-results/screens';
-
-async function openSection(page: Page, conversion: string, section: 'Feeds' | 'Checks') {
-  await page.getByRole('link', { name: 'Conversions', exact: true }).click();
-  await page.getByRole('link', { name: conversion }).click();
-  await expect(page.getByRole('heading', { name: conversion, level: 1 })).toBeVisible();
-  await page
-    .getByRole('navigation', { name: 'Conversion sections' })
-    .getByRole('link', { name: section })
-    .click();
-}
 
 /** One finding of the checks page, found by words of its message. */
 const findingWith = (page: Page, text: string) =>

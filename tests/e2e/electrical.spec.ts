@@ -1,23 +1,10 @@
 import { execFileSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { expect, test, type Page } from '@playwright/test';
+import { openSection } from './support/navigation.ts';
 import { DEMO, signIn } from './support/session.ts';
 
 const SCREENS = 'test-results/screens';
-
-async function openSection(
-  page: Page,
-  conversion: string,
-  section: 'Feeds' | 'Checks' | 'Pin map',
-) {
-  await page.getByRole('link', { name: 'Conversions', exact: true }).click();
-  await page.getByRole('link', { name: conversion }).click();
-  await expect(page.getByRole('heading', { name: conversion, level: 1 })).toBeVisible();
-  await page
-    .getByRole('navigation', { name: 'Conversion sections' })
-    .getByRole('link', { name: section, exact: true })
-    .click();
-}
 
 const findingWith = (page: Page, text: string) =>
   page.getByRole('list', { name: 'Findings' }).getByRole('listitem').filter({ hasText: text });

@@ -1,6 +1,11 @@
 import { mkdirSync } from 'node:fs';
 import { expect, test, type Locator, type Page } from '@playwright/test';
 import { WIRE_COLUMNS } from '../../src/features/harness/lib/wire-cells.ts';
+import {
+  openSection as openConversionSection,
+  wiresGrid,
+  type Section,
+} from './support/navigation.ts';
 import { DEMO, signIn } from './support/session.ts';
 
 /** Where a column's cell sits in a wire's row. */
@@ -8,17 +13,10 @@ const cellAt = (column: (typeof WIRE_COLUMNS)[number]) => WIRE_COLUMNS.indexOf(c
 
 const SCREENS = 'test-results/screens';
 
-async function openSection(page: Page, section: 'Wires' | 'Box' | 'Feeds' | 'Pin map') {
-  await page.getByRole('link', { name: 'Conversions', exact: true }).click();
-  await page.getByRole('link', { name: 'Ashby yard truck' }).click();
-  await expect(page.getByRole('heading', { name: 'Ashby yard truck', level: 1 })).toBeVisible();
-  await page
-    .getByRole('navigation', { name: 'Conversion sections' })
-    .getByRole('link', { name: section, exact: true })
-    .click();
-}
+const openSection = (page: Page, section: Section) =>
+  openConversionSection(page, 'Ashby yard truck', section);
 
-const grid = (page: Page) => page.getByRole('grid', { name: 'Wires of this conversion' });
+const grid = wiresGrid;
 const wireRow = (page: Page, label: string) =>
   grid(page)
     .getByRole('row')

@@ -1,21 +1,19 @@
 import { mkdirSync } from 'node:fs';
 import { expect, test, type Page } from '@playwright/test';
 import { WIRE_COLUMNS } from '../../src/features/harness/lib/wire-cells.ts';
+import {
+  openSection as openConversionSection,
+  wiresGrid,
+  type Section,
+} from './support/navigation.ts';
 import { DEMO, signIn } from './support/session.ts';
 
 const SCREENS = 'test-results/screens';
 
-async function openSection(page: Page, section: 'Wires' | 'Checks') {
-  await page.getByRole('link', { name: 'Conversions', exact: true }).click();
-  await page.getByRole('link', { name: 'Ashby yard truck' }).click();
-  await expect(page.getByRole('heading', { name: 'Ashby yard truck', level: 1 })).toBeVisible();
-  await page
-    .getByRole('navigation', { name: 'Conversion sections' })
-    .getByRole('link', { name: section, exact: true })
-    .click();
-}
+const openSection = (page: Page, section: Section) =>
+  openConversionSection(page, 'Ashby yard truck', section);
 
-const grid = (page: Page) => page.getByRole('grid', { name: 'Wires of this conversion' });
+const grid = wiresGrid;
 /** The CAN wire that runs to a cavity of the diagnostic connector. */
 const wireTo = (page: Page, cavity: string) =>
   grid(page).getByRole('row').filter({ hasText: cavity });
