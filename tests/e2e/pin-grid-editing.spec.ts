@@ -1,14 +1,10 @@
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
+import { allSaved, pinCell, pinGrid } from './support/pin-grid.ts';
 import { DEMO, signIn } from './support/session.ts';
 import { createSmallPlan } from './support/small-plan.ts';
 
-const grid = (page: Page) => page.getByRole('grid', { name: 'Pins' });
-const cell = (page: Page, pin: string, column: string) =>
-  grid(page).locator(`[role="row"][data-pin="${pin}"] [role="gridcell"][data-column="${column}"]`);
-
-async function allSaved(page: Page) {
-  await expect(page.getByText('All changes saved')).toBeVisible();
-}
+const grid = pinGrid;
+const cell = pinCell;
 
 test('Enter takes the highlighted destination; free text only as typed on purpose or when nothing matches', async ({
   page,

@@ -1,12 +1,8 @@
 import { expect, test, type Page } from '@playwright/test';
+import { allSaved, pinCell, pinGrid } from './support/pin-grid.ts';
 import { DEMO, signIn } from './support/session.ts';
 import { createSmallPlan } from './support/small-plan.ts';
 
-const pinGrid = (page: Page) => page.getByRole('grid', { name: 'Pins' });
-const pinCell = (page: Page, pin: string, column: string) =>
-  pinGrid(page).locator(
-    `[role="row"][data-pin="${pin}"] [role="gridcell"][data-column="${column}"]`,
-  );
 const wireOf = (page: Page, pin: string) =>
   page
     .getByRole('grid', { name: 'Wires of this conversion' })
@@ -18,7 +14,7 @@ async function destination(page: Page, pin: string, typed: string, option: RegEx
   await page.keyboard.type(typed);
   await expect(page.getByRole('listbox').getByRole('option').first()).toHaveText(option);
   await page.keyboard.press('Enter');
-  await expect(page.getByText('All changes saved')).toBeVisible();
+  await allSaved(page);
 }
 
 test('a pin’s destination set and moved in the pin map is the wire in the wire list', async ({
