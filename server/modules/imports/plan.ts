@@ -123,6 +123,22 @@ export function fieldChanges(
   }));
 }
 
+/**
+ * A change whose field list (a display string for each changed field) is made when first read:
+ * a preview sends one page of a file's changes, and applying sends none, so the strings of a
+ * 20,000-line file's other pages are never made.
+ */
+function withFields<C extends object>(
+  change: C,
+  make: () => FieldChange[],
+): C & { fields: FieldChange[] } {
+  let fields: FieldChange[] | undefined;
+  return Object.defineProperty(change, 'fields', {
+    enumerable: true,
+    get: () => (fields ??= make()),
+  }) as C & { fields: FieldChange[] };
+}
+
 export function makeNames(ctx: Pick<PlanContext, 'connectors' | 'pins' | 'feeds'>): Names {
   const pins = pinNames(ctx);
   const feeds = new Map(ctx.feeds.map((f) => [f.id, f.name]));
@@ -350,29 +366,31 @@ function* planInSteps(
       if (pin) {
         kept.set(pin.id, pin);
         const after = resolve(row, pin, pin.id);
-        const fields = fieldChanges(pin, after, names, unit);
-        if (fields.length) {
+        if (SHOWN_FIELDS.some((key) => differs(key, pin, after))) {
           summary.changed++;
-          changes.push({
-            kind: 'change',
-            connector: connector.label,
-            cavity: pin.cavity,
-            row: row.row,
-            pinId: pin.id,
-            fields,
-          });
+          changes.push(
+            withFields(
+              {
+                kind: 'change',
+                connector: connector.label,
+                cavity: pin.cavity,
+                row: row.row,
+                pinId: pin.id,
+              },
+              () => fieldChanges(pin, after, names, unit),
+            ),
+          );
           newVersions.set(pin.id, { ...pin, ...after, version: pin.version + 1 });
         } else summary.unchanged++;
       } else {
         const after = resolve(row, BLANK_PIN_VALUES, null);
         summary.added++;
-        changes.push({
-          kind: 'add',
-          connector: connector.label,
-          cavity: row.cavity,
-          row: row.row,
-          fields: fieldChanges(BLANK_PIN_VALUES, after, names, unit),
-        });
+        changes.push(
+          withFields(
+            { kind: 'add', connector: connector.label, cavity: row.cavity, row: row.row },
+            () => fieldChanges(BLANK_PIN_VALUES, after, names, unit),
+          ),
+        );
         addsInOrder.push({ ...after, cavity: row.cavity });
       }
     }
