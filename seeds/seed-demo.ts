@@ -36,6 +36,25 @@ export async function isEmpty(): Promise<boolean> {
 }
 
 /**
+ * Seeds the demo workshop unless another process already has: several app processes may start
+ * together on one new database, each finding it empty. The seeding is one transaction, so the
+ * process that loses the race fails on the demo users' unique addresses with nothing written, and
+ * finds the workshop there when it looks again. Answers whether this process seeded it.
+ */
+export async function seedDemoOnce(
+  sequelize: Sequelize,
+  options: { password: string; bcryptCost: number; sealKeyPem: string },
+): Promise<boolean> {
+  try {
+    await seedDemo(sequelize, options);
+    return true;
+  } catch (error) {
+    if (!(await isEmpty())) return false;
+    throw error;
+  }
+}
+
+/**
  * Seeds the demo workshop in one transaction: the workshop, one user per role, and the two demo
  * conversions. Later steps add each conversion's pins, feeds and revisions.
  */

@@ -1,7 +1,7 @@
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { DEMO_USERS } from '../seeds/demo-data.ts';
-import { isEmpty, seedDemo } from '../seeds/seed-demo.ts';
+import { isEmpty, seedDemoOnce } from '../seeds/seed-demo.ts';
 import { createApp } from './app.ts';
 import { EnvError, loadEnv } from './config/env.ts';
 import { closeDatabase, connectDatabase, databaseTarget } from './db/index.ts';
@@ -16,14 +16,15 @@ async function main() {
   const sequelize = await connectDatabase(databaseTarget(env));
   // Never the URL: it may carry a password.
   const database = env.DATABASE_URL ? 'postgresql' : env.DATABASE_PATH;
-  const fresh = await isEmpty();
+  let fresh = await isEmpty();
   if (env.DEMO && fresh) {
-    await seedDemo(sequelize, {
+    // Another process starting on the same new database may seed it first.
+    fresh = await seedDemoOnce(sequelize, {
       password: env.DEMO_PASSWORD,
       bcryptCost: env.BCRYPT_COST,
       sealKeyPem: env.SEAL_PRIVATE_KEY,
     });
-    logger.info({ database }, 'seeded the demo workshop');
+    if (fresh) logger.info({ database }, 'seeded the demo workshop');
   }
   const stopMail = await startMail(env);
   const stopFileStore = await startFileStore(env);
