@@ -1,5 +1,4 @@
-import { useEffect, useMemo, useRef } from 'react';
-import { useIsMutating, useQueryClient } from '@tanstack/react-query';
+import { useMemo } from 'react';
 import { useOutletContext, useSearchParams } from 'react-router-dom';
 import type { Conversion } from '#shared/schemas/conversions.schema.ts';
 import { Loading } from '@/components/ui/loading.tsx';
@@ -7,8 +6,6 @@ import { Notice } from '@/components/ui/notice.tsx';
 import { useCan } from '@/features/auth/hooks/use-can.ts';
 import { paths } from '@/config/paths.ts';
 import { useFeeds } from '@/features/feeds/api/get-feeds.ts';
-import { feedKeys } from '@/features/feeds/api/keys.ts';
-import { pinMapKeys } from '@/features/pin-map/api/keys.ts';
 import { FromTemplateForm } from '@/features/library/components/from-template-form.tsx';
 import { PinMapScreen } from '@/features/pin-map/components/pin-map-screen.tsx';
 import { useWorkshop } from '@/features/workshop/api/workshop.ts';
@@ -29,16 +26,8 @@ export function ConversionPinMapRoute() {
     () => (feeds.data ?? []).map((f) => ({ feedId: f.id, name: f.name })),
     [feeds.data],
   );
-  // A pin joined to a feed is one of its loads (the server keeps both sides): once pin writes
-  // settle, the feeds are read again.
-  const queryClient = useQueryClient();
-  const writing = useIsMutating({ mutationKey: pinMapKeys.pinWrites(conversion.id) });
-  const wasWriting = useRef(false);
-  useEffect(() => {
-    if (wasWriting.current && writing === 0)
-      void queryClient.invalidateQueries({ queryKey: feedKeys.lists(conversion.id) });
-    wasWriting.current = writing > 0;
-  }, [writing, queryClient, conversion.id]);
+  // A pin joined to a feed is one of its loads (the server keeps both sides): the pin writes
+  // that join or leave a feed mark the feed list stale (features/pin-map/api/pin-write-cache.ts).
   if (workshop.isPending) return <Loading what="Loading the workshop settings" />;
   if (workshop.isError) {
     return (

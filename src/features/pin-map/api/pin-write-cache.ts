@@ -7,7 +7,7 @@
 import type { QueryClient } from '@tanstack/react-query';
 import type { Connector, Pin, PinChanges } from '#shared/schemas/pin-map.schema.ts';
 import { ApiError } from '@/lib/api-client.ts';
-import { HARNESS_KEY_ROOT } from '@/lib/shared-keys.ts';
+import { FEEDS_KEY_ROOT, HARNESS_KEY_ROOT } from '@/lib/shared-keys.ts';
 import { applyEdits, pinsById, replacePins, valuesBefore } from '../lib/pin-cache.ts';
 import type { PinEdit } from '../lib/pin-edits.ts';
 import { connectorLabels, nameOfPin } from '../lib/rows.ts';
@@ -119,9 +119,14 @@ export function pinWriteCache(
       queryClient.setQueryData<Pin[]>(pinsKey, (old) =>
         withPending(replacePins(old ?? [], saved), write),
       );
-      // A destination that moved took its wire along on the server.
-      if (editsOf(write).some((e) => 'destinationPinId' in e.set)) {
+      // A destination that moved took its wire along on the server, and a pin joined to a feed
+      // (or taken off one) changed that feed's loads; other edits leave both lists as they were.
+      const edits = editsOf(write);
+      if (edits.some((e) => 'destinationPinId' in e.set)) {
         void queryClient.invalidateQueries({ queryKey: [HARNESS_KEY_ROOT, conversionId] });
+      }
+      if (edits.some((e) => 'destinationFeedId' in e.set)) {
+        void queryClient.invalidateQueries({ queryKey: [FEEDS_KEY_ROOT, conversionId] });
       }
     },
 
