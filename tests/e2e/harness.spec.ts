@@ -126,6 +126,24 @@ test('a builder wires the cooling fan circuit from the type-ahead and reads its 
     'Radiator support, left',
   );
 
+  // A splice added by mistake is removed; a ground point that holds wires offers no Remove.
+  await page.getByRole('button', { name: 'Add a splice' }).click();
+  await page
+    .getByRole('form', { name: 'Add a splice' })
+    .getByRole('button', { name: 'Add splice' })
+    .click();
+  const addedSplice = page.getByRole('status').filter({ hasText: /Added splice S-\d+/ });
+  await expect(addedSplice).toBeVisible();
+  const spliceLabel = /S-\d+/.exec((await addedSplice.textContent())!)![0];
+  const splices = page.getByRole('table', { name: 'Splices' });
+  await expect(splices.getByRole('row').filter({ hasText: spliceLabel })).toHaveCount(1);
+  await expect(page.getByRole('button', { name: 'Remove G-5' })).toHaveCount(0);
+  await page.getByRole('button', { name: `Remove ${spliceLabel}` }).click();
+  await expect(
+    page.getByRole('status').filter({ hasText: `Removed ${spliceLabel}` }),
+  ).toBeVisible();
+  await expect(splices.getByRole('row').filter({ hasText: spliceLabel })).toHaveCount(0);
+
   // Keyboard: the new wire's length typed into its cell, Enter saves.
   const lengthCell = wireRow(page, w2).getByRole('gridcell').nth(cellAt('length'));
   await lengthCell.click();

@@ -543,3 +543,41 @@ describe('a pin’s destination and its wire are one fact', () => {
       .expect(200);
   });
 });
+
+describe('removing splices and ground points', () => {
+  it('removes one no wire is fastened to, refuses one that joins wires, and hides another workshop’s', async () => {
+    const added = await request(ctx.app)
+      .post(`/api/conversions/${draft}/splices`)
+      .set('Authorization', builder)
+      .send({ notes: 'Made by mistake' });
+    expect(added.status).toBe(201);
+    const other = await createOtherWorkshop();
+    const foreign = await request(ctx.app)
+      .delete(`/api/conversions/${draft}/splices/${added.body.splice.id}`)
+      .set('Authorization', other.authFor('builder'));
+    expect(foreign.status).toBe(404);
+    const removed = await request(ctx.app)
+      .delete(`/api/conversions/${draft}/splices/${added.body.splice.id}`)
+      .set('Authorization', builder);
+    expect(removed.status).toBe(204);
+    const splices = (
+      await request(ctx.app).get(`/api/conversions/${draft}/splices`).set('Authorization', builder)
+    ).body.splices as Array<{ id: number; label: string }>;
+    expect(splices.some((s) => s.id === added.body.splice.id)).toBe(false);
+
+    // G-1 holds the block's ground wires: refused, and nothing is removed.
+    const grounds = (
+      await request(ctx.app)
+        .get(`/api/conversions/${draft}/ground-points`)
+        .set('Authorization', builder)
+    ).body.groundPoints as Array<{ id: number; label: string }>;
+    const g1 = grounds.find((g) => g.label === 'G-1')!;
+    const before = await wiresOf(draft);
+    const refused = await request(ctx.app)
+      .delete(`/api/conversions/${draft}/ground-points/${g1.id}`)
+      .set('Authorization', builder);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toMatch(/^G-1 still joins \d+ wires/);
+    expect(await wiresOf(draft)).toEqual(before);
+  });
+});

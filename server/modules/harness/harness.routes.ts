@@ -104,6 +104,17 @@ conversionHarnessRoutes.patch(
   },
 );
 
+conversionHarnessRoutes.delete(
+  '/:id/splices/:itemId',
+  write,
+  validate({ params: ItemParams }),
+  async (req, res) => {
+    const { id, itemId } = parsedParams<ItemParams>(req);
+    await harness.deleteSplice(actorOf(req), id, itemId);
+    res.status(204).end();
+  },
+);
+
 conversionHarnessRoutes.get(
   '/:id/ground-points',
   read,
@@ -141,6 +152,16 @@ conversionHarnessRoutes.patch(
         req.body as UpdateGroundPointRequest,
       ),
     });
+  },
+);
+conversionHarnessRoutes.delete(
+  '/:id/ground-points/:itemId',
+  write,
+  validate({ params: ItemParams }),
+  async (req, res) => {
+    const { id, itemId } = parsedParams<ItemParams>(req);
+    await harness.deleteGroundPoint(actorOf(req), id, itemId);
+    res.status(204).end();
   },
 );
 

@@ -24,7 +24,7 @@ import { db } from '../../db/index.ts';
 import { insertReturningId } from '../../db/portable.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { ConversionJsonCache, type JsonBody } from '../../lib/cached-json.ts';
-import { AppError, notFound, versionConflict } from '../../lib/errors.ts';
+import { AppError, conflict, notFound, versionConflict } from '../../lib/errors.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 import {
@@ -308,6 +308,54 @@ export async function deleteWire(actor: Actor, wireId: number): Promise<void> {
     });
   });
 }
+
+/**
+ * Removes a splice or a ground point that no wire is fastened to; one that still joins wires is
+ * refused (409) with how many, so no wire end is left pointing at nothing.
+ */
+async function deleteJoint(
+  actor: Actor,
+  conversionId: number,
+  kind: 'splice' | 'ground',
+  id: number,
+): Promise<void> {
+  const table = kind === 'splice' ? 'splices' : 'ground_points';
+  const column = kind === 'splice' ? 'splice_id' : 'ground_point_id';
+  const what = kind === 'splice' ? 'splice' : 'ground point';
+  await inTransaction(db(), async (t) => {
+    await findConversionInWorkshop(actor, conversionId, t);
+    const [row] = await query<{ label: string }>(
+      `SELECT label FROM ${table} WHERE id = :id AND conversion_id = :conversionId`,
+      { id, conversionId },
+      t,
+    );
+    if (!row) throw notFound(`That ${what}`);
+    const [{ n }] = (await query<{ n: number }>(
+      `SELECT COUNT(*) AS n FROM wire_ends WHERE ${column} = :id`,
+      { id },
+      t,
+    )) as [{ n: number }];
+    if (Number(n) > 0) {
+      throw conflict(
+        `${row.label} still joins ${Number(n) === 1 ? '1 wire' : `${Number(n)} wires`}: fasten ${Number(n) === 1 ? 'it' : 'them'} elsewhere or remove ${Number(n) === 1 ? 'it' : 'them'} first.`,
+        { wires: Number(n) },
+      );
+    }
+    await run(`DELETE FROM ${table} WHERE id = :id`, { id }, t);
+    await recordAudit(t, actor, {
+      conversionId,
+      action: 'delete',
+      entityType: kind === 'splice' ? 'splice' : 'ground_point',
+      entityId: id,
+      summary: `Removed ${what} ${row.label}`,
+    });
+  });
+}
+
+export const deleteSplice = (actor: Actor, conversionId: number, spliceId: number) =>
+  deleteJoint(actor, conversionId, 'splice', spliceId);
+export const deleteGroundPoint = (actor: Actor, conversionId: number, groundPointId: number) =>
+  deleteJoint(actor, conversionId, 'ground', groundPointId);
 
 export async function listSplices(actor: Actor, conversionId: number): Promise<Splice[]> {
   await findConversionInWorkshop(actor, conversionId);

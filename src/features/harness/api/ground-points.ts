@@ -51,3 +51,15 @@ export function useUpdateGroundPoint(conversionId: number) {
       queryClient.invalidateQueries({ queryKey: harnessKeys.conversion(conversionId) }),
   });
 }
+
+export const deleteGroundPoint = (conversionId: number, groundPointId: number) =>
+  api.delete<void>(`/api/conversions/${conversionId}/ground-points/${groundPointId}`);
+
+export function useDeleteGroundPoint(conversionId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (groundPointId: number) => deleteGroundPoint(conversionId, groundPointId),
+    onSettled: () =>
+      queryClient.invalidateQueries({ queryKey: harnessKeys.groundPoints(conversionId) }),
+  });
+}

@@ -42,3 +42,14 @@ export function useUpdateSplice(conversionId: number) {
       queryClient.invalidateQueries({ queryKey: harnessKeys.conversion(conversionId) }),
   });
 }
+
+export const deleteSplice = (conversionId: number, spliceId: number) =>
+  api.delete<void>(`/api/conversions/${conversionId}/splices/${spliceId}`);
+
+export function useDeleteSplice(conversionId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (spliceId: number) => deleteSplice(conversionId, spliceId),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: harnessKeys.splices(conversionId) }),
+  });
+}

@@ -6,8 +6,8 @@ import {
   type Wire,
 } from '#shared/schemas/harness.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
-import { useUpdateGroundPoint } from '../api/ground-points.ts';
-import { useUpdateSplice } from '../api/splices.ts';
+import { useDeleteGroundPoint, useUpdateGroundPoint } from '../api/ground-points.ts';
+import { useDeleteSplice, useUpdateSplice } from '../api/splices.ts';
 import { GroundPointForm, SpliceForm } from './small-forms.tsx';
 
 /** How many wire ends are fastened to each splice and ground point, keyed "kind:id". */
@@ -35,31 +35,51 @@ export function SplicesAndGrounds({
   splices,
   groundPoints,
   readOnly,
-  onSaved,
+  onNotice,
 }: {
   conversionId: number;
   wires: readonly Wire[];
   splices: readonly Splice[];
   groundPoints: readonly GroundPoint[];
   readOnly: boolean;
-  onSaved: (what: string) => void;
+  /** What a change or removal came to, for the screen's notice. */
+  onNotice: (tone: 'sound' | 'fault', title: string, body?: string) => void;
 }) {
   const counts = endCounts(wires);
   const [editing, setEditing] = useState<Editing>(null);
   const updateSplice = useUpdateSplice(conversionId);
   const updateGround = useUpdateGroundPoint(conversionId);
+  const removeSplice = useDeleteSplice(conversionId);
+  const removeGround = useDeleteGroundPoint(conversionId);
   const open = (next: Editing) => {
     updateSplice.reset();
     updateGround.reset();
     setEditing(next);
   };
-  /** The button that opens a row's item in its form. */
+  const remove = (next: NonNullable<Editing>) => {
+    const { label, id } = next.item;
+    if (!window.confirm(`Remove ${label}? No wire is fastened to it.`)) return;
+    const mutation = next.kind === 'splice' ? removeSplice : removeGround;
+    mutation.mutate(id, {
+      onSuccess: () => onNotice('sound', `Removed ${label}`),
+      onError: (error) => onNotice('fault', `${label} was not removed`, error.message),
+    });
+  };
+  /**
+   * A row's buttons: Change opens the item in its form; Remove is offered while no wire is
+   * fastened to it (the server refuses it otherwise).
+   */
   const change = (label: string, next: NonNullable<Editing>) =>
     readOnly ? null : (
-      <td className={TD}>
+      <td className={`${TD} whitespace-nowrap`}>
         <Button variant="quiet" aria-label={`Change ${label}`} onClick={() => open(next)}>
           Change
         </Button>
+        {(counts.get(`${next.kind}:${next.item.id}`) ?? 0) === 0 ? (
+          <Button variant="quiet" aria-label={`Remove ${label}`} onClick={() => remove(next)}>
+            Remove
+          </Button>
+        ) : null}
       </td>
     );
   return (
@@ -80,7 +100,7 @@ export function SplicesAndGrounds({
                 {
                   onSuccess: ({ splice }) => {
                     setEditing(null);
-                    onSaved(`Saved splice ${splice.label}`);
+                    onNotice('sound', `Saved splice ${splice.label}`);
                   },
                 },
               )
@@ -102,7 +122,7 @@ export function SplicesAndGrounds({
                 {
                   onSuccess: ({ groundPoint }) => {
                     setEditing(null);
-                    onSaved(`Saved ground point ${groundPoint.label}`);
+                    onNotice('sound', `Saved ground point ${groundPoint.label}`);
                   },
                 },
               )

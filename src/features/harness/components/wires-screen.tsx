@@ -254,7 +254,7 @@ export function WiresScreen({ conversionId, readOnly, pins, connectors }: WiresS
         splices={splices.data ?? []}
         groundPoints={grounds.data ?? []}
         readOnly={readOnly}
-        onSaved={(title) => setMessage({ tone: 'sound', title })}
+        onNotice={(tone, title, body) => setMessage({ tone, title, body })}
       />
       <p className="text-xs text-ink-faint">
         {readOnly
