@@ -69,7 +69,7 @@ export function SplicesAndGrounds({
    * A row's buttons: Change opens the item in its form; Remove is offered while no wire is
    * fastened to it (the server refuses it otherwise).
    */
-  const change = (label: string, next: NonNullable<Editing>) =>
+  const rowActions = (label: string, next: NonNullable<Editing>) =>
     readOnly ? null : (
       <td className={`${TD} whitespace-nowrap`}>
         <Button variant="quiet" aria-label={`Change ${label}`} onClick={() => open(next)}>
@@ -141,7 +141,7 @@ export function SplicesAndGrounds({
               <th className={TH}>Where</th>
               {readOnly ? null : (
                 <th className={TH}>
-                  <span className="sr-only">Change</span>
+                  <span className="sr-only">Actions</span>
                 </th>
               )}
             </tr>
@@ -158,7 +158,7 @@ export function SplicesAndGrounds({
                     .join(', ') || '—'}
                   {s.notes ? <div className="text-xs text-ink-soft">{s.notes}</div> : null}
                 </td>
-                {change(s.label, { kind: 'splice', item: s })}
+                {rowActions(s.label, { kind: 'splice', item: s })}
               </tr>
             ))}
           </tbody>
@@ -172,7 +172,7 @@ export function SplicesAndGrounds({
               <th className={TH}>Strap</th>
               {readOnly ? null : (
                 <th className={TH}>
-                  <span className="sr-only">Change</span>
+                  <span className="sr-only">Actions</span>
                 </th>
               )}
             </tr>
@@ -187,7 +187,7 @@ export function SplicesAndGrounds({
                   {g.notes ? <div className="text-xs text-ink-soft">{g.notes}</div> : null}
                 </td>
                 <td className={TD}>{g.strapSizeMm2 !== null ? `${g.strapSizeMm2} mm²` : '—'}</td>
-                {change(g.label, { kind: 'ground', item: g })}
+                {rowActions(g.label, { kind: 'ground', item: g })}
               </tr>
             ))}
           </tbody>
