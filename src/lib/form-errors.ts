@@ -50,3 +50,19 @@ export function useErrorOf(): (path: string) => string | undefined {
 
 /** For `register(name, { setValueAs })`: an empty field sends nothing, as the schemas expect. */
 export const blankAsUndefined = (value: unknown) => (value === '' ? undefined : value);
+
+/**
+ * For a form that shows a mutation's failure itself: the mark beside each field (the form's own,
+ * else the one the server's answer names for that path), and the failure in words when the answer
+ * named no field.
+ */
+export function marksOf(
+  errors: FieldErrors,
+  error: Error | null,
+): { errorOf: (path: string) => string | undefined; unplaced: string | null } {
+  const server = error instanceof ApiError ? error.fieldIssues() : {};
+  return {
+    errorOf: (path) => errorAt(errors, path) ?? server[path],
+    unplaced: error && Object.keys(server).length === 0 ? error.message : null,
+  };
+}

@@ -79,3 +79,21 @@ export function snapshot(
     feeds,
   };
 }
+
+/** A relay and fuse box (id 1) holding the given positions, for harness rule tests. */
+export function box(
+  positions: NonNullable<ConversionSnapshot['harness']>['boxes'][number]['positions'],
+): NonNullable<ConversionSnapshot['harness']>['boxes'][number] {
+  return { id: 1, conversionId: 1, label: 'Box', notes: '', positions };
+}
+
+/** A relay position with no coil figure, tied to no feed. */
+export const relayPosition = (id: number, label = 'R1', contactRatingA = 30) =>
+  ({
+    id,
+    kind: 'relay',
+    label,
+    contactRatingA,
+    coilResistanceOhm: null,
+    feedId: null,
+  }) as const;

@@ -45,7 +45,6 @@ export async function wiresFollowPins(
     const to = pin.destinationPinId ?? null;
     if (from === to) continue;
     const now = new Date().toISOString();
-    const pinName = await nameOf(pin.id, t);
     const [direct] =
       from == null
         ? []
@@ -60,6 +59,7 @@ export async function wiresFollowPins(
             t,
           );
     if (direct) {
+      const pinName = await nameOf(pin.id, t);
       const fromName = await nameOf(from!, t);
       const toName = to == null ? null : await nameOf(to, t);
       await db().query(
@@ -95,6 +95,7 @@ export async function wiresFollowPins(
       t,
     )) as [{ n: number }];
     if (Number(n) > 0) continue;
+    const pinName = await nameOf(pin.id, t);
     const label = await nextLabel('wires', pin.conversionId, 'W-', 3, t);
     const wireId = await insertReturningId(
       db(),

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { runChecks } from '#shared/domain/checks/run-checks.ts';
 import type { SnapshotHarness } from '#shared/schemas/harness.schema.ts';
-import { snapshot } from '../../factories/snapshot.factory.ts';
+import { box, relayPosition, snapshot } from '../../factories/snapshot.factory.ts';
 
 const rulesOf = (s: ReturnType<typeof snapshot>, rule: string) =>
   runChecks(s, { sizeUnit: 'mm2' }).filter((f) => f.rule === rule);
@@ -198,22 +198,16 @@ describe('shields, references, regulated circuits, the fuel pump, coils and lamp
     });
     s.harness = harness({
       boxes: [
-        {
-          id: 1,
-          conversionId: 1,
-          label: 'Box',
-          notes: '',
-          positions: [
-            {
-              id: 9,
-              kind: 'relay',
-              label: 'R1',
-              contactRatingA: 40,
-              coilResistanceOhm: 80,
-              feedId: null,
-            },
-          ],
-        },
+        box([
+          {
+            id: 9,
+            kind: 'relay',
+            label: 'R1',
+            contactRatingA: 40,
+            coilResistanceOhm: 80,
+            feedId: null,
+          },
+        ]),
       ],
       wires: [coilWire(1, '85', { kind: 'pin', refId: 1 })],
     });
@@ -254,24 +248,7 @@ describe('ECU power and grounds (common practice, no source)', () => {
       ],
     });
     s.harness = harness({
-      boxes: [
-        {
-          id: 1,
-          conversionId: 1,
-          label: 'Box',
-          notes: '',
-          positions: [
-            {
-              id: 5,
-              kind: 'relay',
-              label: 'R1',
-              contactRatingA: 30,
-              coilResistanceOhm: null,
-              feedId: null,
-            },
-          ],
-        },
-      ],
+      boxes: [box([relayPosition(5)])],
       wires: [
         wire(1, { kind: 'relay', refId: 5, terminal: '87' }, { kind: 'pin', refId: 1 }),
         wire(

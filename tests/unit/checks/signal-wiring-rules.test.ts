@@ -6,7 +6,7 @@ import {
   busLineOf,
 } from '#shared/domain/checks/signal-wiring-rules.ts';
 import type { SnapshotHarness } from '#shared/schemas/harness.schema.ts';
-import { snapshot } from '../../factories/snapshot.factory.ts';
+import { box, relayPosition, snapshot } from '../../factories/snapshot.factory.ts';
 
 type HarnessWire = SnapshotHarness['wires'][number];
 type End = HarnessWire['ends'][number];
@@ -253,23 +253,10 @@ describe('ECU main power from the main relay (common practice, no source)', () =
     });
     s.harness = harness({
       boxes: [
-        {
-          id: 1,
-          conversionId: 1,
-          label: 'Box',
-          notes: '',
-          positions: [
-            {
-              id: 5,
-              kind: 'relay',
-              label: 'R1',
-              contactRatingA: 30,
-              coilResistanceOhm: null,
-              feedId: null,
-            },
-            { id: 6, kind: 'fuse', label: 'F1', fuseType: 'mini_blade', ratingA: 15, feedId: null },
-          ],
-        },
+        box([
+          relayPosition(5),
+          { id: 6, kind: 'fuse', label: 'F1', fuseType: 'mini_blade', ratingA: 15, feedId: null },
+        ]),
       ],
       wires: [
         wire(1, { kind: 'fuse', refId: 6, terminal: 'out' }, pin(1)),

@@ -3,8 +3,7 @@ import { useForm } from 'react-hook-form';
 import { CreateBoxRequest } from '#shared/schemas/harness.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { TextField } from '@/components/ui/field.tsx';
-import { ApiError } from '@/lib/api-client.ts';
-import { errorAt } from '@/lib/form-errors.ts';
+import { marksOf } from '@/lib/form-errors.ts';
 
 /** A new, empty relay and fuse box; its fuses and relays are added as positions after. */
 export function AddBoxForm({
@@ -22,8 +21,7 @@ export function AddBoxForm({
     resolver: zodResolver(CreateBoxRequest),
     defaultValues: { label: '', notes: '', positions: [] },
   });
-  const server = error instanceof ApiError ? error.fieldIssues() : {};
-  const errorOf = (path: string) => errorAt(formState.errors, path) ?? server[path];
+  const { errorOf, unplaced } = marksOf(formState.errors, error);
   const submit = handleSubmit(onSubmit);
   return (
     <form
@@ -47,9 +45,9 @@ export function AddBoxForm({
           Cancel
         </Button>
       </div>
-      {error && !Object.keys(server).length ? (
+      {unplaced ? (
         <p role="alert" className="text-sm text-fault sm:col-span-3">
-          {error.message}
+          {unplaced}
         </p>
       ) : null}
     </form>

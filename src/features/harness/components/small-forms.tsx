@@ -10,8 +10,7 @@ import {
 } from '#shared/schemas/harness.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextField } from '@/components/ui/field.tsx';
-import { ApiError } from '@/lib/api-client.ts';
-import { errorAt } from '@/lib/form-errors.ts';
+import { marksOf } from '@/lib/form-errors.ts';
 
 /** An empty number field means "not recorded". */
 const blankAsNull = (value: unknown) =>
@@ -62,8 +61,7 @@ export function SpliceForm({
       : { label: undefined, sealed: true, branch: '', distanceMm: null, notes: '' },
   });
   const title = initial ? `Change splice ${initial.label}` : 'Add a splice';
-  const server = error instanceof ApiError ? error.fieldIssues() : {};
-  const errorOf = (path: string) => errorAt(formState.errors, path) ?? server[path];
+  const { errorOf, unplaced } = marksOf(formState.errors, error);
   const submit = handleSubmit(onSubmit);
   return (
     <form aria-label={title} onSubmit={(e) => void submit(e)} className={FORM}>
@@ -85,9 +83,9 @@ export function SpliceForm({
         <input type="checkbox" {...register('sealed')} /> Sealed (heat-shrink with glue)
       </label>
       <TextField label="Notes" {...register('notes')} error={errorOf('notes')} />
-      {error && !Object.keys(server).length ? (
+      {unplaced ? (
         <p role="alert" className="text-sm text-fault sm:col-span-4">
-          {error.message}
+          {unplaced}
         </p>
       ) : null}
       <Actions busy={busy} what={initial ? 'Save splice' : 'Add splice'} onCancel={onCancel} />
@@ -118,8 +116,7 @@ export function GroundPointForm({
       : { label: undefined, location: 'chassis' as const, strapSizeMm2: null, notes: '' },
   });
   const title = initial ? `Change ground point ${initial.label}` : 'Add a ground point';
-  const server = error instanceof ApiError ? error.fieldIssues() : {};
-  const errorOf = (path: string) => errorAt(formState.errors, path) ?? server[path];
+  const { errorOf, unplaced } = marksOf(formState.errors, error);
   const submit = handleSubmit(onSubmit);
   return (
     <form aria-label={title} onSubmit={(e) => void submit(e)} className={FORM}>
@@ -144,9 +141,9 @@ export function GroundPointForm({
         error={errorOf('strapSizeMm2')}
       />
       <TextField label="Notes" {...register('notes')} error={errorOf('notes')} />
-      {error && !Object.keys(server).length ? (
+      {unplaced ? (
         <p role="alert" className="text-sm text-fault sm:col-span-4">
-          {error.message}
+          {unplaced}
         </p>
       ) : null}
       <Actions
