@@ -89,3 +89,44 @@ export async function generateFeeds(conversionId: number, count: number) {
       );
   }
 }
+
+/** Rows of the import bench's pinout and cavities per generated connector. */
+export const IMPORT_ROWS = 5000;
+const IMPORT_PER_CONNECTOR = 400;
+const IMPORT_COLOURS = ['BU/WH', 'RD', 'GN/YE', 'BK', 'VT/WH', 'OG/BK'];
+const IMPORT_DISPOSITIONS = ['keep', 'De-pin', 'cut', 'extend', 'join'];
+
+/** A 5,000-row pinout over 13 connectors (a connector holds at most 400 cavities), every column filled. */
+export function generatePinoutCsv(rows = IMPORT_ROWS): string {
+  let csv =
+    '\uFEFFconnector,cavity,function,signal_class,colour,size_mm2,awg,insulation_c,disposition,destination,feed,run_length_m,load_current_a,notes\r\n';
+  for (let i = 0; i < rows; i++) {
+    const connector = `G${Math.floor(i / IMPORT_PER_CONNECTOR) + 1}`;
+    const cavity = (i % IMPORT_PER_CONNECTOR) + 1;
+    csv +=
+      `${connector},${cavity},"Generated circuit ${i + 1}, bench",sensor_signal,${IMPORT_COLOURS[i % IMPORT_COLOURS.length]},0.5,,105,` +
+      `${IMPORT_DISPOSITIONS[i % IMPORT_DISPOSITIONS.length]},Bench point ${i},,1.5,0.1,"Row ${i + 1}; quoted ""notes"""\r\n`;
+  }
+  return csv;
+}
+
+/**
+ * The state each import round starts from: every pin of the conversion gone, one blank pin per
+ * generated connector (each connector starts with one cavity, so applying confirms that it grows).
+ */
+export async function resetImportPins(conversionId: number, rows = IMPORT_ROWS) {
+  await Pin.destroy({ where: { conversionId } });
+  await Connector.destroy({ where: { conversionId } });
+  for (let c = 0; c * IMPORT_PER_CONNECTOR < rows; c++) {
+    const connector = await Connector.create({
+      conversionId,
+      label: `G${c + 1}`,
+      side: 'ecu',
+      cavityCount: 1,
+      rows: 1,
+      columns: 1,
+    });
+    await Pin.create({ conversionId, connectorId: connector.id, cavity: '1', position: 0 });
+  }
+  return Pin.count({ where: { conversionId } });
+}

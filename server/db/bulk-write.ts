@@ -3,38 +3,52 @@ import type { Database as SqliteDatabase } from 'sqlite3';
 import { db } from './index.ts';
 
 /**
- * Runs one write statement with `?` placeholders inside the caller's transaction, for statements
- * carrying thousands of values (an import's multi-row INSERT). On SQLite the values are bound by
- * position straight on the transaction's handle: Sequelize binds SQLite values by name, and SQLite
- * finds each name by a linear search, so a statement of 10,000 values cost the square of that.
- * Other dialects get the same SQL through `sequelize.query` with replacements, escaped by Sequelize.
+ * A value as SQL text, escaped by Sequelize as it escapes `replacements` for the dialect in use.
+ * A NUL would end the text SQLite reads, so a value holding one is refused (the text rules refuse
+ * control characters long before a value gets here).
  */
-export async function runBulkWrite(
-  sql: string,
-  values: readonly unknown[],
-  t: Transaction,
-): Promise<void> {
+export function sqlLiteral(value: unknown): string {
+  if (value === null || value === undefined) return 'NULL';
+  if (typeof value === 'number' && Number.isFinite(value)) return String(value);
+  if (typeof value === 'string' && value.includes('\0')) {
+    throw new Error('A bulk write cannot carry a NUL character');
+  }
+  return db().escape(value as string | number | Date);
+}
+
+/**
+ * Runs write statements whose values are already escaped into their text (`sqlLiteral`), one
+ * after another inside the caller's transaction: an import's multi-row INSERTs. On SQLite each
+ * goes straight to the transaction's handle as one `exec`, which node-sqlite3 runs alone and in the
+ * order given, and the next statement is asked for while SQLite writes the one before, so
+ * `statements` may be a generator that builds each one as it is asked for. Bound values cost
+ * about a microsecond each to hand to sqlite3, and Sequelize's own SQLite binding is by name,
+ * which SQLite looks up by a linear search (`npm run bench`, P4). Every statement handed over is
+ * waited for before this answers or fails, so a caller rolling back never meets one still running.
+ */
+export async function runBulkWrites(statements: Iterable<string>, t: Transaction): Promise<void> {
   const sequelize = db();
   const handle = (t as unknown as { connection?: SqliteDatabase }).connection;
   if (sequelize.getDialect() !== 'sqlite' || !handle) {
-    await sequelize.query(sql, { replacements: [...values], transaction: t });
+    for (const sql of statements) await sequelize.query(sql, { transaction: t });
     return;
   }
-  // sqlite3 stores booleans and dates as Sequelize would not: give it the forms Sequelize stores
-  // (a statement's rows share their timestamps, so each date is formatted once).
-  const dates = new Map<number, string>();
-  const dateText = (d: Date) => {
-    let text = dates.get(d.getTime());
-    if (text === undefined) {
-      text = sequelize.escape(d).slice(1, -1);
-      dates.set(d.getTime(), text);
+  const running: Promise<void>[] = [];
+  let failure: unknown = null;
+  try {
+    for (const sql of statements) {
+      running.push(
+        new Promise<void>((resolve, reject) => {
+          handle.exec(sql, (err: Error | null) => (err ? reject(err) : resolve()));
+        }),
+      );
+      // Let the statement before this one finish and this one start while the next is built.
+      await new Promise<void>((resolve) => setImmediate(resolve));
     }
-    return text;
-  };
-  const bound = values.map((v) =>
-    typeof v === 'boolean' ? (v ? 1 : 0) : v instanceof Date ? dateText(v) : v,
-  );
-  await new Promise<void>((resolve, reject) => {
-    handle.run(sql, bound, (err: Error | null) => (err ? reject(err) : resolve()));
-  });
+  } catch (error) {
+    failure = error;
+  }
+  const settled = await Promise.allSettled(running);
+  const failed = settled.find((s): s is PromiseRejectedResult => s.status === 'rejected');
+  if (failure ?? failed) throw failure ?? failed!.reason;
 }

@@ -350,6 +350,52 @@ describe('large files', () => {
     );
   });
 
+  it('stores text that looks like SQL, quotes or placeholders exactly as written, previewed or not', async () => {
+    // The multi-row statements carry their values escaped into the text: every character a cell
+    // may hold has to come back unchanged, in new pins and in updated ones.
+    const hostile = [
+      `O'Neill's relay; '); DELETE FROM pins; --`,
+      'Sensor ? $1 :name @p ?1 ?? end',
+      "Back\\slash \\' and \\0 and \\n literally",
+      '"Double" quotes, 日本語 and 🚗 (non-BMP)',
+      `''''`,
+    ];
+    const conversion = await createConversion('Quoted');
+    await createConnector(conversion, 'Q1', 'ecu', 1);
+    const file = (suffix: string) => {
+      let csv = 'connector,cavity,function,destination,notes\n';
+      for (let i = 1; i <= 300; i++) {
+        const text = hostile[i % hostile.length]!;
+        csv += `Q1,${i},"${text.replaceAll('"', '""')}${suffix}",Point ${i}?,"${text.replaceAll('"', '""')}"\n`;
+      }
+      return csv;
+    };
+    const expectStored = async (suffix: string) => {
+      const pins = await pinsOf(conversion);
+      expect(pins).toHaveLength(300);
+      for (const pin of pins) {
+        const text = hostile[Number(pin.cavity) % hostile.length]!;
+        expect([pin.function, pin.destination, pin.notes]).toEqual([
+          `${text}${suffix}`,
+          `Point ${pin.cavity}?`,
+          text,
+        ]);
+      }
+    };
+    // Applied without a preview: every pin but the first is new.
+    const first = await upload(intoConversion(conversion), file(''), { grow: true });
+    expect(first.status).toBe(200);
+    expect(first.body.summary).toMatchObject({ added: 299, changed: 1 });
+    await expectStored('');
+    // Previewed, then applied: the preview's rows are the ones written, now as updates.
+    const preview = await upload(intoConversion(conversion), file(' (2)'), { dryRun: true });
+    expect(preview.body.errors).toEqual([]);
+    const second = await upload(intoConversion(conversion), file(' (2)'));
+    expect(second.status).toBe(200);
+    expect(second.body.summary).toMatchObject({ added: 0, changed: 300 });
+    await expectStored(' (2)');
+  });
+
   it('refuses more than 400 cavities on one connector (MAX_CAVITIES stays)', async () => {
     const connector = await createConnector(conversionId, 'X4', 'ecu', 1);
     let csv = 'cavity\n';

@@ -13,7 +13,7 @@ import {
 } from '#shared/schemas/imports.schema.ts';
 import { PIN_FIELD_NAMES } from '#shared/schemas/pin-map.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
-import { runBulkWrite } from '../../db/bulk-write.ts';
+import { runBulkWrites, sqlLiteral } from '../../db/bulk-write.ts';
 import { db } from '../../db/index.ts';
 import {
   Connector,
@@ -384,68 +384,79 @@ async function previousImport(
 }
 
 /**
- * Pins per INSERT: some 11,000 values, well under SQLite's 32,766, written in a few statements
- * (a 5,000-row import in 10) with the values bound by position (`runBulkWrite`).
+ * Pins per INSERT: a 5,000-row import is written in 20 statements, each joined while SQLite writes
+ * the one before (`runBulkWrites`).
  */
-const PINS_PER_STATEMENT = 500;
+const PINS_PER_STATEMENT = 250;
 
 /** The pin columns an import writes, by attribute, in one order for every statement. */
 const WRITTEN = ['connectorId', 'cavity', 'position', ...PIN_FIELD_NAMES, 'version'] as const;
-type WrittenPin = Pick<PinData, (typeof WRITTEN)[number]>;
 
 /**
- * Rows of pins in one multi-row statement: plain SQL with bound values, no model per row. With
- * `upsert`, rows carry their id and an existing row takes the new values (and keeps created_at).
+ * A plan's pins as SQL text, one row each without its timestamps: "(id, conversion, connector, …"
+ * for the pins it updates, "(conversion, connector, …" for the ones it adds. A preview renders
+ * them once and keeps them with its plan, so the apply that follows only joins them: escaping
+ * 100,000 values was most of an apply's own work (`npm run bench`, P4).
  */
-async function writePins(
-  rows: ReadonlyArray<WrittenPin & { id?: number }>,
-  conversionId: number,
-  upsert: boolean,
-  t: Transaction,
-): Promise<void> {
-  if (rows.length === 0) return;
+interface PlanRows {
+  updates: string[];
+  adds: string[];
+}
+
+async function planRows(plan: Plan, conversionId: number): Promise<PlanRows> {
+  const row = (pin: Pick<PinData, (typeof WRITTEN)[number]>) => {
+    let text = '';
+    for (const name of WRITTEN) text += `, ${sqlLiteral(pin[name])}`;
+    return text;
+  };
+  const updates: string[] = [];
+  const adds: string[] = [];
+  for (const c of plan.connectors) {
+    for (const pin of c.updates) updates.push(`(${sqlLiteral(pin.id)}, ${conversionId}${row(pin)}`);
+    for (const pin of c.adds) {
+      adds.push(`(${conversionId}${row({ ...pin, connectorId: c.connectorId, version: 0 })}`);
+    }
+    // Other requests run between connectors, as while the plan was worked out.
+    await new Promise<void>((resolve) => setImmediate(resolve));
+  }
+  return { updates, adds };
+}
+
+/**
+ * A plan's rows as multi-row statements, each built when asked for: plain SQL, no model per row,
+ * every row stamped with the time of writing. Updated pins take the new values (and keep
+ * created_at).
+ */
+function* pinStatements(rows: PlanRows): Generator<string> {
   const attributes = Pin.getAttributes();
   const column = (name: string) => attributes[name as keyof typeof attributes]!.field!;
-  const names = [...(upsert ? ['id'] : []), 'conversionId', ...WRITTEN, 'createdAt', 'updatedAt'];
-  const stamp = new Date();
-  const values: unknown[] = [];
-  for (const row of rows) {
-    if (upsert) values.push(row.id);
-    values.push(conversionId);
-    for (const name of WRITTEN) values.push(row[name]);
-    values.push(stamp, stamp);
+  const columns = ['conversionId', ...WRITTEN, 'createdAt', 'updatedAt'].map(column);
+  const stamp = sqlLiteral(new Date());
+  const end = `, ${stamp}, ${stamp})`;
+  const set = ['position', ...PIN_FIELD_NAMES, 'version', 'updatedAt']
+    .map((name) => `${column(name)} = excluded.${column(name)}`)
+    .join(', ');
+  for (const chunk of chunks(rows.updates, PINS_PER_STATEMENT)) {
+    yield (
+      `INSERT INTO pins (id, ${columns.join(', ')}) VALUES ${chunk.join(`${end}, `)}${end} ` +
+      `ON CONFLICT (id) DO UPDATE SET ${set}`
+    );
   }
-  const tuple = `(${names.map(() => '?').join(', ')})`;
-  const updates = ['position', ...PIN_FIELD_NAMES, 'version', 'updatedAt'].map(
-    (name) => `${column(name)} = excluded.${column(name)}`,
-  );
-  await runBulkWrite(
-    `INSERT INTO pins (${names.map(column).join(', ')}) VALUES ${rows.map(() => tuple).join(', ')}` +
-      (upsert ? ` ON CONFLICT (id) DO UPDATE SET ${updates.join(', ')}` : ''),
-    values,
-    t,
-  );
+  for (const chunk of chunks(rows.adds, PINS_PER_STATEMENT)) {
+    yield `INSERT INTO pins (${columns.join(', ')}) VALUES ${chunk.join(`${end}, `)}${end}`;
+  }
 }
 
 /**
  * Writes a plan inside the caller's transaction: every removal first (500 ids a statement), then
- * every update, then every new pin (500 a statement), whatever connector they are on, so a
- * 13-connector file takes a dozen statements rather than a dozen per connector.
+ * every update and every new pin (250 a statement), so a 13-connector file takes a couple of dozen
+ * statements rather than a dozen per connector.
  */
-async function writePlan(plan: Plan, conversionId: number, t: Transaction): Promise<void> {
+async function writePlan(plan: Plan, rows: PlanRows, t: Transaction): Promise<void> {
   for (const ids of chunks(plan.connectors.flatMap((c) => c.removes))) {
     await Pin.destroy({ where: { id: ids }, transaction: t });
   }
-  const updates = plan.connectors.flatMap((c) => c.updates);
-  for (const rows of chunks(updates, PINS_PER_STATEMENT)) {
-    await writePins(rows, conversionId, true, t);
-  }
-  const adds = plan.connectors.flatMap((c) =>
-    c.adds.map((p) => ({ ...p, connectorId: c.connectorId, version: 0 })),
-  );
-  for (const rows of chunks(adds, PINS_PER_STATEMENT)) {
-    await writePins(rows, conversionId, false, t);
-  }
+  await runBulkWrites(pinStatements(rows), t);
   const before = new Map(
     (
       await Connector.findAll({
@@ -472,12 +483,18 @@ async function writePlan(plan: Plan, conversionId: number, t: Transaction): Prom
     values: grown.flatMap((c) => [c.connectorId, value(c)]),
   });
   const set = [byId((c) => c.cavityCount), byId((c) => c.rows), byId((c) => c.columns)];
-  await runBulkWrite(
+  await db().query(
     `UPDATE connectors SET cavity_count = ${set[0]!.sql}, "rows" = ${set[1]!.sql}, ` +
       `"columns" = ${set[2]!.sql}, version = version + 1, updated_at = ? ` +
       `WHERE id IN (${grown.map(() => '?').join(', ')})`,
-    [...set.flatMap((s) => s.values), new Date(), ...grown.map((c) => c.connectorId)],
-    t,
+    {
+      replacements: [
+        ...set.flatMap((s) => s.values),
+        new Date(),
+        ...grown.map((c) => c.connectorId),
+      ],
+      transaction: t,
+    },
   );
 }
 
@@ -493,6 +510,8 @@ async function changeCounterIn(conversionId: number, t: Transaction): Promise<nu
 interface Prepared {
   checked: Checked;
   plan: Plan | null;
+  /** The plan's pins as SQL text, when the plan can be applied. */
+  rows: PlanRows | null;
 }
 
 /** Previews kept for the apply that follows them (see PreparedImports). */
@@ -552,7 +571,8 @@ async function prepare(
         checked.imported,
       )
     : null;
-  return { checked, plan };
+  const applicable = plan && checked.errors.length === 0 && plan.errors.length === 0;
+  return { checked, plan, rows: applicable ? await planRows(plan, where.conversionId) : null };
 }
 
 /**
@@ -585,7 +605,7 @@ export async function importPinout(
   else if (!dryRun) prepared.delete(key);
   // The notes of this answer alone: a kept preview is shared.
   const checked: Checked = { ...work.checked, notes: [...work.checked.notes] };
-  const { plan } = work;
+  const { plan, rows } = work;
   const previous = await previousImport(where, checked.sha256);
   if (previous) {
     checked.notes.push(
@@ -612,7 +632,8 @@ export async function importPinout(
       throw refused(buildResult(where, checked, fresh, false, previous));
     }
     assertGrowthConfirmed(fresh, allowGrowth);
-    await writePlan(fresh, where.conversionId, t);
+    const freshRows = fresh === plan && rows ? rows : await planRows(fresh, where.conversionId);
+    await writePlan(fresh, freshRows, t);
     // A pin the file joins to a feed is one of that feed's loads, as when edited on the pin map.
     await loadsFollowConnectorPins(
       fresh.connectors.map((c) => c.connectorId),
