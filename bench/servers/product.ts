@@ -7,8 +7,8 @@
  * GET /bench/pin-count. Prints one JSON line when listening; stops on SIGTERM.
  */
 import type { AddressInfo } from 'node:net';
-import { Pin } from '../../server/db/models/index.ts';
 import express from 'express';
+import { Pin } from '../../server/db/models/index.ts';
 import { benchContext } from '../lib/context.ts';
 import { replacePinMap, resetImportPins } from '../lib/generate.ts';
 
@@ -21,16 +21,17 @@ const otherConversionId = ctx.demo.conversions.signedOff;
 if (pins > 0) await replacePinMap(conversionId, pins);
 if (otherPins > 0) await replacePinMap(otherConversionId, otherPins);
 /** The product's app, behind the bench's own routes when the import bench asks for them. */
-const outer = express();
+let outer: express.Express = ctx.app;
 if (process.env.BENCH_IMPORT_RESET) {
+  outer = express().disable('x-powered-by');
   outer.post('/bench/reset-import', (_req, res, next) => {
     resetImportPins(conversionId).then((pins) => res.json({ pins }), next);
   });
   outer.get('/bench/pin-count', (_req, res, next) => {
     Pin.count({ where: { conversionId } }).then((pins) => res.json({ pins }), next);
   });
+  outer.use(ctx.app);
 }
-outer.use(ctx.app);
 global.gc?.();
 const server = outer.listen(0, '127.0.0.1', () => {
   const { port } = server.address() as AddressInfo;
