@@ -4,14 +4,16 @@ import { db } from './index.ts';
 
 /**
  * A value as SQL text, escaped by Sequelize as it escapes `replacements` for the dialect in use.
- * A NUL would end the text SQLite reads, so a value holding one is refused (the text rules refuse
- * control characters long before a value gets here).
+ * A NUL would end the text SQLite reads, and callers may mark places in a statement with U+0001,
+ * so a value holding either is refused (the text rules refuse control characters long before a
+ * value gets here).
  */
 export function sqlLiteral(value: unknown): string {
   if (value === null || value === undefined) return 'NULL';
   if (typeof value === 'number' && Number.isFinite(value)) return String(value);
-  if (typeof value === 'string' && value.includes('\0')) {
-    throw new Error('A bulk write cannot carry a NUL character');
+  // eslint-disable-next-line no-control-regex -- finding those two characters is the point
+  if (typeof value === 'string' && /[\0\u0001]/.test(value)) {
+    throw new Error('A bulk write cannot carry a NUL or U+0001 character');
   }
   return db().escape(value as string | number | Date);
 }

@@ -16,6 +16,7 @@ import { commentAnswers } from './0013-comment-answers.ts';
 import { POSTGRES_AFTER, POSTGRES_BEFORE, postgresMigrationContext } from './postgres.ts';
 import { wirePairs } from './0014-wire-pairs.ts';
 import { harnessChangeCounters } from './0015-harness-change-counters.ts';
+import { partialPinLinks } from './0016-partial-pin-links.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -44,6 +45,7 @@ export const MIGRATIONS: Migration[] = [
   commentAnswers,
   wirePairs,
   harnessChangeCounters,
+  partialPinLinks,
 ];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {

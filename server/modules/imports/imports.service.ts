@@ -384,79 +384,74 @@ async function previousImport(
 }
 
 /**
- * Pins per INSERT: a 5,000-row import is written in 20 statements, each joined while SQLite writes
- * the one before (`runBulkWrites`).
+ * Pins per INSERT: a 5,000-row import is written in 10 statements, each handed to SQLite while it
+ * writes the one before (`runBulkWrites`).
  */
-const PINS_PER_STATEMENT = 250;
+const PINS_PER_STATEMENT = 500;
 
 /** The pin columns an import writes, by attribute, in one order for every statement. */
 const WRITTEN = ['connectorId', 'cavity', 'position', ...PIN_FIELD_NAMES, 'version'] as const;
 
 /**
- * A plan's pins as SQL text, one row each without its timestamps: "(id, conversion, connector, …"
- * for the pins it updates, "(conversion, connector, …" for the ones it adds. A preview renders
- * them once and keeps them with its plan, so the apply that follows only joins them: escaping
+ * Where a row's timestamps go in a rendered statement: a control character, which no value can
+ * hold (`sqlLiteral` refuses it), replaced by the time of writing when the statement is run.
+ */
+const STAMP = '\u0001';
+
+/**
+ * A plan's pins as multi-row statements, values escaped in, timestamps marked (`STAMP`): plain
+ * SQL, no model per row; updated pins take the new values (and keep created_at). A preview renders
+ * them once and keeps them with its plan, so the apply that follows only stamps them: escaping
  * 100,000 values was most of an apply's own work (`npm run bench`, P4).
  */
-interface PlanRows {
-  updates: string[];
-  adds: string[];
-}
-
-async function planRows(plan: Plan, conversionId: number): Promise<PlanRows> {
+async function renderPins(plan: Plan, conversionId: number): Promise<string[]> {
+  const attributes = Pin.getAttributes();
+  const column = (name: string) => attributes[name as keyof typeof attributes]!.field!;
+  const columns = ['conversionId', ...WRITTEN, 'createdAt', 'updatedAt'].map(column).join(', ');
+  const set = ['position', ...PIN_FIELD_NAMES, 'version', 'updatedAt']
+    .map((name) => `${column(name)} = excluded.${column(name)}`)
+    .join(', ');
   const row = (pin: Pick<PinData, (typeof WRITTEN)[number]>) => {
-    let text = '';
+    let text = `${conversionId}`;
     for (const name of WRITTEN) text += `, ${sqlLiteral(pin[name])}`;
-    return text;
+    return `${text}, ${STAMP}, ${STAMP})`;
   };
   const updates: string[] = [];
   const adds: string[] = [];
   for (const c of plan.connectors) {
-    for (const pin of c.updates) updates.push(`(${sqlLiteral(pin.id)}, ${conversionId}${row(pin)}`);
-    for (const pin of c.adds) {
-      adds.push(`(${conversionId}${row({ ...pin, connectorId: c.connectorId, version: 0 })}`);
-    }
+    for (const pin of c.updates) updates.push(`(${sqlLiteral(pin.id)}, ${row(pin)}`);
+    for (const pin of c.adds)
+      adds.push(`(${row({ ...pin, connectorId: c.connectorId, version: 0 })}`);
     // Other requests run between connectors, as while the plan was worked out.
     await new Promise<void>((resolve) => setImmediate(resolve));
   }
-  return { updates, adds };
+  return [
+    ...chunks(updates, PINS_PER_STATEMENT).map(
+      (rows) =>
+        `INSERT INTO pins (id, ${columns}) VALUES ${rows.join(', ')} ON CONFLICT (id) DO UPDATE SET ${set}`,
+    ),
+    ...chunks(adds, PINS_PER_STATEMENT).map(
+      (rows) => `INSERT INTO pins (${columns}) VALUES ${rows.join(', ')}`,
+    ),
+  ];
 }
 
-/**
- * A plan's rows as multi-row statements, each built when asked for: plain SQL, no model per row,
- * every row stamped with the time of writing. Updated pins take the new values (and keep
- * created_at).
- */
-function* pinStatements(rows: PlanRows): Generator<string> {
-  const attributes = Pin.getAttributes();
-  const column = (name: string) => attributes[name as keyof typeof attributes]!.field!;
-  const columns = ['conversionId', ...WRITTEN, 'createdAt', 'updatedAt'].map(column);
+/** Rendered statements stamped with the time of writing, each when it is asked for. */
+function* stamped(statements: readonly string[]): Generator<string> {
   const stamp = sqlLiteral(new Date());
-  const end = `, ${stamp}, ${stamp})`;
-  const set = ['position', ...PIN_FIELD_NAMES, 'version', 'updatedAt']
-    .map((name) => `${column(name)} = excluded.${column(name)}`)
-    .join(', ');
-  for (const chunk of chunks(rows.updates, PINS_PER_STATEMENT)) {
-    yield (
-      `INSERT INTO pins (id, ${columns.join(', ')}) VALUES ${chunk.join(`${end}, `)}${end} ` +
-      `ON CONFLICT (id) DO UPDATE SET ${set}`
-    );
-  }
-  for (const chunk of chunks(rows.adds, PINS_PER_STATEMENT)) {
-    yield `INSERT INTO pins (${columns.join(', ')}) VALUES ${chunk.join(`${end}, `)}${end}`;
-  }
+  for (const sql of statements) yield sql.replaceAll(STAMP, stamp);
 }
 
 /**
  * Writes a plan inside the caller's transaction: every removal first (500 ids a statement), then
- * every update and every new pin (250 a statement), so a 13-connector file takes a couple of dozen
+ * the rendered updates and new pins (500 a statement), so a 13-connector file takes a dozen
  * statements rather than a dozen per connector.
  */
-async function writePlan(plan: Plan, rows: PlanRows, t: Transaction): Promise<void> {
+async function writePlan(plan: Plan, statements: string[], t: Transaction): Promise<void> {
   for (const ids of chunks(plan.connectors.flatMap((c) => c.removes))) {
     await Pin.destroy({ where: { id: ids }, transaction: t });
   }
-  await runBulkWrites(pinStatements(rows), t);
+  await runBulkWrites(stamped(statements), t);
   const before = new Map(
     (
       await Connector.findAll({
@@ -510,8 +505,8 @@ async function changeCounterIn(conversionId: number, t: Transaction): Promise<nu
 interface Prepared {
   checked: Checked;
   plan: Plan | null;
-  /** The plan's pins as SQL text, when the plan can be applied. */
-  rows: PlanRows | null;
+  /** The plan's pins as statements (`renderPins`), when the plan can be applied. */
+  statements: string[] | null;
 }
 
 /** Previews kept for the apply that follows them (see PreparedImports). */
@@ -572,7 +567,11 @@ async function prepare(
       )
     : null;
   const applicable = plan && checked.errors.length === 0 && plan.errors.length === 0;
-  return { checked, plan, rows: applicable ? await planRows(plan, where.conversionId) : null };
+  return {
+    checked,
+    plan,
+    statements: applicable ? await renderPins(plan, where.conversionId) : null,
+  };
 }
 
 /**
@@ -605,7 +604,7 @@ export async function importPinout(
   else if (!dryRun) prepared.delete(key);
   // The notes of this answer alone: a kept preview is shared.
   const checked: Checked = { ...work.checked, notes: [...work.checked.notes] };
-  const { plan, rows } = work;
+  const { plan, statements } = work;
   const previous = await previousImport(where, checked.sha256);
   if (previous) {
     checked.notes.push(
@@ -632,8 +631,9 @@ export async function importPinout(
       throw refused(buildResult(where, checked, fresh, false, previous));
     }
     assertGrowthConfirmed(fresh, allowGrowth);
-    const freshRows = fresh === plan && rows ? rows : await planRows(fresh, where.conversionId);
-    await writePlan(fresh, freshRows, t);
+    const rendered =
+      fresh === plan && statements ? statements : await renderPins(fresh, where.conversionId);
+    await writePlan(fresh, rendered, t);
     // A pin the file joins to a feed is one of that feed's loads, as when edited on the pin map.
     await loadsFollowConnectorPins(
       fresh.connectors.map((c) => c.connectorId),
