@@ -26,7 +26,7 @@ import {
   Workshop,
 } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
-import { AppError, notFound } from '../../lib/errors.ts';
+import { AppError } from '../../lib/errors.ts';
 import { logger } from '../../lib/logger.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { displayFileName, type UploadedFile } from '../../lib/upload.ts';
@@ -452,25 +452,8 @@ async function writePlan(plan: Plan, statements: string[], t: Transaction): Prom
     await Pin.destroy({ where: { id: ids }, transaction: t });
   }
   await runBulkWrites(stamped(statements), t);
-  const before = new Map(
-    (
-      await Connector.findAll({
-        where: { id: plan.connectors.map((c) => c.connectorId) },
-        attributes: ['id', 'cavityCount', 'rows', 'columns'],
-        raw: true,
-        transaction: t,
-      })
-    ).map((c) => [c.id, c]),
-  );
-  const grown = plan.connectors.filter((c) => {
-    const connector = before.get(c.connectorId);
-    if (!connector) throw notFound('That connector');
-    return (
-      connector.cavityCount !== c.cavityCount ||
-      connector.rows !== c.rows ||
-      connector.columns !== c.columns
-    );
-  });
+  // The plan was worked out on what this transaction reads (see importPinout), connectors included.
+  const grown = plan.connectors.filter((c) => c.reshaped);
   if (grown.length === 0) return;
   // Every connector the file grew in one statement; its version moves on as a save would move it.
   const byId = (value: (c: ConnectorPlan) => number) => ({

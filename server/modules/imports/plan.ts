@@ -76,6 +76,8 @@ export interface ConnectorPlan {
   columns: number;
   /** Cavities added to a connector that already had some (it grows): to be confirmed. */
   grows: { from: number; cavities: string[] } | null;
+  /** Whether the cavity count or the face's rows and columns change (the connector is saved). */
+  reshaped: boolean;
 }
 
 export interface Plan {
@@ -357,6 +359,7 @@ function* planInSteps(
       rows: connector.rows,
       columns: connector.columns,
       grows: null,
+      reshaped: false,
     };
     const kept = new Map<number, PinData>();
     const newVersions = new Map<number, PinData>();
@@ -450,6 +453,10 @@ function* planInSteps(
       );
       plan.columns = Math.ceil(plan.cavityCount / plan.rows);
     }
+    plan.reshaped =
+      plan.cavityCount !== connector.cavityCount ||
+      plan.rows !== connector.rows ||
+      plan.columns !== connector.columns;
     plans.push(plan);
   }
 
