@@ -1,4 +1,4 @@
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
 import multer from 'multer';
 import { textProblem } from '#shared/schemas/common.schema.ts';
 import { AppError, badRequest } from './errors.ts';
@@ -23,8 +23,14 @@ export function singleFileUpload(options: {
   maxBytes: () => number;
   /** Text fields the route accepts besides the file. */
   fields?: number;
+  /** A request without a body this answers true for goes on without a file. */
+  fileless?: (req: Request) => boolean;
 }): RequestHandler {
   return (req, res, next) => {
+    if (!req.is('multipart/form-data') && options.fileless?.(req) && !hasBody(req)) {
+      next();
+      return;
+    }
     if (!req.is('multipart/form-data')) {
       next(badRequest('Send the file as multipart/form-data in the field "file".'));
       return;
@@ -100,4 +106,10 @@ export function uploadedFile(req: Express.Request): UploadedFile {
   const file = req.file;
   if (!file) throw badRequest('No file: send it in the multipart field "file".');
   return { buffer: file.buffer, originalName: file.originalname ?? '', sizeBytes: file.size };
+}
+
+/** Whether the request says it carries a body (RFC 9112 §6.3: a length or a transfer coding). */
+function hasBody(req: Request): boolean {
+  const length = req.headers['content-length'];
+  return (length !== undefined && length !== '0') || req.headers['transfer-encoding'] !== undefined;
 }

@@ -57,6 +57,8 @@ export const ImportQuery = z.strictObject({
     .enum(['0', '1', 'true', 'false'])
     .optional()
     .transform((v) => v === '1' || v === 'true'),
+  /** Applying only: the id of the person's own kept preview, sent instead of the file. */
+  preview: z.uuid('must be the id of a preview').optional(),
 });
 export type ImportQuery = z.output<typeof ImportQuery>;
 
@@ -151,6 +153,11 @@ export interface ImportResult {
    */
   table?: Array<{ row: number; cells: string[] }>;
   page?: PreviewPage;
+  /**
+   * Preview only: the id by which its maker may apply it (`?preview=`) instead of sending the file
+   * again, while it is kept (the pin map unchanged, for 15 minutes).
+   */
+  previewId?: string;
 }
 
 export interface PreviewPage {

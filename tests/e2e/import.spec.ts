@@ -118,7 +118,14 @@ test('the builder imports a messy pinout, fixes it, exports it and gets the same
   await expect(importButton).toBeDisabled();
   await page.screenshot({ path: 'test-results/screens/import-growth.png', fullPage: true });
   await page.getByLabel('Add these cavities').check();
+  // The preview just shown is applied by its id: the file is not sent a second time.
+  const applied = page.waitForRequest(
+    (r) => r.method() === 'POST' && /\/import\?/.test(r.url()) && !r.url().includes('dryRun'),
+  );
   await importButton.click();
+  const applyRequest = await applied;
+  expect(applyRequest.url()).toMatch(/[?&]preview=[0-9a-f-]{36}/);
+  expect(applyRequest.postDataBuffer()).toBeNull();
   await expect(page.getByText('Imported 5 rows into connector E9')).toBeVisible();
   await expect(page.getByLabel('Connector', { exact: true }).locator('option:checked')).toHaveText(
     /^E9 — ECU side, 5 cavities/,

@@ -323,6 +323,88 @@ describe('applying right after a preview', () => {
   });
 });
 
+describe('applying a preview by its id', () => {
+  const applyById = (path: string, previewId: string, auth = builder, grow = false) =>
+    request(ctx.app)
+      .post(`${path}?preview=${previewId}${grow ? '&grow=1' : ''}`)
+      .set('Authorization', auth);
+
+  it('writes what the preview showed without the file, once', async () => {
+    const connector = await createConnector(conversionId, 'X9', 'engine', 1);
+    const file = 'cavity,function,colour\n1,Knock sensor,BK\n2,Knock sensor return,BK/WH\n';
+    const preview = await upload(intoConnector(connector), file, { dryRun: true });
+    expect(preview.body.previewId).toMatch(/^[0-9a-f-]{36}$/);
+    // Another page of the same preview names the same kept preview.
+    const again = await upload(intoConnector(connector), file, { dryRun: true });
+    expect(again.body.previewId).toBe(preview.body.previewId);
+    // The file grows X9 by a cavity: the id does not stand in for that confirmation.
+    const unconfirmed = await applyById(intoConnector(connector), preview.body.previewId);
+    expect(unconfirmed.status).toBe(409);
+    expect(unconfirmed.body.error.code).toBe('confirm_growth');
+    const preview2 = await upload(intoConnector(connector), file, { dryRun: true });
+    const applied = await applyById(
+      intoConnector(connector),
+      preview2.body.previewId,
+      builder,
+      true,
+    );
+    expect(applied.status).toBe(200);
+    expect(applied.body.imported).toBe(2);
+    const pins = (await pinsOf(conversionId)).filter((p) => p.connectorId === connector);
+    expect(pins.map((p) => [p.cavity, p.function, p.colour])).toEqual([
+      ['1', 'Knock sensor', 'BK'],
+      ['2', 'Knock sensor return', 'BK/WH'],
+    ]);
+    const audit = await AuditEvent.findAll({ where: { action: 'import', entityId: connector } });
+    expect(audit).toHaveLength(1);
+    // Applied once: the id is spent, and nothing is written twice.
+    const twice = await applyById(intoConnector(connector), preview2.body.previewId, builder, true);
+    expect(twice.status).toBe(409);
+    expect(twice.body.error.code).toBe('preview_gone');
+  });
+
+  it('is refused (409, nothing written) once the pin map moved, for someone else, or elsewhere', async () => {
+    const connector = await createConnector(conversionId, 'X10', 'engine', 2);
+    const file = 'cavity,function\n1,Oil pressure\n2,Oil temperature\n';
+    const before = await writeState();
+    const gone = async (res: request.Response) => {
+      expect(res.status).toBe(409);
+      expect(res.body.error.code).toBe('preview_gone');
+      expect(res.body.error.message).toContain('send the file again');
+      expect(await writeState()).toEqual(before);
+    };
+    const { previewId } = (await upload(intoConnector(connector), file, { dryRun: true })).body;
+    // Another person of the same workshop who may import, and another place in this conversion.
+    await gone(await applyById(intoConnector(connector), previewId, await ctx.authFor('admin')));
+    await gone(await applyById(intoConnector(x1), previewId));
+    await gone(await applyById(intoConversion(conversionId), previewId));
+    // Someone else's workshop cannot see the connector at all.
+    const other = await createOtherWorkshop();
+    const theirs = await applyById(intoConnector(connector), previewId, other.authFor('builder'));
+    expect(theirs.status).toBe(404);
+    // A preview is not made by id, and an id must look like one.
+    const dry = await request(ctx.app)
+      .post(`${intoConnector(connector)}?dryRun=1&preview=${previewId}`)
+      .set('Authorization', builder);
+    expect(dry.status).toBe(400);
+    expect((await applyById(intoConnector(connector), 'not-an-id')).status).toBe(400);
+    // A pin edited after the preview: the kept plan is no longer the plan.
+    const [first] = (await pinsOf(conversionId)).filter((p) => p.connectorId === connector);
+    await request(ctx.app)
+      .patch(`/api/pins/${first!.id}`)
+      .set('Authorization', builder)
+      .send({ version: first!.version, notes: 'checked' })
+      .expect(200);
+    const moved = await writeState();
+    const res = await applyById(intoConnector(connector), previewId);
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('preview_gone');
+    expect(await writeState()).toEqual(moved);
+    // Sending the file again still works.
+    expect((await upload(intoConnector(connector), file)).status).toBe(200);
+  });
+});
+
 describe('large files', () => {
   it('imports a clean 2,000-row file across five connectors in one go', async () => {
     const conversion = await createConversion('Two thousand');

@@ -5,7 +5,7 @@ import { actorOf } from '../../lib/actor.ts';
 import { parsedParams, parsedQuery } from '../../lib/request.ts';
 import { uploadedFile } from '../../lib/upload.ts';
 import { exportPinsCsv, templateCsv } from './export.service.ts';
-import { importPinout, type ImportTarget } from './imports.service.ts';
+import { importPinout, type ImportSource, type ImportTarget } from './imports.service.ts';
 
 function mappingField(req: Request): unknown {
   const body = req.body as Record<string, unknown> | undefined;
@@ -13,16 +13,13 @@ function mappingField(req: Request): unknown {
 }
 
 async function runImport(req: Request, res: Response, target: ImportTarget) {
-  const { dryRun, page, grow } = parsedQuery<ImportQuery>(req);
-  const result = await importPinout(
-    actorOf(req),
-    target,
-    uploadedFile(req),
-    mappingField(req),
-    dryRun,
-    page,
-    grow,
-  );
+  const { dryRun, page, grow, preview } = parsedQuery<ImportQuery>(req);
+  // A kept preview is applied by its id without the file; a file sent as well is read instead.
+  const source: ImportSource =
+    preview !== undefined && !req.file
+      ? { previewId: preview }
+      : { file: uploadedFile(req), mapping: mappingField(req) };
+  const result = await importPinout(actorOf(req), target, source, dryRun, page, grow);
   res.json(result);
 }
 

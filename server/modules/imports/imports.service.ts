@@ -487,6 +487,8 @@ async function changeCounterIn(conversionId: number, t: Transaction): Promise<nu
 
 interface Prepared {
   checked: Checked;
+  /** The column choices sent with the file, if any. */
+  given: Map<string, ColumnTarget> | null;
   plan: Plan | null;
   /** The plan's pins as statements (`renderPins`), when the plan can be applied. */
   statements: string[] | null;
@@ -516,14 +518,9 @@ function preparedKey(
  * The kept preview for this key, if the pin map has not moved since and, when the file's columns
  * were matched by the workshop's saved choices, those choices are still what they were.
  */
-async function stillPrepared(
-  actor: Actor,
-  key: string,
-  counter: number,
-  given: Map<string, ColumnTarget> | null,
-): Promise<Prepared | null> {
+async function stillPrepared(actor: Actor, key: string, counter: number): Promise<Prepared | null> {
   const hit = prepared.get(key, counter);
-  if (!hit || given || !hit.checked.signature) return hit;
+  if (!hit || hit.given || !hit.checked.signature) return hit;
   const saved = await ImportMapping.findOne({
     where: { workshopId: actor.workshopId, headerSignature: hit.checked.signature },
     attributes: ['targetsJson'],
@@ -552,39 +549,82 @@ async function prepare(
   const applicable = plan && checked.errors.length === 0 && plan.errors.length === 0;
   return {
     checked,
+    given,
     plan,
     statements: applicable ? await renderPins(plan, where.conversionId) : null,
   };
 }
 
+/** What an import reads: the uploaded file (with its column choices), or a kept preview's id. */
+export type ImportSource = { file: UploadedFile; mapping: unknown } | { previewId: string };
+
+/** Applying by a preview's id when that preview is no longer kept: the file must be sent again. */
+function previewGone(): AppError {
+  return new AppError(
+    409,
+    'preview_gone',
+    'That preview is no longer kept (the pin map changed, or it is over 15 minutes old). Nothing was imported: send the file again.',
+  );
+}
+
+/**
+ * The work for an import: a kept preview of the same file, choices and place while the pin map has
+ * not moved, or the file checked and planned now. By a preview's id, only the kept preview will do.
+ */
+async function workFor(
+  actor: Actor,
+  where: Where,
+  source: ImportSource,
+  counter: number,
+  dryRun: boolean,
+): Promise<{ key: string; work: Prepared; kept: boolean }> {
+  if ('previewId' in source) {
+    if (dryRun) throw new AppError(400, 'file_needed', 'A preview needs the file.');
+    const key = prepared.keyOf(source.previewId, actor.id);
+    // The kept preview's own key, made again for this place: another conversion or connector,
+    // another workshop or another size unit never matches.
+    const hit = key === null ? null : await stillPrepared(actor, key, counter);
+    if (!hit || key !== preparedKey(actor, where, hit.checked.sha256, hit.given)) {
+      throw previewGone();
+    }
+    return { key, work: hit, kept: true };
+  }
+  const given = parseMappingField(source.mapping);
+  const sha256 = createHash('sha256').update(source.file.buffer).digest('hex');
+  const key = preparedKey(actor, where, sha256, given);
+  const hit = await stillPrepared(actor, key, counter);
+  if (hit) return { key, work: hit, kept: true };
+  return { key, work: await prepare(actor, where, source.file, sha256, given), kept: false };
+}
+
 /**
  * Previews (`dryRun`) or applies a pinout CSV. The file is decoded, parsed and every cell checked
  * before any transaction starts; a file with any problem is refused whole (422) and nothing is
- * written. Applying right after a preview of the same file reuses the preview's checked rows and
- * plan while the pin map has not moved. A clean file is applied in one transaction; if the pin map
- * moved since the plan was made, the plan is worked out again on what the transaction reads. It is
- * written with one audit event.
+ * written. A preview is kept for its maker: applying it (by its id, or by sending the same file
+ * again) reuses its checked rows and plan while the pin map has not moved. A clean file is applied
+ * in one transaction; if the pin map moved since the plan was made, the plan is worked out again
+ * on what the transaction reads. It is written with one audit event.
  */
 export async function importPinout(
   actor: Actor,
   target: ImportTarget,
-  file: UploadedFile,
-  mappingField: unknown,
+  source: ImportSource,
   dryRun: boolean,
   page = 1,
   allowGrowth = false,
 ): Promise<ImportResult> {
-  const given = parseMappingField(mappingField);
   const where = await locate(actor, target);
-  const sha256 = createHash('sha256').update(file.buffer).digest('hex');
   // Read before the pin map: if it has not moved by the time the transaction starts, the plan
   // worked out here is still the plan, and is not worked out again.
   const counter = await conversionChangeCounter(actor, where.conversionId);
-  const key = preparedKey(actor, where, sha256, given);
-  const ready = await stillPrepared(actor, key, counter, given);
-  const work = ready ?? (await prepare(actor, where, file, sha256, given));
-  if (!ready && dryRun) prepared.set(key, counter, work);
-  else if (!dryRun) prepared.delete(key);
+  const { key, work, kept } = await workFor(actor, where, source, counter, dryRun);
+  let previewId: string | undefined;
+  if (dryRun) {
+    previewId =
+      (kept && prepared.idOf(key, actor.id)) || prepared.set(key, counter, work, actor.id);
+  } else {
+    prepared.delete(key);
+  }
   // The notes of this answer alone: a kept preview is shared.
   const checked: Checked = { ...work.checked, notes: [...work.checked.notes] };
   const { plan, statements } = work;
@@ -595,7 +635,7 @@ export async function importPinout(
     );
   }
   const preview = buildResult(where, checked, plan, dryRun, previous, page);
-  if (dryRun) return preview;
+  if (dryRun) return { ...preview, previewId };
   if (preview.errorCount > 0 || !plan) throw refused(preview);
   assertGrowthConfirmed(plan, allowGrowth);
 

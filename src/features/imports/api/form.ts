@@ -8,6 +8,8 @@ export interface ImportInput {
   page?: number;
   /** Applying only: the person confirmed the cavities the file adds to a connector. */
   grow?: boolean;
+  /** Applying only: the preview being applied, sent instead of the file while the server keeps it. */
+  previewId?: string;
 }
 
 /** The multipart body: the file in `file`, the choices as JSON {header: field} in `mapping`. */

@@ -88,7 +88,7 @@ export function ImportWizard({
   function applyFile() {
     if (!file || !result) return;
     apply.mutate(
-      { file, mapping: result.mapping, grow: growthConfirmed },
+      { file, mapping: result.mapping, grow: growthConfirmed, previewId: result.previewId },
       { onSuccess: () => setResult(null) },
     );
   }
