@@ -160,6 +160,9 @@ async function cellEdits(page: Page, count: number): Promise<number[]> {
     if (!e.interaction) continue;
     longest.set(e.interaction, Math.max(longest.get(e.interaction) ?? 0, e.duration));
   }
+  const byName = new Map<string, number[]>();
+  for (const e of events) { if (!e.interaction) continue; byName.set(e.name, [...(byName.get(e.name) ?? []), Math.round(e.duration)]); }
+  console.error([...byName].map(([n, d]) => `${n}: ${d.sort((a, b) => a - b).join(',')}`).join('\n'));
   const interactions = count * 3;
   const reported = [...longest.values()];
   return [...reported, ...Array(Math.max(0, interactions - reported.length)).fill(16)];

@@ -7,7 +7,7 @@ import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { faceCavities, type FaceCavity } from '../lib/face.ts';
 import type { DispositionCounts } from '../lib/progress.ts';
 import { cavityName } from '#shared/domain/pin-names.ts';
-import { DispositionGlyphPath, DispositionLabel } from '@/components/ui/disposition-glyph.tsx';
+import { PlacedGlyphPath, DispositionLabel } from '@/components/ui/disposition-glyph.tsx';
 import { WireColour } from '@/components/ui/wire-colour.tsx';
 import { plural } from '@/lib/plural.ts';
 import { useStableHandler } from '../hooks/use-stable-handler.ts';
@@ -256,12 +256,13 @@ const CavityMark = memo(function CavityMark({
       <text x={x + 3} y={y + 8.5} className="fill-ink-soft font-mono text-[8px]">
         {pin.cavity.length > 4 ? `${pin.cavity.slice(0, 4)}…` : pin.cavity}
       </text>
-      <g
-        transform={`translate(${x + BOX / 2 - 6}, ${y + 11}) scale(1.2)`}
+      <PlacedGlyphPath
+        disposition={pin.disposition}
+        x={x + BOX / 2 - 6}
+        y={y + 11}
+        scale={1.2}
         className={undecided ? 'text-ink-faint' : 'text-ink'}
-      >
-        <DispositionGlyphPath disposition={pin.disposition} />
-      </g>
+      />
     </g>
   );
 });
