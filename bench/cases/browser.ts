@@ -11,7 +11,7 @@ import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { chromium, type Browser, type Page } from '@playwright/test';
+import { chromium, type Browser, type Page, type Request } from '@playwright/test';
 import playwrightConfig from '../../playwright.config.ts';
 import { startServer } from '../lib/process.ts';
 import type { BenchRow } from '../lib/report.ts';
@@ -48,7 +48,7 @@ async function signInDownload(browser: Browser, url: string) {
   const page = await context.newPage();
   const files: Array<{ url: string; font: boolean; wire: number; body: number }> = [];
   const pending: Array<Promise<void>> = [];
-  page.on('requestfinished', (request) => {
+  const onFinished = (request: Request) => {
     pending.push(
       (async () => {
         const sizes = await request.sizes();
@@ -62,9 +62,13 @@ async function signInDownload(browser: Browser, url: string) {
         });
       })(),
     );
-  });
+  };
+  page.on('requestfinished', onFinished);
   await page.goto(`${url}/sign-in`, { waitUntil: 'networkidle' });
   await page.getByRole('button', { name: 'Sign in' }).waitFor();
+  // Counted: what the page asked for until the network was idle. A request finishing later was
+  // read as the context closed, which failed the whole run once.
+  page.off('requestfinished', onFinished);
   await Promise.all(pending);
   await context.close();
   const sum = (list: typeof files, key: 'wire' | 'body') => list.reduce((n, f) => n + f[key], 0);
@@ -160,9 +164,6 @@ async function cellEdits(page: Page, count: number): Promise<number[]> {
     if (!e.interaction) continue;
     longest.set(e.interaction, Math.max(longest.get(e.interaction) ?? 0, e.duration));
   }
-  const byName = new Map<string, number[]>();
-  for (const e of events) { if (!e.interaction) continue; byName.set(e.name, [...(byName.get(e.name) ?? []), Math.round(e.duration)]); }
-  console.error([...byName].map(([n, d]) => `${n}: ${d.sort((a, b) => a - b).join(',')}`).join('\n'));
   const interactions = count * 3;
   const reported = [...longest.values()];
   return [...reported, ...Array(Math.max(0, interactions - reported.length)).fill(16)];
