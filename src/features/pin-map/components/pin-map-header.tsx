@@ -38,10 +38,7 @@ export function PinMapHeader({
         <p role="status" className={`text-sm text-ink-soft ${readOnly ? 'hidden' : ''}`}>
           {saving ? (
             <span className="inline-flex items-center gap-1.5">
-              <span
-                aria-hidden
-                className="size-3 animate-spin rounded-full border-2 border-copper border-t-transparent"
-              />
+              <span aria-hidden className="size-2 rounded-full bg-copper" />
               Saving…
             </span>
           ) : (

@@ -1,6 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
 import type { ColumnVisibilityState, RowSelectionState } from '@tanstack/react-table';
-import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { useDeferredValue, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { flushSync } from 'react-dom';
 import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
@@ -132,9 +132,13 @@ function PinMap({
     () => ({ sizeUnit, destinations, feeds }),
     [sizeUnit, destinations, feeds],
   );
-  const counts = useMemo(() => countDispositions(pins), [pins]);
-  const perConnector = useMemo(() => countsByConnector(pins), [pins]);
-  const pinsOf = useMemo(() => pinsByConnector(pins), [pins]);
+  // The grid follows an edit at once; the tallies, faces, cautions and undecided list above and
+  // beside it follow in a render of their own, so typing in a cell does not wait for them.
+  const settledPins = useDeferredValue(pins);
+  const settledRows = useDeferredValue(rows);
+  const counts = useMemo(() => countDispositions(settledPins), [settledPins]);
+  const perConnector = useMemo(() => countsByConnector(settledPins), [settledPins]);
+  const pinsOf = useMemo(() => pinsByConnector(settledPins), [settledPins]);
 
   const selectedIds = rows.filter((r) => rowSelection[String(r.pin.id)]).map((r) => r.pin.id);
   const shownIds = new Set(shown.map((r) => r.pin.id));
@@ -217,7 +221,7 @@ function PinMap({
           Your role can look through the pin map, filter it and copy from it, but not change it.
         </Notice>
       ) : null}
-      <SafetyNotes pins={pins} />
+      <SafetyNotes pins={settledPins} />
 
       {form && !readOnly ? (
         <ConnectorForm
@@ -292,7 +296,7 @@ function PinMap({
       {connectors.length === 0 ? null : (
         <>
           <UndecidedList
-            rows={rows}
+            rows={settledRows}
             onJump={goToPin}
             onFilterUndecided={() => setFilter({ ...NO_FILTER, disposition: 'undecided' })}
           />
