@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { memo, useState } from 'react';
 import { CONNECTOR_SIDE_LABELS, type Connector, type Pin } from '#shared/schemas/pin-map.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { Button } from '@/components/ui/button.tsx';
@@ -7,8 +7,11 @@ import { ConnectorFace } from './connector-face.tsx';
 import { DispositionTally } from './disposition-tally.tsx';
 import { plural } from '@/lib/plural.ts';
 
-/** One connector: its face, its progress, and (for writers) change and delete. */
-export function ConnectorCard({
+/**
+ * One connector: its face, its progress, and (for writers) change and delete. Memoised: an edit
+ * elsewhere on the pin map does not redraw the cards of connectors it did not touch.
+ */
+export const ConnectorCard = memo(function ConnectorCard({
   connector,
   wide,
   pins,
@@ -30,8 +33,10 @@ export function ConnectorCard({
   canWrite: boolean;
   deleting: boolean;
   onActivate: (pinId: number) => void;
-  onEdit: () => void;
-  onDelete: () => void;
+  /** Called with the connector's id. */
+  onEdit: (connectorId: number) => void;
+  /** Called with the connector. */
+  onDelete: (connector: Connector) => void;
 }) {
   const [confirming, setConfirming] = useState(false);
   const pinCount = pins.length;
@@ -51,7 +56,7 @@ export function ConnectorCard({
         </p>
         {canWrite ? (
           <div className="ml-auto flex gap-1">
-            <Button size="sm" variant="quiet" onClick={onEdit}>
+            <Button size="sm" variant="quiet" onClick={() => onEdit(connector.id)}>
               Change<span className="sr-only"> connector {connector.label}</span>
             </Button>
             <Button size="sm" variant="quiet" onClick={() => setConfirming(true)}>
@@ -71,7 +76,7 @@ export function ConnectorCard({
             functions, wires and decisions go with it.
           </p>
           <div className="mt-2 flex gap-2">
-            <Button size="sm" variant="danger" busy={deleting} onClick={onDelete}>
+            <Button size="sm" variant="danger" busy={deleting} onClick={() => onDelete(connector)}>
               Delete {connector.label} and {plural(pinCount, 'pin')}
             </Button>
             <Button size="sm" variant="quiet" onClick={() => setConfirming(false)}>
@@ -91,4 +96,4 @@ export function ConnectorCard({
       <DispositionTally counts={counts} compact />
     </article>
   );
-}
+});

@@ -173,6 +173,25 @@ function PinMap({
       .then(() => showNewConnector(connectorId));
   });
 
+  const editConnector = useStableHandler((connectorId: number) => setForm({ connectorId }));
+  const removeConnector = useStableHandler((c: Connector) =>
+    deleteConnector.mutate(c.id, {
+      onSuccess: () => {
+        if (filter.connectorId === c.id) setFilter(NO_FILTER);
+        editing.notify({ tone: 'sound', title: `Connector ${c.label} deleted.` });
+      },
+      onError: (error) =>
+        editing.notify({
+          tone: 'fault',
+          title: `${c.label} was not deleted: ${error.message}`,
+        }),
+    }),
+  );
+
+  const filterUndecided = useStableHandler(() =>
+    setFilter({ ...NO_FILTER, disposition: 'undecided' }),
+  );
+
   function openBlank() {
     setFromLibrary(false);
     setForm({ connectorId: null });
@@ -273,20 +292,8 @@ function PinMap({
                 canWrite={!readOnly}
                 deleting={deleteConnector.isPending && deleteConnector.variables === c.id}
                 onActivate={goToPin}
-                onEdit={() => setForm({ connectorId: c.id })}
-                onDelete={() =>
-                  deleteConnector.mutate(c.id, {
-                    onSuccess: () => {
-                      if (filter.connectorId === c.id) setFilter(NO_FILTER);
-                      editing.notify({ tone: 'sound', title: `Connector ${c.label} deleted.` });
-                    },
-                    onError: (error) =>
-                      editing.notify({
-                        tone: 'fault',
-                        title: `${c.label} was not deleted: ${error.message}`,
-                      }),
-                  })
-                }
+                onEdit={editConnector}
+                onDelete={removeConnector}
               />
             ))}
           </div>
@@ -295,11 +302,7 @@ function PinMap({
 
       {connectors.length === 0 ? null : (
         <>
-          <UndecidedList
-            rows={settledRows}
-            onJump={goToPin}
-            onFilterUndecided={() => setFilter({ ...NO_FILTER, disposition: 'undecided' })}
-          />
+          <UndecidedList rows={settledRows} onJump={goToPin} onFilterUndecided={filterUndecided} />
 
           <section aria-label="Pin grid" className="flex flex-col gap-3">
             <FilterBar

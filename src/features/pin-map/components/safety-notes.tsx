@@ -1,4 +1,4 @@
-import { useMemo } from 'react';
+import { memo, useMemo } from 'react';
 import { cautionsForPins } from '#shared/domain/safety.ts';
 import type { Pin } from '#shared/schemas/pin-map.schema.ts';
 import { Notice } from '@/components/ui/notice.tsx';
@@ -7,7 +7,7 @@ import { Notice } from '@/components/ui/notice.tsx';
  * The cautions that concern the pins of this map (ECU stages, fuel pump, airbag, regulated
  * circuits), said beside the grid where the decisions are made. Local codes prevail.
  */
-export function SafetyNotes({ pins }: { pins: readonly Pin[] }) {
+export const SafetyNotes = memo(function SafetyNotes({ pins }: { pins: readonly Pin[] }) {
   const cautions = useMemo(() => cautionsForPins(pins), [pins]);
   if (!cautions.length) return null;
   return (
@@ -26,4 +26,4 @@ export function SafetyNotes({ pins }: { pins: readonly Pin[] }) {
       </details>
     </Notice>
   );
-}
+});

@@ -1,9 +1,10 @@
+import { memo } from 'react';
 import type { PinRow } from '../lib/rows.ts';
 
 const SHOWN = 60;
 
-/** The pins still undecided; each goes to its row in the grid. */
-export function UndecidedList({
+/** The pins still undecided; each goes to its row in the grid. Memoised: redrawn when rows change. */
+export const UndecidedList = memo(function UndecidedList({
   rows,
   onJump,
   onFilterUndecided,
@@ -51,4 +52,4 @@ export function UndecidedList({
       )}
     </details>
   );
-}
+});
