@@ -1,4 +1,4 @@
-import { memo, useMemo } from 'react';
+import { memo } from 'react';
 import { cautionsForPins } from '#shared/domain/safety.ts';
 import type { Pin } from '#shared/schemas/pin-map.schema.ts';
 import { Notice } from '@/components/ui/notice.tsx';
@@ -8,7 +8,8 @@ import { Notice } from '@/components/ui/notice.tsx';
  * circuits), said beside the grid where the decisions are made. Local codes prevail.
  */
 export const SafetyNotes = memo(function SafetyNotes({ pins }: { pins: readonly Pin[] }) {
-  const cautions = useMemo(() => cautionsForPins(pins), [pins]);
+  // Memoised as a whole: it renders only when the pins change, and then the cautions must too.
+  const cautions = cautionsForPins(pins);
   if (!cautions.length) return null;
   return (
     <Notice tone="caution" title="Working on these pins">
