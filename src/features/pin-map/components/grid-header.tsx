@@ -4,7 +4,7 @@ import { SortGlyph } from '@/components/ui/sortable-table.tsx';
 import { SELECT_COLUMN } from '../lib/columns.ts';
 import type { PinRow } from '../lib/rows.ts';
 import type { PinGridFeatures } from './grid-columns.ts';
-import { HEADER_HEIGHT, type ColumnLayout } from './grid-row.tsx';
+import { HEADER_HEIGHT, leadingPinned, type ColumnLayout } from './grid-row.tsx';
 
 /** The grid's column headings: they stay at the top while the rows scroll under them. */
 export function GridHeader({
@@ -36,6 +36,63 @@ export function GridHeader({
 
   const allSelected = table.getIsAllRowsSelected();
   const someSelected = table.getIsSomeRowsSelected() && !allSelected;
+  const pinnedCount = leadingPinned(layout);
+  const heading = (c: ColumnLayout, i: number) => {
+    const column = table.getColumn(c.id);
+    const sorted = column?.getIsSorted() ?? false;
+    if (c.id === SELECT_COLUMN) {
+      return (
+        <div
+          key={c.id}
+          role="columnheader"
+          aria-colindex={i + 1}
+          className={`flex shrink-0 items-center justify-center border-r border-rule/60 ${c.sticky ? 'bg-paper-sunk' : ''}`}
+          style={{ width: c.width }}
+        >
+          <input
+            type="checkbox"
+            tabIndex={-1}
+            aria-label="Select every pin shown"
+            disabled={readOnly}
+            checked={allSelected}
+            ref={(el) => {
+              if (el) el.indeterminate = someSelected;
+            }}
+            data-heading={c.id}
+            onKeyDown={(e) => onKeyDown(e, i)}
+            onMouseDown={(e) => e.preventDefault()}
+            onChange={() => undefined}
+            onClick={table.getToggleAllRowsSelectedHandler()}
+            className="size-4 accent-ink"
+          />
+        </div>
+      );
+    }
+    return (
+      <div
+        key={c.id}
+        role="columnheader"
+        aria-colindex={i + 1}
+        aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
+        className={`flex shrink-0 items-center border-r border-rule/60 px-2 ${c.sticky ? 'bg-paper-sunk' : ''}`}
+        style={{ width: c.width }}
+      >
+        <button
+          type="button"
+          tabIndex={-1}
+          data-heading={c.id}
+          onKeyDown={(e) => onKeyDown(e, i)}
+          onMouseDown={(e) => e.preventDefault()}
+          onClick={column?.getToggleSortingHandler()}
+          title={`Sort by ${c.header.toLowerCase()}`}
+          className="inline-flex min-w-0 items-center gap-1 text-left text-[0.8125rem] font-semibold text-ink-soft hover:text-ink"
+        >
+          <span className="truncate">{c.header}</span>
+          <SortGlyph sorted={sorted} />
+        </button>
+      </div>
+    );
+  };
   return (
     <div role="rowgroup" className="sticky top-0 z-20" style={{ width }}>
       <div
@@ -44,65 +101,12 @@ export function GridHeader({
         className="flex border-b border-rule-strong bg-paper-sunk"
         style={{ height: HEADER_HEIGHT, width }}
       >
-        {layout.map((c, i) => {
-          const column = table.getColumn(c.id);
-          const sorted = column?.getIsSorted() ?? false;
-          const sticky = c.sticky ? 'sticky z-10 bg-paper-sunk' : '';
-          if (c.id === SELECT_COLUMN) {
-            return (
-              <div
-                key={c.id}
-                role="columnheader"
-                aria-colindex={i + 1}
-                className={`flex shrink-0 items-center justify-center border-r border-rule/60 ${sticky}`}
-                style={{ width: c.width, left: c.sticky ? c.left : undefined }}
-              >
-                <input
-                  type="checkbox"
-                  tabIndex={-1}
-                  aria-label="Select every pin shown"
-                  disabled={readOnly}
-                  checked={allSelected}
-                  ref={(el) => {
-                    if (el) el.indeterminate = someSelected;
-                  }}
-                  data-heading={c.id}
-                  onKeyDown={(e) => onKeyDown(e, i)}
-                  onMouseDown={(e) => e.preventDefault()}
-                  onChange={() => undefined}
-                  onClick={table.getToggleAllRowsSelectedHandler()}
-                  className="size-4 accent-ink"
-                />
-              </div>
-            );
-          }
-          return (
-            <div
-              key={c.id}
-              role="columnheader"
-              aria-colindex={i + 1}
-              aria-sort={
-                sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined
-              }
-              className={`flex shrink-0 items-center border-r border-rule/60 px-2 ${sticky}`}
-              style={{ width: c.width, left: c.sticky ? c.left : undefined }}
-            >
-              <button
-                type="button"
-                tabIndex={-1}
-                data-heading={c.id}
-                onKeyDown={(e) => onKeyDown(e, i)}
-                onMouseDown={(e) => e.preventDefault()}
-                onClick={column?.getToggleSortingHandler()}
-                title={`Sort by ${c.header.toLowerCase()}`}
-                className="inline-flex min-w-0 items-center gap-1 text-left text-[0.8125rem] font-semibold text-ink-soft hover:text-ink"
-              >
-                <span className="truncate">{c.header}</span>
-                <SortGlyph sorted={sorted} />
-              </button>
-            </div>
-          );
-        })}
+        {pinnedCount > 0 ? (
+          <div className="sticky left-0 z-10 flex shrink-0">
+            {layout.slice(0, pinnedCount).map((c, i) => heading(c, i))}
+          </div>
+        ) : null}
+        {layout.slice(pinnedCount).map((c, i) => heading(c, i + pinnedCount))}
       </div>
     </div>
   );

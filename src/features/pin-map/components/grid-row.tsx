@@ -22,6 +22,12 @@ export interface CellError {
   message: string;
 }
 
+/** How many columns at the start of the row stay put when the grid scrolls sideways. */
+export function leadingPinned(columns: readonly ColumnLayout[]): number {
+  const first = columns.findIndex((c) => !c.sticky);
+  return first === -1 ? columns.length : first;
+}
+
 export const cellDomId = (gridId: string, pinId: number, columnId: string) =>
   `${gridId}-p${pinId}-${columnId}`;
 
@@ -70,81 +76,87 @@ export const GridRow = memo(function GridRow({
   onCellDoubleClick,
   onToggleSelected,
 }: GridRowProps) {
+  const pinnedCount = leadingPinned(columns);
+  const cell = (column: ColumnLayout, c: number) => {
+    const active = c === activeColumn;
+    const inRange = rangeColumns !== null && c >= rangeColumns.left && c <= rangeColumns.right;
+    const error = errors?.get(column.id);
+    const editing = c === editingColumn;
+    return (
+      <div
+        key={column.id}
+        id={cellDomId(gridId, pinRow.pin.id, column.id)}
+        role="gridcell"
+        data-column={column.id}
+        aria-colindex={c + 1}
+        aria-selected={inRange || undefined}
+        aria-invalid={error ? true : undefined}
+        aria-readonly={readOnly || !isEditableColumn(column.id) || undefined}
+        title={error ? `${error.text}: ${error.message}` : undefined}
+        onMouseDown={(e) => onCellMouseDown(rowIndex, c, e)}
+        onDoubleClick={() => onCellDoubleClick(rowIndex, c)}
+        className={[
+          'relative flex shrink-0 items-center overflow-visible border-r border-rule/50 px-2 text-[0.875rem]',
+          column.sticky && !inRange ? (selected ? 'bg-paper-sunk' : 'bg-paper-raised') : '',
+          inRange ? 'bg-[color-mix(in_srgb,var(--color-focus)_12%,var(--color-paper-raised))]' : '',
+          error ? 'bg-fault-wash' : '',
+          active
+            ? 'shadow-[inset_0_0_0_2px_var(--color-rule-strong)] group-focus-within:shadow-[inset_0_0_0_2px_var(--color-focus)]'
+            : '',
+        ].join(' ')}
+        style={{ width: column.width }}
+      >
+        {editing ? (
+          editor
+        ) : error ? (
+          <span className="flex min-w-0 flex-col leading-tight text-fault">
+            <span className="truncate font-mono text-[0.8125rem]">
+              <span aria-hidden>✕ </span>
+              {error.text || '(empty)'}
+            </span>
+            <span className="truncate text-[0.6875rem]">{error.message}</span>
+          </span>
+        ) : column.id === SELECT_COLUMN ? (
+          <input
+            type="checkbox"
+            tabIndex={-1}
+            checked={selected}
+            aria-label={`Select ${pinRow.name}`}
+            onMouseDown={(e) => e.preventDefault()}
+            onChange={() => undefined}
+            onClick={(e) => onToggleSelected(rowIndex, e)}
+            className="mx-auto size-4 accent-ink"
+          />
+        ) : isPinColumn(column.id) ? (
+          <span className="flex min-w-0 items-center overflow-hidden whitespace-nowrap">
+            <CellContent row={pinRow} column={column.id} unit={unit} />
+          </span>
+        ) : null}
+      </div>
+    );
+  };
   return (
     <div
       role="row"
       aria-rowindex={rowIndex + 2}
       aria-selected={readOnly ? undefined : selected}
       data-pin={pinRow.name}
-      className={`absolute left-0 top-0 flex border-b border-rule/70 ${selected ? 'bg-paper-sunk' : 'bg-paper-raised'}`}
+      className={`absolute left-0 flex border-b border-rule/70 ${selected ? 'bg-paper-sunk' : 'bg-paper-raised'}`}
       style={{
         width,
         height: ROW_HEIGHT,
-        transform: `translateY(${top}px)`,
+        top,
         zIndex: editingColumn >= 0 ? 20 : undefined,
       }}
     >
-      {columns.map((column, c) => {
-        const active = c === activeColumn;
-        const inRange = rangeColumns !== null && c >= rangeColumns.left && c <= rangeColumns.right;
-        const error = errors?.get(column.id);
-        const editing = c === editingColumn;
-        return (
-          <div
-            key={column.id}
-            id={cellDomId(gridId, pinRow.pin.id, column.id)}
-            role="gridcell"
-            data-column={column.id}
-            aria-colindex={c + 1}
-            aria-selected={inRange || undefined}
-            aria-invalid={error ? true : undefined}
-            aria-readonly={readOnly || !isEditableColumn(column.id) || undefined}
-            title={error ? `${error.text}: ${error.message}` : undefined}
-            onMouseDown={(e) => onCellMouseDown(rowIndex, c, e)}
-            onDoubleClick={() => onCellDoubleClick(rowIndex, c)}
-            className={[
-              'relative flex shrink-0 items-center overflow-visible border-r border-rule/50 px-2 text-[0.875rem]',
-              column.sticky ? 'sticky z-10' : '',
-              column.sticky && !inRange ? (selected ? 'bg-paper-sunk' : 'bg-paper-raised') : '',
-              inRange
-                ? 'bg-[color-mix(in_srgb,var(--color-focus)_12%,var(--color-paper-raised))]'
-                : '',
-              error ? 'bg-fault-wash' : '',
-              active
-                ? 'shadow-[inset_0_0_0_2px_var(--color-rule-strong)] group-focus-within:shadow-[inset_0_0_0_2px_var(--color-focus)]'
-                : '',
-            ].join(' ')}
-            style={{ width: column.width, left: column.sticky ? column.left : undefined }}
-          >
-            {editing ? (
-              editor
-            ) : error ? (
-              <span className="flex min-w-0 flex-col leading-tight text-fault">
-                <span className="truncate font-mono text-[0.8125rem]">
-                  <span aria-hidden>✕ </span>
-                  {error.text || '(empty)'}
-                </span>
-                <span className="truncate text-[0.6875rem]">{error.message}</span>
-              </span>
-            ) : column.id === SELECT_COLUMN ? (
-              <input
-                type="checkbox"
-                tabIndex={-1}
-                checked={selected}
-                aria-label={`Select ${pinRow.name}`}
-                onMouseDown={(e) => e.preventDefault()}
-                onChange={() => undefined}
-                onClick={(e) => onToggleSelected(rowIndex, e)}
-                className="mx-auto size-4 accent-ink"
-              />
-            ) : isPinColumn(column.id) ? (
-              <span className="flex min-w-0 items-center overflow-hidden whitespace-nowrap">
-                <CellContent row={pinRow} column={column.id} unit={unit} />
-              </span>
-            ) : null}
-          </div>
-        );
-      })}
+      {pinnedCount > 0 ? (
+        // The pinned columns share one sticky box: one layer for the row's pinned cells rather
+        // than one per cell, which is what the browser composites on every frame.
+        <div className="sticky left-0 z-10 flex shrink-0">
+          {columns.slice(0, pinnedCount).map((column, c) => cell(column, c))}
+        </div>
+      ) : null}
+      {columns.slice(pinnedCount).map((column, c) => cell(column, c + pinnedCount))}
     </div>
   );
 });
