@@ -1,11 +1,11 @@
 import {
-  useEffect,
   useId,
   useImperativeHandle,
   useRef,
   useState,
   type KeyboardEvent,
   type MouseEvent,
+  type ReactNode,
   type Ref,
 } from 'react';
 import { useCellErrors } from '../hooks/use-cell-errors.ts';
@@ -20,6 +20,7 @@ import { cellText, SELECT_COLUMN } from '../lib/columns.ts';
 import { editorKind, editorListWidth, editorOptions } from '../lib/editor-options.ts';
 import { moveFocus, type GridPosition, type Move } from '../lib/navigation.ts';
 import type { CellRange } from '../lib/pin-edits.ts';
+import type { PinRow } from '../lib/rows.ts';
 import { CellEditor, type EditorMove } from './cell-editor.tsx';
 import { gridCommands } from './grid-commands.ts';
 import { focusHeading, GridHeader } from './grid-header.tsx';
@@ -53,8 +54,11 @@ interface PinGridProps extends Omit<PinTableOptions, 'unit'> {
   /** Id of the text that explains the grid's keys. */
   describedBy?: string;
   ref?: Ref<PinGridHandle>;
-  /** Told which pin the cursor is on, for actions on that pin outside the grid. */
-  onActivePinChange?: (pinId: number | null) => void;
+  /**
+   * What to show under the grid for the pin the cursor is on (a link to its circuit). Drawn by
+   * the grid itself, so moving the cursor redraws the grid and not the whole pin map.
+   */
+  renderActivePin?: (row: PinRow) => ReactNode;
 }
 
 /**
@@ -66,7 +70,7 @@ export function PinGrid({
   editing,
   describedBy,
   ref,
-  onActivePinChange,
+  renderActivePin,
   ...tableOptions
 }: PinGridProps) {
   const gridId = `pin-grid-${useId().replace(/[^a-zA-Z0-9]/g, '')}`;
@@ -78,8 +82,6 @@ export function PinGrid({
   const { active, setActive, anchor, setAnchor, activePos, range, keyAt, ...cursor } =
     useGridCursor({ rows: shownRows, columnIds, rowIndexOf });
   const { defaultPosition, currentRange } = cursor;
-  const activePinId = active?.pinId ?? null;
-  useEffect(() => onActivePinChange?.(activePinId), [activePinId, onActivePinChange]);
   const [editState, setEdit] = useState<EditState | null>(null);
   const errors = useCellErrors();
   // An edit whose row went away (filtered out, connector deleted) no longer counts.
@@ -310,73 +312,78 @@ export function PinGrid({
   const activeDescendant =
     active && activePos && !edit ? cellDomId(gridId, active.pinId, active.columnId) : undefined;
 
+  const activeRow = activePos ? shownRows[activePos.row] : undefined;
+
   return (
-    <div
-      ref={scrollRef}
-      role="grid"
-      tabIndex={0}
-      aria-label="Pins"
-      aria-rowcount={displayed.length + 1}
-      aria-colcount={layout.length}
-      aria-multiselectable={!readOnly || undefined}
-      aria-readonly={readOnly || undefined}
-      aria-activedescendant={activeDescendant}
-      aria-describedby={describedBy}
-      onKeyDown={onKeyDown}
-      onFocus={(e) => {
-        // A click sets the focused cell before the grid takes focus: keep that one.
-        if (e.target === e.currentTarget) setActive((a) => a ?? keyAt(defaultPosition()));
-      }}
-      className="group relative h-[min(68vh,760px)] overflow-auto rounded-lg border border-rule-strong bg-paper-raised outline-none focus-visible:ring-3 focus-visible:ring-focus/40"
-    >
-      <GridHeader
-        table={table}
-        layout={layout}
-        width={width}
-        readOnly={readOnly}
-        onLeave={(column) => {
-          moveTo({ row: 0, column });
-          focusGrid();
-        }}
-      />
+    <>
       <div
-        role="rowgroup"
-        className="relative"
-        style={{ height: virtualizer.getTotalSize(), width }}
+        ref={scrollRef}
+        role="grid"
+        tabIndex={0}
+        aria-label="Pins"
+        aria-rowcount={displayed.length + 1}
+        aria-colcount={layout.length}
+        aria-multiselectable={!readOnly || undefined}
+        aria-readonly={readOnly || undefined}
+        aria-activedescendant={activeDescendant}
+        aria-describedby={describedBy}
+        onKeyDown={onKeyDown}
+        onFocus={(e) => {
+          // A click sets the focused cell before the grid takes focus: keep that one.
+          if (e.target === e.currentTarget) setActive((a) => a ?? keyAt(defaultPosition()));
+        }}
+        className="group relative h-[min(68vh,760px)] overflow-auto rounded-lg border border-rule-strong bg-paper-raised outline-none focus-visible:ring-3 focus-visible:ring-focus/40"
       >
-        {virtualizer.getVirtualItems().map((item) => {
-          const row = shownRows[item.index];
-          if (!row) return null;
-          const isActiveRow = activePos?.row === item.index;
-          const inRange = range && item.index >= range.top && item.index <= range.bottom;
-          const isEditingRow = editingRow === item.index;
-          return (
-            <GridRow
-              key={row.pin.id}
-              gridId={gridId}
-              pinRow={row}
-              rowIndex={item.index}
-              top={item.start - HEADER_HEIGHT}
-              columns={layout}
-              width={width}
-              selected={!!rowSelection[String(row.pin.id)]}
-              activeColumn={isActiveRow ? activePos.column : -1}
-              rangeColumns={inRange ? { left: range.left, right: range.right } : null}
-              editingColumn={isEditingRow ? editingColumn : -1}
-              editor={isEditingRow ? editor : null}
-              errors={errors.forPin(row.pin.id)}
-              readOnly={readOnly}
-              unit={unit}
-              onCellMouseDown={stableMouseDown}
-              onCellDoubleClick={stableDoubleClick}
-              onToggleSelected={stableToggle}
-            />
-          );
-        })}
+        <GridHeader
+          table={table}
+          layout={layout}
+          width={width}
+          readOnly={readOnly}
+          onLeave={(column) => {
+            moveTo({ row: 0, column });
+            focusGrid();
+          }}
+        />
+        <div
+          role="rowgroup"
+          className="relative"
+          style={{ height: virtualizer.getTotalSize(), width }}
+        >
+          {virtualizer.getVirtualItems().map((item) => {
+            const row = shownRows[item.index];
+            if (!row) return null;
+            const isActiveRow = activePos?.row === item.index;
+            const inRange = range && item.index >= range.top && item.index <= range.bottom;
+            const isEditingRow = editingRow === item.index;
+            return (
+              <GridRow
+                key={row.pin.id}
+                gridId={gridId}
+                pinRow={row}
+                rowIndex={item.index}
+                top={item.start - HEADER_HEIGHT}
+                columns={layout}
+                width={width}
+                selected={!!rowSelection[String(row.pin.id)]}
+                activeColumn={isActiveRow ? activePos.column : -1}
+                rangeColumns={inRange ? { left: range.left, right: range.right } : null}
+                editingColumn={isEditingRow ? editingColumn : -1}
+                editor={isEditingRow ? editor : null}
+                errors={errors.forPin(row.pin.id)}
+                readOnly={readOnly}
+                unit={unit}
+                onCellMouseDown={stableMouseDown}
+                onCellDoubleClick={stableDoubleClick}
+                onToggleSelected={stableToggle}
+              />
+            );
+          })}
+        </div>
+        {displayed.length === 0 ? (
+          <p className="sticky left-0 px-4 py-8 text-ink-faint">No pins match the filters.</p>
+        ) : null}
       </div>
-      {displayed.length === 0 ? (
-        <p className="sticky left-0 px-4 py-8 text-ink-faint">No pins match the filters.</p>
-      ) : null}
-    </div>
+      {activeRow && renderActivePin ? renderActivePin(activeRow) : null}
+    </>
   );
 }

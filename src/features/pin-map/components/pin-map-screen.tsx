@@ -1,6 +1,14 @@
 import { useQueryClient } from '@tanstack/react-query';
 import type { ColumnVisibilityState, RowSelectionState } from '@tanstack/react-table';
-import { useDeferredValue, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import {
+  useCallback,
+  useDeferredValue,
+  useEffect,
+  useMemo,
+  useRef,
+  useState,
+  type ReactNode,
+} from 'react';
 import { Link } from 'react-router-dom';
 import { flushSync } from 'react-dom';
 import { DISPOSITION_INFO } from '#shared/domain/dispositions.ts';
@@ -21,7 +29,7 @@ import { useStableHandler } from '../hooks/use-stable-handler.ts';
 import type { CellContext } from '../lib/cell-values.ts';
 import { filterRows, NO_FILTER, revealRow, type PinFilter } from '../lib/filter.ts';
 import { countDispositions, countsByConnector, pinsByConnector } from '../lib/progress.ts';
-import { destinationCavities, toPinRows, type DestinationFeed } from '../lib/rows.ts';
+import { destinationCavities, toPinRows, type DestinationFeed, type PinRow } from '../lib/rows.ts';
 import { ColumnMenu } from './column-menu.tsx';
 import { ConnectorCard } from './connector-card.tsx';
 import { ConnectorForm, type ConnectorFormValues } from './connector-form.tsx';
@@ -122,11 +130,9 @@ function PinMap({
   const [columnVisibility, setColumnVisibility] = useState<ColumnVisibilityState>({});
   const [form, setForm] = useState<{ connectorId: number | null } | null>(null);
   const [fromLibrary, setFromLibrary] = useState(false);
-  const [activePinId, setActivePinId] = useState<number | null>(null);
 
   const rows = useMemo(() => toPinRows(pins, connectors, feeds), [pins, connectors, feeds]);
   const shown = useMemo(() => filterRows(rows, filter), [rows, filter]);
-  const activeRow = rows.find((r) => r.pin.id === activePinId);
   const destinations = useMemo(() => destinationCavities(pins, connectors), [pins, connectors]);
   const ctx = useMemo<CellContext>(
     () => ({ sizeUnit, destinations, feeds }),
@@ -186,6 +192,18 @@ function PinMap({
           title: `${c.label} was not deleted: ${error.message}`,
         }),
     }),
+  );
+
+  const circuitLink = useCallback(
+    (row: PinRow) => (
+      <Link
+        to={paths.conversionCircuit.getHref(conversionId, 'pin', row.pin.id)}
+        className="self-start text-sm text-copper-deep underline-offset-2 hover:underline"
+      >
+        Show circuit of {row.name}
+      </Link>
+    ),
+    [conversionId],
   );
 
   const filterUndecided = useStableHandler(() =>
@@ -353,16 +371,8 @@ function PinMap({
               onColumnVisibilityChange={setColumnVisibility}
               editing={editing}
               describedBy="pin-grid-keys"
-              onActivePinChange={setActivePinId}
+              renderActivePin={circuitLink}
             />
-            {activeRow ? (
-              <Link
-                to={paths.conversionCircuit.getHref(conversionId, 'pin', activeRow.pin.id)}
-                className="self-start text-sm text-copper-deep underline-offset-2 hover:underline"
-              >
-                Show circuit of {activeRow.name}
-              </Link>
-            ) : null}
             <KeyHelp readOnly={readOnly} />
           </section>
         </>
