@@ -1,30 +1,35 @@
+import { useIsMutating } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { Button } from '@/components/ui/button.tsx';
+import { pinMapKeys } from '../api/keys.ts';
+import { useUndoSummary, type UndoHistory } from '../hooks/use-pin-editing.ts';
 import type { countDispositions } from '../lib/progress.ts';
 import { DispositionTally } from './disposition-tally.tsx';
 
-/** The pin map's heading: the whole conversion's progress, whether edits are saved, undo and add. */
+/**
+ * The pin map's heading: the whole conversion's progress, whether edits are saved, undo and add.
+ * It follows the writes in flight and the undo history itself, so they redraw only the heading.
+ */
 export function PinMapHeader({
+  conversionId,
   counts,
   readOnly,
-  saving,
-  canUndo,
-  nextUndo,
+  history,
   onUndo,
   onFromLibrary,
   onAddConnector,
 }: {
+  conversionId: number;
   counts: ReturnType<typeof countDispositions>;
   readOnly: boolean;
-  /** Writes in flight; none is 0. */
-  saving: number | boolean;
-  canUndo: boolean;
-  nextUndo: string | null | undefined;
+  history: UndoHistory;
   onUndo: () => void;
   onFromLibrary: (() => void) | null;
   onAddConnector: () => void;
 }) {
+  const saving = useIsMutating({ mutationKey: pinMapKeys.pinWrites(conversionId) });
+  const { canUndo, nextUndo } = useUndoSummary(history);
   return (
     <section
       aria-label="Progress of the whole conversion"

@@ -243,11 +243,10 @@ function PinMap({
   return (
     <div className="flex flex-col gap-5">
       <PinMapHeader
+        conversionId={conversionId}
         counts={counts}
         readOnly={readOnly}
-        saving={editing.saving}
-        canUndo={editing.canUndo}
-        nextUndo={editing.nextUndo}
+        history={editing.history}
         onUndo={editing.undo}
         onFromLibrary={renderFromLibrary ? openLibrary : null}
         onAddConnector={openBlank}

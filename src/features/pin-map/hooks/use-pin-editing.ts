@@ -1,5 +1,5 @@
-import { useIsMutating, useQueryClient } from '@tanstack/react-query';
-import { useCallback, useMemo, useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { useCallback, useMemo, useState, useSyncExternalStore } from 'react';
 import type { Pin, PinChanges } from '#shared/schemas/pin-map.schema.ts';
 import { useBatchUpdatePins } from '../api/batch-update-pins.ts';
 import { useBulkUpdatePins } from '../api/bulk-update-pins.ts';
@@ -27,13 +27,43 @@ export interface PinMapMessage {
 let nextId = 1;
 
 /**
+ * The undo history, held outside React state: an edit that pushes an entry redraws what shows
+ * the history (the Undo button) and not the whole pin map, and undo always reads the newest.
+ */
+export function createUndoHistory() {
+  let stack: UndoEntry[] = [];
+  const listeners = new Set<() => void>();
+  return {
+    get: () => stack,
+    update(change: (stack: UndoEntry[]) => UndoEntry[]) {
+      stack = change(stack);
+      for (const listener of listeners) listener();
+    },
+    subscribe(listener: () => void) {
+      listeners.add(listener);
+      return () => {
+        listeners.delete(listener);
+      };
+    },
+  };
+}
+
+export type UndoHistory = ReturnType<typeof createUndoHistory>;
+
+/** Whether there is something to undo, and what, for the Undo button. */
+export function useUndoSummary(history: UndoHistory) {
+  const stack = useSyncExternalStore(history.subscribe, history.get);
+  return { canUndo: stack.length > 0, nextUndo: stack.at(-1)?.what ?? null };
+}
+
+/**
  * Every change to pins on the pin map goes through here: one cell (PATCH), the same values on a
  * selection (bulk), or many different cells (batch: paste, fill down, undo). Each change is
  * recorded for undo before it is sent, and forgotten again if the server refuses it.
  */
 export function usePinEditing(conversionId: number) {
   const queryClient = useQueryClient();
-  const [undoStack, setUndoStack] = useState<UndoEntry[]>([]);
+  const [history] = useState(createUndoHistory);
   const [messages, setMessages] = useState<PinMapMessage[]>([]);
 
   const notify = useCallback((message: Omit<PinMapMessage, 'id'>) => {
@@ -54,17 +84,16 @@ export function usePinEditing(conversionId: number) {
     () => ({
       onProblem: (problem: PinWriteProblem) => {
         const undoId = problem.undoId;
-        if (undoId) setUndoStack((stack) => dropUndo(stack, undoId));
+        if (undoId) history.update((stack) => dropUndo(stack, undoId));
         notify({ tone: problem.conflict ? 'caution' : 'fault', title: problem.message });
       },
     }),
-    [notify],
+    [notify, history],
   );
 
   const { mutate: mutateSingle } = useUpdatePin(conversionId, listeners);
   const { mutate: mutateBulk } = useBulkUpdatePins(conversionId, listeners);
   const { mutate: mutateBatch } = useBatchUpdatePins(conversionId, listeners);
-  const saving = useIsMutating({ mutationKey: pinMapKeys.pinWrites(conversionId) });
 
   const currentPins = useCallback(
     () => pinsById(queryClient.getQueryData<Pin[]>(pinMapKeys.pins(conversionId)) ?? []),
@@ -74,10 +103,10 @@ export function usePinEditing(conversionId: number) {
   const remember = useCallback(
     (what: string, edits: PinEdit[]) => {
       const entry = undoEntryFor(`undo-${nextId++}`, what, currentPins(), edits);
-      setUndoStack((stack) => pushUndo(stack, entry));
+      history.update((stack) => pushUndo(stack, entry));
       return entry.id;
     },
-    [currentPins],
+    [currentPins, history],
   );
 
   /** One pin's changes as one PATCH; several pins' as one batch. */
@@ -108,27 +137,25 @@ export function usePinEditing(conversionId: number) {
   );
 
   const undo = useCallback(() => {
-    const popped = popUndo(undoStack);
+    const popped = popUndo(history.get());
     if (!popped) {
       notify({ tone: 'info', title: 'Nothing to undo.' });
       return;
     }
-    setUndoStack(popped.rest);
+    history.update(() => popped.rest);
     mutateBatch({
       kind: 'batch',
       edits: undoEdits(popped.entry),
       what: `undo of ${popped.entry.what}`,
     });
     notify({ tone: 'info', title: `Undone: ${popped.entry.what}.` });
-  }, [undoStack, mutateBatch, notify]);
+  }, [history, mutateBatch, notify]);
 
   return {
     write,
     writeSelection,
     undo,
-    canUndo: undoStack.length > 0,
-    nextUndo: undoStack.at(-1)?.what ?? null,
-    saving,
+    history,
     messages,
     notify,
     dismiss,
