@@ -4,7 +4,7 @@ import { SortGlyph } from '@/components/ui/sortable-table.tsx';
 import { SELECT_COLUMN } from '../lib/columns.ts';
 import type { PinRow } from '../lib/rows.ts';
 import type { PinGridFeatures } from './grid-columns.ts';
-import { HEADER_HEIGHT, leadingPinned, type ColumnLayout } from './grid-row.tsx';
+import { HEADER_HEIGHT, pinnedAndRest, type ColumnLayout } from './grid-row.tsx';
 
 /** The grid's column headings: they stay at the top while the rows scroll under them. */
 export function GridHeader({
@@ -36,7 +36,6 @@ export function GridHeader({
 
   const allSelected = table.getIsAllRowsSelected();
   const someSelected = table.getIsSomeRowsSelected() && !allSelected;
-  const pinnedCount = leadingPinned(layout);
   const heading = (c: ColumnLayout, i: number) => {
     const column = table.getColumn(c.id);
     const sorted = column?.getIsSorted() ?? false;
@@ -101,12 +100,7 @@ export function GridHeader({
         className="flex border-b border-rule-strong bg-paper-sunk"
         style={{ height: HEADER_HEIGHT, width }}
       >
-        {pinnedCount > 0 ? (
-          <div className="sticky left-0 z-10 flex shrink-0">
-            {layout.slice(0, pinnedCount).map((c, i) => heading(c, i))}
-          </div>
-        ) : null}
-        {layout.slice(pinnedCount).map((c, i) => heading(c, i + pinnedCount))}
+        {pinnedAndRest(layout, heading)}
       </div>
     </div>
   );

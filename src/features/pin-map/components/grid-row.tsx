@@ -22,10 +22,27 @@ export interface CellError {
   message: string;
 }
 
-/** How many columns at the start of the row stay put when the grid scrolls sideways. */
-export function leadingPinned(columns: readonly ColumnLayout[]): number {
+/**
+ * A row's cells (or headings) left to right, those of the leading pinned columns in one sticky
+ * box: one layer per row for the pinned cells rather than one per cell, which the browser
+ * composites on every frame.
+ */
+export function pinnedAndRest(
+  columns: readonly ColumnLayout[],
+  draw: (column: ColumnLayout, index: number) => ReactNode,
+): ReactNode {
   const first = columns.findIndex((c) => !c.sticky);
-  return first === -1 ? columns.length : first;
+  const pinned = first === -1 ? columns.length : first;
+  return (
+    <>
+      {pinned > 0 ? (
+        <div className="sticky left-0 z-10 flex shrink-0">
+          {columns.slice(0, pinned).map((column, i) => draw(column, i))}
+        </div>
+      ) : null}
+      {columns.slice(pinned).map((column, i) => draw(column, i + pinned))}
+    </>
+  );
 }
 
 export const cellDomId = (gridId: string, pinId: number, columnId: string) =>
@@ -76,7 +93,6 @@ export const GridRow = memo(function GridRow({
   onCellDoubleClick,
   onToggleSelected,
 }: GridRowProps) {
-  const pinnedCount = leadingPinned(columns);
   const cell = (column: ColumnLayout, c: number) => {
     const active = c === activeColumn;
     const inRange = rangeColumns !== null && c >= rangeColumns.left && c <= rangeColumns.right;
@@ -149,14 +165,7 @@ export const GridRow = memo(function GridRow({
         zIndex: editingColumn >= 0 ? 20 : undefined,
       }}
     >
-      {pinnedCount > 0 ? (
-        // The pinned columns share one sticky box: one layer for the row's pinned cells rather
-        // than one per cell, which is what the browser composites on every frame.
-        <div className="sticky left-0 z-10 flex shrink-0">
-          {columns.slice(0, pinnedCount).map((column, c) => cell(column, c))}
-        </div>
-      ) : null}
-      {columns.slice(pinnedCount).map((column, c) => cell(column, c + pinnedCount))}
+      {pinnedAndRest(columns, cell)}
     </div>
   );
 });
