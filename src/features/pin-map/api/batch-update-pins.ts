@@ -5,7 +5,6 @@ import {
   type QueryClient,
 } from '@tanstack/react-query';
 import type { BatchPinRequest, Pin } from '#shared/schemas/pin-map.schema.ts';
-import { afterNextPaint } from '@/lib/after-paint.ts';
 import { api } from '@/lib/api-client.ts';
 import { pinMapKeys, pinWriteScope } from './keys.ts';
 import { pinWriteCache, type PinWrite, type PinWriteListeners } from './pin-write-cache.ts';
@@ -25,8 +24,6 @@ export function batchUpdatePinsMutationOptions(
     mutationKey: [...pinMapKeys.pinWrites(conversionId), 'batch'],
     scope: pinWriteScope(conversionId),
     mutationFn: async (write: BatchPinWrite) => {
-      // The cells already show the change; the request starts once that frame is painted.
-      await afterNextPaint();
       // Each row against the version the cache holds now; any stale row refuses the whole batch.
       const changes = write.edits.map((e) => ({
         id: e.id,

@@ -5,7 +5,6 @@ import {
   type QueryClient,
 } from '@tanstack/react-query';
 import type { BulkPinRequest, Pin } from '#shared/schemas/pin-map.schema.ts';
-import { afterNextPaint } from '@/lib/after-paint.ts';
 import { api } from '@/lib/api-client.ts';
 import { pinMapKeys, pinWriteScope } from './keys.ts';
 import { pinWriteCache, type PinWrite, type PinWriteListeners } from './pin-write-cache.ts';
@@ -24,11 +23,8 @@ export function bulkUpdatePinsMutationOptions(
   return mutationOptions({
     mutationKey: [...pinMapKeys.pinWrites(conversionId), 'bulk'],
     scope: pinWriteScope(conversionId),
-    mutationFn: async (write: BulkPinWrite) => {
-      // The rows already show the change; the request starts once that frame is painted.
-      await afterNextPaint();
-      return (await bulkUpdatePins(conversionId, { pinIds: write.pinIds, set: write.set })).pins;
-    },
+    mutationFn: async (write: BulkPinWrite) =>
+      (await bulkUpdatePins(conversionId, { pinIds: write.pinIds, set: write.set })).pins,
     onMutate: cache.onMutate,
     onSuccess: cache.onSuccess,
     onError: cache.onError,

@@ -6,6 +6,7 @@
  */
 import type { QueryClient } from '@tanstack/react-query';
 import type { Connector, Pin, PinChanges } from '#shared/schemas/pin-map.schema.ts';
+import { afterNextPaint } from '@/lib/after-paint.ts';
 import { ApiError } from '@/lib/api-client.ts';
 import { FEEDS_KEY_ROOT, HARNESS_KEY_ROOT } from '@/lib/shared-keys.ts';
 import { applyEdits, pinsById, replacePins, valuesBefore } from '../lib/pin-cache.ts';
@@ -112,6 +113,9 @@ export function pinWriteCache(
         return pin ? [{ id: edit.id, set: valuesBefore(pin, edit.set) }] : [];
       });
       queryClient.setQueryData<Pin[]>(pinsKey, (old) => applyEdits(old ?? [], edits));
+      // The grid already shows the change; the request (sent after this) waits for that frame to
+      // be painted, so neither the fetch call nor the server's work holds the frame up.
+      await afterNextPaint();
       return { before };
     },
 

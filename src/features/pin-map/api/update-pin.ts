@@ -5,7 +5,6 @@ import {
   type QueryClient,
 } from '@tanstack/react-query';
 import type { Pin, UpdatePinRequest } from '#shared/schemas/pin-map.schema.ts';
-import { afterNextPaint } from '@/lib/after-paint.ts';
 import { api } from '@/lib/api-client.ts';
 import { pinMapKeys, pinWriteScope } from './keys.ts';
 import { pinWriteCache, type PinWrite, type PinWriteListeners } from './pin-write-cache.ts';
@@ -25,8 +24,6 @@ export function updatePinMutationOptions(
     mutationKey: [...pinMapKeys.pinWrites(conversionId), 'update'],
     scope: pinWriteScope(conversionId),
     mutationFn: async (write: UpdatePinWrite) => {
-      // The cell already shows the change; the request starts once that frame is painted.
-      await afterNextPaint();
       const version = cache.versionOf(write.edit.id);
       const { pin } = await updatePin(write.edit.id, { ...write.edit.set, version });
       return [pin];

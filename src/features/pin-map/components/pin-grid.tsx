@@ -11,7 +11,7 @@ import {
 import { useCellErrors } from '../hooks/use-cell-errors.ts';
 import { useDocumentClipboard } from '../hooks/use-document-clipboard.ts';
 import { useGridCursor, type CellKey } from '../hooks/use-grid-cursor.ts';
-import { useGridVirtualizer } from '../hooks/use-grid-virtualizer.ts';
+import { scrollToRow, useGridVirtualizer } from '../hooks/use-grid-virtualizer.ts';
 import { usePinTable, type PinTableOptions } from '../hooks/use-pin-table.ts';
 import type { PinEditing } from '../hooks/use-pin-editing.ts';
 import { useStableHandler } from '../hooks/use-stable-handler.ts';
@@ -102,19 +102,8 @@ export function PinGrid({
     scrollRef.current?.focus({ preventScroll: true });
   }
 
-  /** The row is wholly in view, below the sticky headings (from the virtualiser's own state). */
-  function rowInView(row: number): boolean {
-    const offset = virtualizer.scrollOffset;
-    const height = virtualizer.scrollRect?.height;
-    if (offset == null || !height) return false;
-    const top = HEADER_HEIGHT + row * ROW_HEIGHT;
-    return top >= offset + HEADER_HEIGHT && top + ROW_HEIGHT <= offset + height;
-  }
-
   function scrollToCell(pos: GridPosition, align: 'auto' | 'center' = 'auto') {
-    // A row already in view is left where it is: asking the virtualiser to scroll to it anyway
-    // starts a scroll that it follows up over the next frames, each one a redraw of the page.
-    if (align === 'center' || !rowInView(pos.row)) virtualizer.scrollToIndex(pos.row, { align });
+    scrollToRow(virtualizer, pos.row, align);
     const el = scrollRef.current;
     const column = layout[pos.column];
     if (!el || !column || column.sticky) return;

@@ -67,3 +67,26 @@ export function useGridVirtualizer({
     getItemKey: rowKey,
   });
 }
+
+/**
+ * Scrolls the grid to a row, unless `align` is 'auto' and the row is already wholly in view below
+ * the sticky headings: the virtualiser starts a scroll even then and follows it up over the next
+ * frames, each one a redraw of the page. Read from the virtualiser's own state, no layout.
+ */
+export function scrollToRow(
+  virtualizer: Virtualizer<HTMLDivElement, Element>,
+  index: number,
+  align: 'auto' | 'center',
+) {
+  const row = virtualizer.measurementsCache[index];
+  const offset = virtualizer.scrollOffset;
+  const height = virtualizer.scrollRect?.height;
+  const inView =
+    row !== undefined &&
+    offset != null &&
+    !!height &&
+    row.start >= offset + HEADER_HEIGHT &&
+    row.end <= offset + height;
+  if (align === 'auto' && inView) return;
+  virtualizer.scrollToIndex(index, { align });
+}
