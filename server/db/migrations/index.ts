@@ -17,6 +17,7 @@ import { POSTGRES_AFTER, POSTGRES_BEFORE, postgresMigrationContext } from './pos
 import { wirePairs } from './0014-wire-pairs.ts';
 import { harnessChangeCounters } from './0015-harness-change-counters.ts';
 import { partialPinLinks } from './0016-partial-pin-links.ts';
+import { pinChecksAsComparisons } from './0017-pin-checks-as-comparisons.ts';
 
 /**
  * Column types in migrations: Sequelize's sqlite dialect converts values by the declared column
@@ -46,6 +47,7 @@ export const MIGRATIONS: Migration[] = [
   wirePairs,
   harnessChangeCounters,
   partialPinLinks,
+  pinChecksAsComparisons,
 ];
 
 export async function migrate(sequelize: Sequelize): Promise<void> {
