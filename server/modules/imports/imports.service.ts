@@ -14,6 +14,7 @@ import {
 import { PIN_FIELD_NAMES } from '#shared/schemas/pin-map.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { runBulkWrites, sqlLiteral } from '../../db/bulk-write.ts';
+import { readRows } from '../../db/fast-read.ts';
 import { db } from '../../db/index.ts';
 import {
   Connector,
@@ -23,20 +24,14 @@ import {
   Pin,
   PinImport,
   User,
-  Workshop,
 } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
-import { AppError } from '../../lib/errors.ts';
+import { AppError, notFound } from '../../lib/errors.ts';
 import { logger } from '../../lib/logger.ts';
 import { inTransaction } from '../../lib/transaction.ts';
 import { displayFileName, type UploadedFile } from '../../lib/upload.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 import { loadsFollowConnectorPins } from '../feeds/feed-links.service.ts';
-import {
-  conversionChangeCounter,
-  findConversionInWorkshop,
-} from '../conversions/conversions.service.ts';
-import { findConnectorInWorkshop } from '../pin-map/connectors.service.ts';
 import { decodeUtf8, DELIMITER_NAMES, readCsv } from './csv-text.ts';
 import { headerSignature, parseMappingField, resolveMapping } from './mapping.ts';
 import {
@@ -70,19 +65,45 @@ interface Where {
   sizeUnit: SizeUnit;
 }
 
-async function locate(actor: Actor, target: ImportTarget): Promise<Where> {
-  const sizeUnit = (await Workshop.findByPk(actor.workshopId))?.sizeUnit ?? 'mm2';
-  if (target.kind === 'conversion') {
-    await findConversionInWorkshop(actor, target.conversionId);
-    return { conversionId: target.conversionId, connectorId: null, label: null, sizeUnit };
-  }
-  const connector = await findConnectorInWorkshop(actor, target.connectorId);
-  return {
-    conversionId: connector.conversionId,
-    connectorId: connector.id,
-    label: connector.label,
-    sizeUnit,
-  };
+/** Where an import goes, as one read finds it (`locate`). */
+interface Located {
+  conversionId: number;
+  connectorId: number | null;
+  label: string | null;
+  sizeUnit: SizeUnit;
+  counter: number;
+}
+
+/**
+ * The place an import goes, in the actor's workshop (else 404), with the workshop's size unit and
+ * the conversion's change counter (migration 0009), in one read: the counter is read before the
+ * pin map, so if it has not moved by the time the transaction starts, the plan worked out now is
+ * still the plan.
+ */
+async function locate(
+  actor: Actor,
+  target: ImportTarget,
+): Promise<{ where: Where; counter: number }> {
+  const counted = `COALESCE(cc.counter, 0) AS counter, w.size_unit AS "sizeUnit"
+       FROM conversions c
+       JOIN workshops w ON w.id = c.workshop_id
+       LEFT JOIN conversion_changes cc ON cc.conversion_id = c.id`;
+  const [row] =
+    target.kind === 'conversion'
+      ? await readRows<Located>(
+          `SELECT c.id AS "conversionId", NULL AS "connectorId", NULL AS label, ${counted}
+            WHERE c.id = ? AND c.workshop_id = ?`,
+          [target.conversionId, actor.workshopId],
+        )
+      : await readRows<Located>(
+          `SELECT c.id AS "conversionId", k.id AS "connectorId", k.label, ${counted}
+             JOIN connectors k ON k.conversion_id = c.id
+            WHERE k.id = ? AND c.workshop_id = ?`,
+          [target.connectorId, actor.workshopId],
+        );
+  if (!row) throw notFound(target.kind === 'conversion' ? 'That conversion' : 'That connector');
+  const { counter, ...where } = row;
+  return { where, counter: Number(counter) };
 }
 
 const PIN_ATTRIBUTES = ['id', 'connectorId', 'cavity', 'position', ...PIN_FIELD_NAMES, 'version'];
@@ -613,10 +634,7 @@ export async function importPinout(
   page = 1,
   allowGrowth = false,
 ): Promise<ImportResult> {
-  const where = await locate(actor, target);
-  // Read before the pin map: if it has not moved by the time the transaction starts, the plan
-  // worked out here is still the plan, and is not worked out again.
-  const counter = await conversionChangeCounter(actor, where.conversionId);
+  const { where, counter } = await locate(actor, target);
   const { key, work, kept } = await workFor(actor, where, source, counter, dryRun);
   let previewId: string | undefined;
   if (dryRun) {
