@@ -44,6 +44,20 @@ export async function readRows<T extends object>(
   });
 }
 
+/**
+ * A DATETIME column read without a model, in milliseconds: SQLite hands it back as
+ * '2026-12-02 12:15:23.123 +00:00', PostgreSQL as a Date. 0 for none.
+ */
+export function storedTime(value: unknown): number {
+  if (value == null) return 0;
+  if (value instanceof Date) return value.getTime();
+  const text = String(value)
+    .replace(' ', 'T')
+    .replace(/ ?([+-]\d\d:\d\d)$/, '$1');
+  const ms = Date.parse(text);
+  return Number.isNaN(ms) ? 0 : ms;
+}
+
 /** Finalizes the prepared statements; SQLite will not close a connection that still has some. */
 async function finalizeStatements(): Promise<void> {
   const statements = [...prepared.values()];

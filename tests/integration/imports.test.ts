@@ -8,7 +8,13 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MAX_IMPORT_ROWS, type ImportResult } from '#shared/schemas/imports.schema.ts';
 import { BLANK_PIN_VALUES, type Pin } from '#shared/schemas/pin-map.schema.ts';
 import { db } from '#server/db/index.ts';
-import { AuditEvent, Connector, Pin as PinModel, PinImport } from '#server/db/models/index.ts';
+import {
+  AuditEvent,
+  Connector,
+  Pin as PinModel,
+  PinImport,
+  User,
+} from '#server/db/models/index.ts';
 import { createOtherWorkshop } from '../factories/workshop.factory.ts';
 import { createTestContext, onPostgres, type TestContext } from '../helpers/test-app.ts';
 
@@ -210,13 +216,25 @@ describe('a messy pinout file', () => {
   });
 
   it('applied again (same SHA-256), changes nothing and says it has seen the file', async () => {
+    const other = await createConnector(conversionId, 'X1B', 'ecu', 3);
     const before = await writeState();
     const res = await upload(intoConnector(x1), FIXED);
     expect(res.status).toBe(200);
     expect(res.body.changes).toEqual([]);
     expect(res.body.summary).toEqual({ added: 0, changed: 0, unchanged: 5, removed: 0 });
-    expect(res.body.previousImport).not.toBeNull();
-    expect(res.body.notes.join(' ')).toMatch(/This same file/);
+    // When and by whom, from the import before: the builder, within the last hour.
+    const builderName = (await User.findByPk(ctx.demo.users.builder!))!.name;
+    expect(res.body.previousImport).toEqual({ at: expect.any(String), by: builderName });
+    const at = Date.parse(res.body.previousImport.at);
+    expect(Math.abs(Date.now() - at)).toBeLessThan(3_600_000);
+    expect(res.body.notes.join(' ')).toMatch(
+      new RegExp(
+        `This same file .* was imported here on ${res.body.previousImport.at.slice(0, 10)} by ${builderName}\\.`,
+      ),
+    );
+    // The same file into another connector was never imported there.
+    const elsewhere = await upload(intoConnector(other), FIXED, { dryRun: true });
+    expect(elsewhere.body.previousImport).toBeNull();
     const after = await writeState();
     expect(after.versions).toEqual(before.versions);
     expect(after.imports).toBe(before.imports + 1);

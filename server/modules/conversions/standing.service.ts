@@ -2,6 +2,7 @@ import { QueryTypes } from 'sequelize';
 import { can } from '#shared/auth/roles.ts';
 import type { ConversionListItem, ConversionState } from '#shared/schemas/conversions.schema.ts';
 import type { RevisionStatus } from '#shared/schemas/revisions.schema.ts';
+import { storedTime } from '../../db/fast-read.ts';
 import { db } from '../../db/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 
@@ -9,20 +10,6 @@ export type Standing = Pick<
   ConversionListItem,
   'state' | 'latestRevision' | 'lastChangeAt' | 'waitingForYou'
 >;
-
-/**
- * SQLite hands DATETIME columns back as '2026-12-02 12:15:23.123 +00:00' from a raw query;
- * Postgres as a Date. Either way, a time in milliseconds.
- */
-function timeOf(value: unknown): number {
-  if (value == null) return 0;
-  if (value instanceof Date) return value.getTime();
-  const text = String(value)
-    .replace(' ', 'T')
-    .replace(/ ?([+-]\d\d:\d\d)$/, '$1');
-  const ms = Date.parse(text);
-  return Number.isNaN(ms) ? 0 : ms;
-}
 
 // Every table whose rows a person changes while working on a conversion. The audit trail is in
 // the list too: a deleted pin or feed leaves no row to date it, but it leaves an audit event.
@@ -71,9 +58,9 @@ export async function conversionStandings(
     ),
   ]);
   const last = new Map<number, number>();
-  for (const c of conversions) last.set(c.id, timeOf(c.updatedAt));
+  for (const c of conversions) last.set(c.id, storedTime(c.updatedAt));
   for (const row of changes) {
-    const at = timeOf(row.at);
+    const at = storedTime(row.at);
     if (last.has(row.id) && at > last.get(row.id)!) last.set(row.id, at);
   }
   const latest = new Map<number, (typeof revisions)[number]>();

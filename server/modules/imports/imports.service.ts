@@ -14,17 +14,9 @@ import {
 import { PIN_FIELD_NAMES } from '#shared/schemas/pin-map.schema.ts';
 import type { SizeUnit } from '#shared/schemas/workshop.schema.ts';
 import { runBulkWrites, sqlLiteral } from '../../db/bulk-write.ts';
-import { readRows } from '../../db/fast-read.ts';
+import { readRows, storedTime } from '../../db/fast-read.ts';
 import { db } from '../../db/index.ts';
-import {
-  Connector,
-  Feed,
-  FeedLoad,
-  ImportMapping,
-  Pin,
-  PinImport,
-  User,
-} from '../../db/models/index.ts';
+import { Connector, Feed, FeedLoad, ImportMapping, Pin, PinImport } from '../../db/models/index.ts';
 import type { Actor } from '../../lib/actor.ts';
 import { AppError, notFound } from '../../lib/errors.ts';
 import { logger } from '../../lib/logger.ts';
@@ -390,18 +382,18 @@ function refused(result: ImportResult): AppError {
 async function previousImport(
   where: Where,
   sha256: string,
-  transaction?: Transaction,
 ): Promise<ImportResult['previousImport']> {
-  const earlier = await PinImport.findOne({
-    where: { conversionId: where.conversionId, connectorId: where.connectorId, sha256 },
-    order: [['id', 'DESC']],
-    transaction,
-  });
+  const [earlier] = await readRows<{ at: unknown; importedBy: string | null }>(
+    `SELECT i.created_at AS at, u.name AS "importedBy"
+       FROM pin_imports i LEFT JOIN users u ON u.id = i.imported_by_id
+      WHERE i.conversion_id = ? AND i.sha256 = ? AND ${where.connectorId === null ? 'i.connector_id IS NULL' : 'i.connector_id = ?'}
+      ORDER BY i.id DESC LIMIT 1`,
+    where.connectorId === null
+      ? [where.conversionId, sha256]
+      : [where.conversionId, sha256, where.connectorId],
+  );
   if (!earlier) return null;
-  const by = earlier.importedById
-    ? await User.findByPk(earlier.importedById, { attributes: ['name'], transaction })
-    : null;
-  return { at: earlier.createdAt.toISOString(), by: by?.name ?? null };
+  return { at: new Date(storedTime(earlier.at)).toISOString(), by: earlier.importedBy };
 }
 
 /**
@@ -542,11 +534,11 @@ function preparedKey(
 async function stillPrepared(actor: Actor, key: string, counter: number): Promise<Prepared | null> {
   const hit = prepared.get(key, counter);
   if (!hit || hit.given || !hit.checked.signature) return hit;
-  const saved = await ImportMapping.findOne({
-    where: { workshopId: actor.workshopId, headerSignature: hit.checked.signature },
-    attributes: ['targetsJson'],
-  });
-  return (saved?.targetsJson ?? null) === hit.checked.savedTargets ? hit : null;
+  const [saved] = await readRows<{ targets: string }>(
+    'SELECT targets_json AS targets FROM import_mappings WHERE workshop_id = ? AND header_signature = ?',
+    [actor.workshopId, hit.checked.signature],
+  );
+  return (saved?.targets ?? null) === hit.checked.savedTargets ? hit : null;
 }
 
 /** Checks the file and works out its plan against the pin map as it is now. */
