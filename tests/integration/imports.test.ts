@@ -15,6 +15,7 @@ import {
   PinImport,
   User,
 } from '#server/db/models/index.ts';
+import { feedBody } from '../factories/feed.factory.ts';
 import { createOtherWorkshop } from '../factories/workshop.factory.ts';
 import { createTestContext, onPostgres, type TestContext } from '../helpers/test-app.ts';
 
@@ -238,6 +239,66 @@ describe('a messy pinout file', () => {
     const after = await writeState();
     expect(after.versions).toEqual(before.versions);
     expect(after.imports).toBe(before.imports + 1);
+  });
+});
+
+describe('feeds joined by a file', () => {
+  it("makes a joined pin one of the feed's loads, drops it when the file parts them, and leaves loads alone otherwise", async () => {
+    const conversion = await createConversion('Feed loads by file');
+    const connector = await createConnector(conversion, 'F1', 'ecu', 2);
+    const created = await request(ctx.app)
+      .post(`/api/conversions/${conversion}/feeds`)
+      .set('Authorization', builder)
+      .send(feedBody({ name: 'Fuel pump', loads: [] }));
+    expect(created.status).toBe(201);
+    const feedId = created.body.feed.id as number;
+    const loadsOf = async () =>
+      (
+        (
+          await request(ctx.app)
+            .get(`/api/conversions/${conversion}/feeds/${feedId}`)
+            .set('Authorization', builder)
+        ).body.feed.loads as Array<{ pinId: number | null; name: string }>
+      ).map((l) => [l.pinId, l.name]);
+    const pinIdOf = async (cavity: string) =>
+      (await pinsOf(conversion)).find((p) => p.cavity === cavity && p.connectorId === connector)!
+        .id;
+
+    const joined = await upload(
+      intoConnector(connector),
+      'cavity,function,feed\n1,Pump relay out,Fuel pump\n2,Spare,\n',
+    );
+    expect(joined.status).toBe(200);
+    expect(await loadsOf()).toEqual([[await pinIdOf('1'), 'Pump relay out']]);
+
+    // A file that leaves the feed column as it was (here: without it) changes no load.
+    const renamed = await upload(
+      intoConnector(connector),
+      'cavity,function\n1,Pump out\n2,Spare\n',
+    );
+    expect(renamed.status).toBe(200);
+    expect(await loadsOf()).toEqual([[await pinIdOf('1'), 'Pump relay out']]);
+
+    // The feed moves to cavity 2: the load follows the pin that is joined now.
+    const moved = await upload(
+      intoConnector(connector),
+      'cavity,function,feed\n1,Pump out,\n2,Pump feed,Fuel pump\n',
+    );
+    expect(moved.status).toBe(200);
+    expect(await loadsOf()).toEqual([[await pinIdOf('2'), 'Pump feed']]);
+
+    // A new cavity the file adds and joins to the feed is a load from the start.
+    const grown = await upload(
+      intoConnector(connector),
+      'cavity,function,feed\n1,Pump out,\n2,Pump feed,Fuel pump\n3,Second pump,Fuel pump\n',
+      { grow: true },
+    );
+    expect(grown.status).toBe(200);
+    expect(grown.body.summary.added).toBe(1);
+    expect(await loadsOf()).toEqual([
+      [await pinIdOf('2'), 'Pump feed'],
+      [await pinIdOf('3'), 'Second pump'],
+    ]);
   });
 });
 

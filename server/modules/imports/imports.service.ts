@@ -667,9 +667,11 @@ export async function importPinout(
     const rendered =
       fresh === plan && statements ? statements : await renderPins(fresh, where.conversionId);
     await writePlan(fresh, rendered, t);
-    // A pin the file joins to a feed is one of that feed's loads, as when edited on the pin map.
+    // A pin the file joins to a feed is one of that feed's loads, and a pin it parts from a feed
+    // is no longer one, as when edited on the pin map. (A pin removed holds no load: one that
+    // does is refused.)
     await loadsFollowConnectorPins(
-      fresh.connectors.map((c) => c.connectorId),
+      fresh.connectors.filter((c) => c.feedLinksMove).map((c) => c.connectorId),
       t,
     );
     await PinImport.create(

@@ -78,6 +78,8 @@ export interface ConnectorPlan {
   grows: { from: number; cavities: string[] } | null;
   /** Whether the cavity count or the face's rows and columns change (the connector is saved). */
   reshaped: boolean;
+  /** Whether a pin is joined to a feed, or leaves one, so the feeds' loads must follow. */
+  feedLinksMove: boolean;
 }
 
 export interface Plan {
@@ -360,6 +362,7 @@ function* planInSteps(
       columns: connector.columns,
       grows: null,
       reshaped: false,
+      feedLinksMove: false,
     };
     const kept = new Map<number, PinData>();
     const newVersions = new Map<number, PinData>();
@@ -453,6 +456,10 @@ function* planInSteps(
       );
       plan.columns = Math.ceil(plan.cavityCount / plan.rows);
     }
+    const before = new Map(existing.map((p) => [p.id, p.destinationFeedId]));
+    plan.feedLinksMove =
+      plan.adds.some((p) => p.destinationFeedId != null) ||
+      plan.updates.some((p) => (p.destinationFeedId ?? null) !== (before.get(p.id) ?? null));
     plan.reshaped =
       plan.cavityCount !== connector.cavityCount ||
       plan.rows !== connector.rows ||
