@@ -303,6 +303,27 @@ describe('feeds joined by a file', () => {
 });
 
 describe('importing into a connector that already has pins', () => {
+  it('clears a value the file leaves blank, also when no pin in the file has one', async () => {
+    const connector = await createConnector(conversionId, 'X6', 'engine', 2);
+    const [a, b] = (await pinsOf(conversionId)).filter((p) => p.connectorId === connector);
+    for (const pin of [a!, b!]) {
+      const res = await request(ctx.app)
+        .patch(`/api/pins/${pin.id}`)
+        .set('Authorization', builder)
+        .send({ version: pin.version, sizeMm2: 1.5, runLengthM: 2, driverType: 'low_side' });
+      expect(res.status).toBe(200);
+    }
+    // Size blank in every row; run length kept in one row only; driver type blank in both.
+    const file = 'cavity,function,size_mm2,run_length_m,driver_type\n1,Coil 1,,2.5,\n2,Coil 2,,,\n';
+    const res = await upload(intoConnector(connector), file);
+    expect(res.status).toBe(200);
+    const after = (await pinsOf(conversionId)).filter((p) => p.connectorId === connector);
+    expect(after.map((p) => [p.function, p.sizeMm2, p.runLengthM, p.driverType])).toEqual([
+      ['Coil 1', null, 2.5, null],
+      ['Coil 2', null, null, null],
+    ]);
+  });
+
   it('previews removals of blank cavities and refuses to drop ones that hold data', async () => {
     const connector = await createConnector(conversionId, 'X2', 'engine', 4);
     const pins = (await pinsOf(conversionId)).filter((p) => p.connectorId === connector);

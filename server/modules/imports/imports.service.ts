@@ -415,38 +415,57 @@ const STAMP = '\u0001';
  * A plan's pins as multi-row statements, values escaped in, timestamps marked (`STAMP`): plain
  * SQL, no model per row; updated pins take the new values (and keep created_at). A preview renders
  * them once and keeps them with its plan, so the apply that follows only stamps them: escaping
- * 100,000 values was most of an apply's own work (`npm run bench`, P4).
+ * 100,000 values was most of an apply's own work (`npm run bench`, P4). A column whose default is
+ * NULL is left out of a statement none of whose pins has a value for it (a pinout seldom fills
+ * every column): SQLite then reads and compiles less, and an updated pin still takes the NULL, as
+ * `excluded.<column>` is the default of a column not given.
  */
 async function renderPins(plan: Plan, conversionId: number): Promise<string[]> {
   const attributes = Pin.getAttributes();
   const column = (name: string) => attributes[name as keyof typeof attributes]!.field!;
-  const columns = ['conversionId', ...WRITTEN, 'createdAt', 'updatedAt'].map(column).join(', ');
+  const nullByDefault = new Set(
+    WRITTEN.filter((name) => {
+      const attribute = attributes[name as keyof typeof attributes]!;
+      return attribute.allowNull !== false && attribute.defaultValue === undefined;
+    }),
+  );
   const set = ['position', ...PIN_FIELD_NAMES, 'version', 'updatedAt']
     .map((name) => `${column(name)} = excluded.${column(name)}`)
     .join(', ');
-  const row = (pin: Pick<PinData, (typeof WRITTEN)[number]>) => {
-    let text = `${conversionId}`;
-    for (const name of WRITTEN) text += `, ${sqlLiteral(pin[name])}`;
-    return `${text}, ${STAMP}, ${STAMP})`;
+  type Written = Pick<PinData, (typeof WRITTEN)[number]>;
+  const statement = (pins: Array<Written & { id?: number }>, upsert: boolean) => {
+    const given = WRITTEN.filter(
+      (name) => !nullByDefault.has(name) || pins.some((pin) => pin[name] != null),
+    );
+    const columns = [...(upsert ? ['id'] : []), 'conversionId', ...given, 'createdAt', 'updatedAt']
+      .map((name) => (name === 'id' ? 'id' : column(name)))
+      .join(', ');
+    const rows = pins.map((pin) => {
+      let text = upsert ? `(${sqlLiteral(pin.id)}, ${conversionId}` : `(${conversionId}`;
+      for (const name of given) text += `, ${sqlLiteral(pin[name])}`;
+      return `${text}, ${STAMP}, ${STAMP})`;
+    });
+    return (
+      `INSERT INTO pins (${columns}) VALUES ${rows.join(', ')}` +
+      (upsert ? ` ON CONFLICT (id) DO UPDATE SET ${set}` : '')
+    );
   };
-  const updates: string[] = [];
-  const adds: string[] = [];
-  for (const c of plan.connectors) {
-    for (const pin of c.updates) updates.push(`(${sqlLiteral(pin.id)}, ${row(pin)}`);
-    for (const pin of c.adds)
-      adds.push(`(${row({ ...pin, connectorId: c.connectorId, version: 0 })}`);
-    // Other requests run between connectors, as while the plan was worked out.
-    await new Promise<void>((resolve) => setImmediate(resolve));
+  const updates = plan.connectors.flatMap((c) => c.updates);
+  const adds = plan.connectors.flatMap((c) =>
+    c.adds.map((pin) => ({ ...pin, connectorId: c.connectorId, version: 0 })),
+  );
+  const statements: string[] = [];
+  for (const [pins, upsert] of [
+    [updates, true],
+    [adds, false],
+  ] as const) {
+    for (const some of chunks<Written & { id?: number }>(pins, PINS_PER_STATEMENT)) {
+      statements.push(statement(some, upsert));
+      // Other requests run between statements, as while the plan was worked out.
+      await new Promise<void>((resolve) => setImmediate(resolve));
+    }
   }
-  return [
-    ...chunks(updates, PINS_PER_STATEMENT).map(
-      (rows) =>
-        `INSERT INTO pins (id, ${columns}) VALUES ${rows.join(', ')} ON CONFLICT (id) DO UPDATE SET ${set}`,
-    ),
-    ...chunks(adds, PINS_PER_STATEMENT).map(
-      (rows) => `INSERT INTO pins (${columns}) VALUES ${rows.join(', ')}`,
-    ),
-  ];
+  return statements;
 }
 
 /** Rendered statements stamped with the time of writing, each when it is asked for. */
