@@ -43,7 +43,7 @@ export const pinChecksAsComparisons: Migration = {
   name: '0017-pin-checks-as-comparisons',
   async up(sequelize, transaction) {
     if (sequelize.getDialect() !== 'sqlite') return;
-    const select = <T>(sql: string) =>
+    const select = <T extends object>(sql: string) =>
       sequelize.query<T>(sql, { transaction, type: QueryTypes.SELECT });
     const [table] = await select<{ sql: string }>(
       `SELECT sql FROM sqlite_schema WHERE type = 'table' AND name = 'pins'`,
