@@ -264,38 +264,28 @@ describe('feeds joined by a file', () => {
       (await pinsOf(conversion)).find((p) => p.cavity === cavity && p.connectorId === connector)!
         .id;
 
-    const joined = await upload(
-      intoConnector(connector),
-      'cavity,function,feed\n1,Pump relay out,Fuel pump\n2,Spare,\n',
-    );
-    expect(joined.status).toBe(200);
-    expect(await loadsOf()).toEqual([[await pinIdOf('1'), 'Pump relay out']]);
+    /** The feed's loads after the file is applied to F1. */
+    const loadsAfter = async (file: string, grow = false) => {
+      const res = await upload(intoConnector(connector), file, { grow });
+      expect(res.status).toBe(200);
+      return loadsOf();
+    };
 
+    expect(
+      await loadsAfter('cavity,function,feed\n1,Pump relay out,Fuel pump\n2,Spare,\n'),
+    ).toEqual([[await pinIdOf('1'), 'Pump relay out']]);
     // A file that leaves the feed column as it was (here: without it) changes no load.
-    const renamed = await upload(
-      intoConnector(connector),
-      'cavity,function\n1,Pump out\n2,Spare\n',
-    );
-    expect(renamed.status).toBe(200);
-    expect(await loadsOf()).toEqual([[await pinIdOf('1'), 'Pump relay out']]);
-
+    expect(await loadsAfter('cavity,function\n1,Pump out\n2,Spare\n')).toEqual([
+      [await pinIdOf('1'), 'Pump relay out'],
+    ]);
     // The feed moves to cavity 2: the load follows the pin that is joined now.
-    const moved = await upload(
-      intoConnector(connector),
-      'cavity,function,feed\n1,Pump out,\n2,Pump feed,Fuel pump\n',
-    );
-    expect(moved.status).toBe(200);
-    expect(await loadsOf()).toEqual([[await pinIdOf('2'), 'Pump feed']]);
-
+    expect(await loadsAfter('cavity,function,feed\n1,Pump out,\n2,Pump feed,Fuel pump\n')).toEqual([
+      [await pinIdOf('2'), 'Pump feed'],
+    ]);
     // A new cavity the file adds and joins to the feed is a load from the start.
-    const grown = await upload(
-      intoConnector(connector),
-      'cavity,function,feed\n1,Pump out,\n2,Pump feed,Fuel pump\n3,Second pump,Fuel pump\n',
-      { grow: true },
-    );
-    expect(grown.status).toBe(200);
-    expect(grown.body.summary.added).toBe(1);
-    expect(await loadsOf()).toEqual([
+    const file =
+      'cavity,function,feed\n1,Pump out,\n2,Pump feed,Fuel pump\n3,Second pump,Fuel pump\n';
+    expect(await loadsAfter(file, true)).toEqual([
       [await pinIdOf('2'), 'Pump feed'],
       [await pinIdOf('3'), 'Second pump'],
     ]);
