@@ -438,7 +438,7 @@ async function renderPins(plan: Plan, conversionId: number): Promise<string[]> {
       (name) => !nullByDefault.has(name) || pins.some((pin) => pin[name] != null),
     );
     const columns = [...(upsert ? ['id'] : []), 'conversionId', ...given, 'createdAt', 'updatedAt']
-      .map((name) => (name === 'id' ? 'id' : column(name)))
+      .map(column)
       .join(', ');
     const rows = pins.map((pin) => {
       let text = upsert ? `(${sqlLiteral(pin.id)}, ${conversionId}` : `(${conversionId}`;
